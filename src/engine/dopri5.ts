@@ -1,0 +1,137 @@
+/**
+ * Dormand-Prince 5(4) with adaptive step size and dense output.
+ *
+ * Coefficients, error estimate and the 4th-order continuous extension are those of
+ * Dormand & Prince 1980, J Comput Appl Math 6:19, as given by Hairer, Norsett & Wanner 1993,
+ * Solving Ordinary Differential Equations I, 2nd ed., section II.5 and II.6 (code DOPRI5).
+ * Error norm: RMS of e_i / (atol + rtol * max(|y_i|, |y_new_i|)); step factor
+ * 0.9 * err^(-1/5), limited to [0.2, 5]. Works on Float64Arrays; no allocation per step.
+ */
+
+/** dy/dt = f(t, y), written into dydt. Must not keep references to y or dydt. */
+export type RightHandSide = (t: number, y: Float64Array, dydt: Float64Array) => void;
+
+export interface Tolerances {
+  relative: number;
+  absolute: number;
+  /** Largest step, days. */
+  maxStep: number;
+}
+
+export const DEFAULT_TOLERANCES: Tolerances = { relative: 1e-7, absolute: 1e-6, maxStep: 10 };
+
+const C2 = 1 / 5, C3 = 3 / 10, C4 = 4 / 5, C5 = 8 / 9;
+const A21 = 1 / 5;
+const A31 = 3 / 40, A32 = 9 / 40;
+const A41 = 44 / 45, A42 = -56 / 15, A43 = 32 / 9;
+const A51 = 19372 / 6561, A52 = -25360 / 2187, A53 = 64448 / 6561, A54 = -212 / 729;
+const A61 = 9017 / 3168, A62 = -355 / 33, A63 = 46732 / 5247, A64 = 49 / 176, A65 = -5103 / 18656;
+const A71 = 35 / 384, A73 = 500 / 1113, A74 = 125 / 192, A75 = -2187 / 6784, A76 = 11 / 84;
+const E1 = 71 / 57600, E3 = -71 / 16695, E4 = 71 / 1920, E5 = -17253 / 339200, E6 = 22 / 525, E7 = -1 / 40;
+const D1 = -12715105075 / 11282082432, D3 = 87487479700 / 32700410799, D4 = -10690763975 / 1880347072;
+const D5 = 701980252875 / 199316789632, D6 = -1453857185 / 822651844, D7 = 69997945 / 29380423;
+
+/** Scratch space for one system size; reuse it across calls to avoid allocation. */
+export class Dopri5Workspace {
+  readonly k1: Float64Array; readonly k2: Float64Array; readonly k3: Float64Array; readonly k4: Float64Array;
+  readonly k5: Float64Array; readonly k6: Float64Array; readonly k7: Float64Array;
+  readonly stage: Float64Array; readonly next: Float64Array;
+  readonly r1: Float64Array; readonly r2: Float64Array; readonly r3: Float64Array; readonly r4: Float64Array; readonly r5: Float64Array;
+  /** Accepted and rejected step counts of the last call. */
+  steps = 0;
+  rejected = 0;
+  constructor(readonly size: number) {
+    const f = () => new Float64Array(size);
+    this.k1 = f(); this.k2 = f(); this.k3 = f(); this.k4 = f(); this.k5 = f(); this.k6 = f(); this.k7 = f();
+    this.stage = f(); this.next = f();
+    this.r1 = f(); this.r2 = f(); this.r3 = f(); this.r4 = f(); this.r5 = f();
+  }
+}
+
+/**
+ * Called for each requested output time inside an accepted step, with the dense-output state
+ * (a scratch buffer: copy what you need).
+ */
+export type OutputSink = (t: number, y: Float64Array) => void;
+
+/**
+ * Integrates y from t0 to t1 in place (y holds y(t1) on return), calling `sink` at each time of
+ * `outputTimes` (ascending, within (t0, t1]). Returns the last accepted step size, to start the
+ * next segment with.
+ */
+export function integrate(
+  rhs: RightHandSide,
+  y: Float64Array,
+  t0: number,
+  t1: number,
+  outputTimes: readonly number[],
+  sink: OutputSink,
+  ws: Dopri5Workspace,
+  tol: Tolerances = DEFAULT_TOLERANCES,
+  initialStep = 0.25,
+): number {
+  const n = y.length;
+  const { k1, k2, k3, k4, k5, k6, k7, stage, next, r1, r2, r3, r4, r5 } = ws;
+  ws.steps = 0;
+  ws.rejected = 0;
+  let t = t0;
+  let h = Math.min(initialStep, tol.maxStep, t1 - t0);
+  let out = 0;
+  while (out < outputTimes.length && outputTimes[out] <= t0) out++;
+  rhs(t, y, k1);
+  while (t < t1) {
+    const last = t + 1.01 * h >= t1;
+    if (last) h = t1 - t;
+    for (let i = 0; i < n; i++) stage[i] = y[i] + h * A21 * k1[i];
+    rhs(t + C2 * h, stage, k2);
+    for (let i = 0; i < n; i++) stage[i] = y[i] + h * (A31 * k1[i] + A32 * k2[i]);
+    rhs(t + C3 * h, stage, k3);
+    for (let i = 0; i < n; i++) stage[i] = y[i] + h * (A41 * k1[i] + A42 * k2[i] + A43 * k3[i]);
+    rhs(t + C4 * h, stage, k4);
+    for (let i = 0; i < n; i++) stage[i] = y[i] + h * (A51 * k1[i] + A52 * k2[i] + A53 * k3[i] + A54 * k4[i]);
+    rhs(t + C5 * h, stage, k5);
+    for (let i = 0; i < n; i++) stage[i] = y[i] + h * (A61 * k1[i] + A62 * k2[i] + A63 * k3[i] + A64 * k4[i] + A65 * k5[i]);
+    rhs(t + h, stage, k6);
+    for (let i = 0; i < n; i++) next[i] = y[i] + h * (A71 * k1[i] + A73 * k3[i] + A74 * k4[i] + A75 * k5[i] + A76 * k6[i]);
+    rhs(t + h, next, k7);
+    let err = 0;
+    for (let i = 0; i < n; i++) {
+      const e = h * (E1 * k1[i] + E3 * k3[i] + E4 * k4[i] + E5 * k5[i] + E6 * k6[i] + E7 * k7[i]);
+      const scale = tol.absolute + tol.relative * Math.max(Math.abs(y[i]), Math.abs(next[i]));
+      err += (e / scale) * (e / scale);
+    }
+    err = Math.sqrt(err / n);
+    if (!(err <= 1)) {
+      ws.rejected++;
+      h *= Number.isFinite(err) ? Math.max(0.2, 0.9 * Math.pow(err, -0.2)) : 0.2;
+      if (h < 1e-12) throw new Error(`step size underflow at t = ${t}`);
+      continue;
+    }
+    ws.steps++;
+    const tNew = last ? t1 : t + h;
+    if (out < outputTimes.length && outputTimes[out] <= tNew) {
+      for (let i = 0; i < n; i++) {
+        const ydiff = next[i] - y[i];
+        const bspl = h * k1[i] - ydiff;
+        r1[i] = y[i];
+        r2[i] = ydiff;
+        r3[i] = bspl;
+        r4[i] = ydiff - h * k7[i] - bspl;
+        r5[i] = h * (D1 * k1[i] + D3 * k3[i] + D4 * k4[i] + D5 * k5[i] + D6 * k6[i] + D7 * k7[i]);
+      }
+      while (out < outputTimes.length && outputTimes[out] <= tNew) {
+        const theta = (outputTimes[out] - t) / h;
+        const theta1 = 1 - theta;
+        for (let i = 0; i < n; i++) stage[i] = r1[i] + theta * (r2[i] + theta1 * (r3[i] + theta * (r4[i] + theta1 * r5[i])));
+        sink(outputTimes[out], stage);
+        out++;
+      }
+    }
+    y.set(next);
+    k1.set(k7);
+    t = tNew;
+    const factor = err === 0 ? 5 : Math.min(5, Math.max(0.2, 0.9 * Math.pow(err, -0.2)));
+    h = Math.min(h * factor, tol.maxStep);
+  }
+  return h;
+}

@@ -1,0 +1,19 @@
+/** The Mixwise engine: pure TypeScript, no platform imports. */
+export * from './scenario.ts';
+export * from './results.ts';
+export { validateScenario, parseScenarioText, formatProblem, formatPath, ScenarioError, type Problem, type ValidationResult } from './validation.ts';
+export { runScenario, runOptions, referenceIndexOf, reciprocityBySetting } from './run.ts';
+export { effectiveContactMatrix, reciprocityCheck, correctReciprocity } from './contacts.ts';
+export { phaseAt, changeDays, measuresConstant } from './phases.ts';
+export {
+  growthRateFromR,
+  reproductionNumberFromGrowthRate,
+  generationIntervalTransform,
+  doublingTimeDays,
+  halvingTimeDays,
+  type Periods,
+} from './growth.ts';
+export { prepareScenario, periodsOf, type PreparedScenario } from './prepare.ts';
+export { simulateOption } from './simulate.ts';
+export { finalSizeByBand } from './finalSize.ts';
+export { nextGenerationMatrix, dominantEigenvalue } from './ngm.ts';

@@ -1,0 +1,78 @@
+/**
+ * Next-generation matrix and its dominant eigenvalue.
+ *
+ *   K_ij = D * S_i * M_ij = beta * D * u_i * C_ij * h_j * (1 - c) * S_i / N_j,
+ *
+ * expected new infections in band i caused by one infectious person in band j over the mean
+ * infectious period D (days). R = spectral radius of K (Diekmann, Heesterbeek & Roberts 2010,
+ * J R Soc Interface 7:873; van den Driessche & Watmough 2002, Math Biosci 180:29).
+ * Erlang stage counts do not enter: only the mean time infectious does.
+ */
+import { EigenvalueDecomposition, Matrix } from 'ml-matrix';
+
+/** Writes K = D diag(S) M (row-major n x n) into `out`. */
+export function nextGenerationMatrixInto(out: Float64Array, transmission: Float64Array, susceptible: ArrayLike<number>, infectiousPeriodDays: number): Float64Array {
+  const n = susceptible.length;
+  for (let i = 0; i < n; i++) {
+    const f = infectiousPeriodDays * susceptible[i];
+    for (let j = 0; j < n; j++) out[i * n + j] = f * transmission[i * n + j];
+  }
+  return out;
+}
+
+/** K as rows, for display and tests. */
+export function nextGenerationMatrix(transmission: Float64Array, susceptible: ArrayLike<number>, infectiousPeriodDays: number): number[][] {
+  const n = susceptible.length;
+  const flat = nextGenerationMatrixInto(new Float64Array(n * n), transmission, susceptible, infectiousPeriodDays);
+  return Array.from({ length: n }, (_, i) => Array.from(flat.subarray(i * n, (i + 1) * n)));
+}
+
+/**
+ * Dominant eigenvalue (largest real part) of a square matrix, with ml-matrix's
+ * EigenvalueDecomposition. For a non-negative K this is its spectral radius (Perron-Frobenius).
+ */
+export function dominantEigenvalue(flat: Float64Array, n: number): number {
+  const rows = Array.from({ length: n }, (_, i) => Array.from(flat.subarray(i * n, (i + 1) * n)));
+  const eig = new EigenvalueDecomposition(new Matrix(rows), { assumeSymmetric: false });
+  let best = -Infinity;
+  for (const v of eig.realEigenvalues) if (v > best) best = v;
+  return Math.max(0, best);
+}
+
+/**
+ * Spectral radius of a non-negative matrix by power iteration, warm-started from `vector`
+ * (length n, updated in place to the Perron vector). Used for R(t) day by day, where the
+ * previous day's vector is an excellent start. Falls back to `dominantEigenvalue` when the
+ * iteration does not settle (e.g. a periodic or reducible K).
+ *   x_{k+1} = K x_k / |K x_k|_1,   rho ~ |K x_k|_1 / |x_k|_1.
+ */
+export function spectralRadius(flat: Float64Array, n: number, vector: Float64Array, scratch: Float64Array): number {
+  let sum = 0;
+  for (let i = 0; i < n; i++) sum += vector[i];
+  if (!(sum > 0)) {
+    vector.fill(1 / n);
+    sum = 1;
+  }
+  for (let i = 0; i < n; i++) vector[i] /= sum;
+  let previous = -1;
+  for (let iter = 0; iter < 200; iter++) {
+    let total = 0;
+    for (let i = 0; i < n; i++) {
+      let acc = 0;
+      const row = i * n;
+      for (let j = 0; j < n; j++) acc += flat[row + j] * vector[j];
+      scratch[i] = acc;
+      total += acc;
+    }
+    if (total === 0) return 0;
+    let change = 0;
+    for (let i = 0; i < n; i++) {
+      const v = scratch[i] / total;
+      change += Math.abs(v - vector[i]);
+      vector[i] = v;
+    }
+    if (change < 1e-13 && Math.abs(total - previous) <= 1e-13 * total) return total;
+    previous = total;
+  }
+  return dominantEigenvalue(flat, n);
+}

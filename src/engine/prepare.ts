@@ -1,0 +1,99 @@
+/**
+ * What every option of a scenario shares: band parameters, the calibrated transmission rate,
+ * R0, the initial state and the delay weights. Computed once per scenario.
+ *
+ * beta calibration (R is linear in beta, so beta = R_target / rho(K at beta = 1)):
+ * - from R0: K at the disease-free state, everyone susceptible, no measures;
+ * - from a doubling time T_d: r = ln 2 / T_d, R = 1 / M(r) (growth.ts, Euler-Lotka), taken as the
+ *   R of the initial state (initial susceptibles) with no measures in force.
+ */
+import { dailyDelayWeights } from './distributions.ts';
+import { type Periods, reproductionNumberFromGrowthRate } from './growth.ts';
+import { dominantEigenvalue, nextGenerationMatrixInto } from './ngm.ts';
+import type { Scenario } from './scenario.ts';
+import { type StateLayout, stateLayout } from './seir.ts';
+import { type BandParameters, bandParameters, transmissionMatrixInto } from './transmission.ts';
+
+export interface PreparedScenario {
+  scenario: Scenario;
+  bands: BandParameters;
+  periods: Periods;
+  layout: StateLayout;
+  /** Transmission rate per contact (dimensionless probability scale, per contact). */
+  beta: number;
+  /** Basic reproduction number (fully susceptible, no measures). */
+  r0: number;
+  /** State on day 0 (persons). */
+  initialState: Float64Array;
+  /** Susceptibles on day 0 by band (persons). */
+  initialSusceptible: Float64Array;
+  /** Infections placed on day 0 by band (persons). */
+  seeds: Float64Array;
+  /** IFR by band, fraction. */
+  infectionFatalityRatio: Float64Array;
+  /** Daily infection-to-death delay weights over the horizon. */
+  deathDelayWeights: Float64Array;
+}
+
+export function periodsOf(s: Scenario): Periods {
+  const d = s.disease;
+  return {
+    latentPeriodDays: d.latentPeriodDays,
+    infectiousPeriodDays: d.infectiousPeriodDays,
+    latentStages: d.latentStages,
+    infectiousStages: d.infectiousStages,
+  };
+}
+
+/** Day-0 state: S = N (1 - immune) - seeds, R = N immune, seeds in the first latent or infectious stage. */
+export function initialStateOf(s: Scenario, L: StateLayout): Float64Array {
+  const y = new Float64Array(L.size);
+  const init = s.initialState;
+  for (let i = 0; i < L.bands; i++) {
+    const n = s.populationPersons[i];
+    const immune = n * (init.priorImmunityFraction?.[i] ?? 0);
+    const seed = init.infectedPersons[i];
+    y[L.susceptible + i] = Math.max(0, n - immune - seed);
+    y[L.recovered + i] = immune;
+    y[(init.infectedCompartment === 'latent' ? L.latent : L.infectious) + i] = seed;
+  }
+  return y;
+}
+
+/** R for transmission rate 1 (per contact) at the given susceptibles, with no measures. */
+function reproductionPerUnitBeta(s: Scenario, bp: BandParameters, susceptible: Float64Array): number {
+  const n = bp.bands;
+  const m = transmissionMatrixInto(new Float64Array(n * n), s, bp, 1, null);
+  return dominantEigenvalue(nextGenerationMatrixInto(new Float64Array(n * n), m, susceptible, s.disease.infectiousPeriodDays), n);
+}
+
+export function prepareScenario(s: Scenario): PreparedScenario {
+  const bp = bandParameters(s);
+  const periods = periodsOf(s);
+  const layout = stateLayout(bp.bands, periods.latentStages, periods.infectiousStages);
+  const initialState = initialStateOf(s, layout);
+  const initialSusceptible = initialState.slice(layout.susceptible, layout.susceptible + bp.bands);
+  const perBetaFull = reproductionPerUnitBeta(s, bp, bp.population);
+  const t = s.disease.transmission;
+  let beta: number;
+  if (t.kind === 'r0') {
+    beta = perBetaFull > 0 ? t.r0 / perBetaFull : 0;
+  } else {
+    const rTarget = reproductionNumberFromGrowthRate(Math.LN2 / t.doublingTimeDays, periods);
+    const perBetaStart = reproductionPerUnitBeta(s, bp, initialSusceptible);
+    beta = perBetaStart > 0 ? rTarget / perBetaStart : 0;
+  }
+  return {
+    scenario: s,
+    bands: bp,
+    periods,
+    layout,
+    beta,
+    r0: beta * perBetaFull,
+    initialState,
+    initialSusceptible,
+    seeds: Float64Array.from(s.initialState.infectedPersons),
+    infectionFatalityRatio: Float64Array.from(s.severity.infectionFatalityRatio),
+    deathDelayWeights: dailyDelayWeights(s.severity.deathDelay.meanDays, s.severity.deathDelay.shape, s.horizonDays),
+  };
+}

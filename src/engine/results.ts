@@ -1,0 +1,81 @@
+/**
+ * What the engine returns for a scenario: one `OptionResults` per policy option.
+ * Views (UI, CLI, report) only format these numbers; they never compute model quantities.
+ */
+
+/**
+ * Daily series of one option, flat and band-major per day: value for day d and band i
+ * sits at `[d * bands + i]`. Float64Arrays so a worker can transfer them without copying.
+ */
+export interface DailySeries {
+  /** Horizon H in days. */
+  days: number;
+  /** Number of age bands n. */
+  bands: number;
+  /** Persons susceptible at the start of day d (d = 0..H), by band. Length (H+1)·n. */
+  susceptible: Float64Array;
+  /** Persons currently infected, latent or infectious (E+I), at day d (d = 0..H), by band. Length (H+1)·n. */
+  prevalence: Float64Array;
+  /** New infections during day d, i.e. in [d, d+1) (d = 0..H-1), by band, persons. Length H·n. */
+  incidence: Float64Array;
+  /** Deaths during day d (d = 0..H-1), by band: IFR x incidence convolved with the infection-to-death delay. Length H·n. */
+  deaths: Float64Array;
+  /** R(t): dominant eigenvalue of the next-generation matrix with day d's susceptibles and measures (d = 0..H). Length H+1. */
+  rt: Float64Array;
+}
+
+/** Results of one policy option over the horizon. */
+export interface OptionResults {
+  name: string;
+  /** R on day 0 under this option's measures and the initial susceptibles (NGM dominant eigenvalue). */
+  rStart: number;
+  /** Exponential growth rate on day 0 under the measures, per day (negative when shrinking). */
+  growthRatePerDay: number;
+  /** ln 2 / r when r > 0, else null (not growing). */
+  doublingTimeDays: number | null;
+  /** ln 2 / -r when r < 0, else null. */
+  halvingTimeDays: number | null;
+  /** Day (0..H) on which the most people are infected (E+I). */
+  peakDay: number;
+  /** Persons infected (E+I) on the peak day. */
+  peakInfectedPersons: number;
+  /** peakInfectedPersons / total population, fraction. */
+  peakPrevalence: number;
+  /** Persons infected by the end of the horizon, including the initial infections. */
+  infections: number;
+  infectionsByBand: number[];
+  /** infections / population, fraction 0-1. */
+  attackRate: number;
+  attackRateByBand: number[];
+  /** Deaths eventually caused by the horizon's infections: sum_i IFR_i x infections_i, persons. */
+  deaths: number;
+  deathsByBand: number[];
+  /**
+   * Multi-group final-size solution (Ma & Earn 2006) under this option's measures,
+   * only when they are constant over the whole horizon; otherwise null.
+   */
+  finalSize: { attackRate: number; attackRateByBand: number[] } | null;
+  series: DailySeries;
+}
+
+/** The largest reciprocity imbalance of one setting's matrix (see contacts.ts). */
+export interface ReciprocityCheck {
+  setting: string;
+  /** max_ij |N_i C_ij - N_j C_ji| / max(N_i C_ij, N_j C_ji), fraction (0 = balanced). */
+  largestRelativeImbalance: number;
+  /** Band pair (i, j) where it occurs. */
+  at: [number, number];
+}
+
+export interface ScenarioResults {
+  title: string;
+  ageBands: string[];
+  /** Basic reproduction number: NGM dominant eigenvalue, fully susceptible, no measures. */
+  r0: number;
+  /** Transmission rate per contact, calibrated from R0 or the doubling time. */
+  beta: number;
+  /** Index into `options` of the reference option. */
+  referenceIndex: number;
+  options: OptionResults[];
+  reciprocity: ReciprocityCheck[];
+}

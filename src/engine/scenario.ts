@@ -1,0 +1,131 @@
+/**
+ * The scenario file: what an analyst writes down, validated with zod.
+ *
+ * Format name "mixwise-scenario", version 1. Units are in the field names
+ * (Days, PerDay, Persons, Fraction). Every validation problem names its JSON
+ * path, the rule and the value (see `validation.ts`).
+ */
+import { z } from 'zod';
+
+export const SCENARIO_FORMAT = 'mixwise-scenario';
+export const SCENARIO_VERSION = 1;
+
+const finite = z.number().refine(Number.isFinite, { message: 'must be a finite number' });
+const nonNegative = finite.refine((v) => v >= 0, { message: 'must be >= 0' });
+const positive = finite.refine((v) => v > 0, { message: 'must be > 0' });
+const fraction = finite.refine((v) => v >= 0 && v <= 1, { message: 'must be a fraction between 0 and 1' });
+const wholeDay = z.number().int({ message: 'must be a whole number of days' }).min(0, { message: 'must be >= 0' });
+
+/** One age band: a label for display and the lower age bound in years. */
+export const ageBandSchema = z.object({
+  label: z.string().min(1, { message: 'must not be empty' }),
+  lowerAgeYears: nonNegative,
+});
+
+/** A setting (home, school, work, other, or the scenario's own) and its contact matrix. */
+export const settingSchema = z.object({
+  name: z.string().min(1, { message: 'must not be empty' }),
+  /** C^s_ij: mean daily contacts one person in band i has with people in band j here (contacts per day). */
+  contactsPerDay: z.array(z.array(nonNegative)),
+});
+
+/** Transmission is fixed by R0, or by an observed doubling time before any measure. */
+export const transmissionSchema = z.discriminatedUnion('kind', [
+  z.object({ kind: z.literal('r0'), r0: positive }),
+  z.object({ kind: z.literal('doublingTime'), doublingTimeDays: positive }),
+]);
+
+/** A delay distribution: gamma with the given mean (days) and shape (1 = exponential). */
+export const delaySchema = z.object({
+  meanDays: nonNegative,
+  shape: positive.default(1),
+});
+
+export const diseaseSchema = z.object({
+  transmission: transmissionSchema,
+  /** Mean latent (exposed, not yet infectious) period, days. */
+  latentPeriodDays: positive,
+  /** Mean infectious period D, days. */
+  infectiousPeriodDays: positive,
+  /** Erlang stage counts: change timing and growth, not R0. */
+  latentStages: z.number().int().min(1).max(20).default(1),
+  infectiousStages: z.number().int().min(1).max(20).default(1),
+  /** u_i, relative susceptibility by band (1 = reference). */
+  relativeSusceptibility: z.array(nonNegative).optional(),
+  /** h_j, relative infectiousness by band (1 = reference). */
+  relativeInfectiousness: z.array(nonNegative).optional(),
+  source: z.string().default(''),
+});
+
+export const severitySchema = z.object({
+  /** IFR by band, fraction 0-1. */
+  infectionFatalityRatio: z.array(fraction),
+  /** Delay from infection to death, for the daily death series. */
+  deathDelay: delaySchema.default({ meanDays: 21, shape: 4 }),
+  source: z.string().min(1, { message: 'must cite where the IFR values come from' }),
+});
+
+export const initialStateSchema = z.object({
+  /** Persons infected on day 0, by band. */
+  infectedPersons: z.array(nonNegative),
+  /** Where the initial infections sit: just infected (latent) or already infectious. */
+  infectedCompartment: z.enum(['latent', 'infectious']).default('latent'),
+  /** Fraction of each band immune on day 0 (prior infection), 0-1. */
+  priorImmunityFraction: z.array(fraction).optional(),
+});
+
+/** Scale one setting's contacts for chosen bands (e.g. shielding older people). */
+export const ageFactorSchema = z.object({
+  setting: z.string().min(1),
+  /** Band indices (0-based) the factor applies to. */
+  bands: z.array(z.number().int().min(0)).min(1, { message: 'must name at least one band' }),
+  /** Multiplier on those bands' contacts in that setting, 0 = none. */
+  factor: nonNegative,
+});
+
+/**
+ * A phase: from `fromDay` (inclusive) to `toDay` (exclusive) the measures apply.
+ * Outside every phase contacts are as usual.
+ */
+export const phaseSchema = z.object({
+  fromDay: wholeDay,
+  toDay: wholeDay,
+  /** Multiplier by setting name; a setting not named stays at 1. 0 = closed, >1 allowed. */
+  settingMultipliers: z.record(z.string(), nonNegative).default({}),
+  ageFactors: z.array(ageFactorSchema).default([]),
+  /** Fraction by which the infectiousness of cases is cut by isolation, 0-1. */
+  caseIsolation: fraction.default(0),
+});
+
+export const policyOptionSchema = z.object({
+  name: z.string().min(1, { message: 'must not be empty' }),
+  description: z.string().default(''),
+  phases: z.array(phaseSchema).default([]),
+});
+
+export const scenarioSchema = z.object({
+  format: z.literal(SCENARIO_FORMAT),
+  version: z.literal(SCENARIO_VERSION),
+  title: z.string().min(1, { message: 'must not be empty' }),
+  notes: z.string().default(''),
+  ageBands: z.array(ageBandSchema).min(1, { message: 'must list at least one age band' }),
+  populationPersons: z.array(nonNegative),
+  settings: z.array(settingSchema).min(1, { message: 'must list at least one setting' }),
+  disease: diseaseSchema,
+  severity: severitySchema,
+  initialState: initialStateSchema,
+  horizonDays: z.number().int().min(1, { message: 'must be >= 1' }).max(3650, { message: 'must be <= 3650' }),
+  /** Name of the option others are compared with; the first option if absent. */
+  referenceOption: z.string().optional(),
+  options: z.array(policyOptionSchema).min(1, { message: 'must list at least one policy option' }),
+});
+
+/** A scenario as written in a file (defaults may be missing). */
+export type ScenarioInput = z.input<typeof scenarioSchema>;
+/** A validated scenario with defaults filled in. */
+export type Scenario = z.output<typeof scenarioSchema>;
+export type Setting = z.output<typeof settingSchema>;
+export type PolicyOption = z.output<typeof policyOptionSchema>;
+export type Phase = z.output<typeof phaseSchema>;
+export type AgeFactor = z.output<typeof ageFactorSchema>;
+export type Delay = z.output<typeof delaySchema>;

@@ -1,0 +1,192 @@
+/**
+ * Scenario validation: structure (zod schema) then the rules that tie fields together
+ * (matrix sizes, band counts, phase order, names that must exist).
+ *
+ * Every problem names its JSON path, the rule and the value, e.g.
+ * `populationPersons[3] must be >= 0, got -12`. A user's mistake is never a stack trace.
+ */
+import type { z } from 'zod';
+import { scenarioSchema, type Scenario } from './scenario.ts';
+
+export interface Problem {
+  /** JSON path in the file, e.g. `settings[1].contactsPerDay[2][0]`. */
+  path: string;
+  /** The rule broken, e.g. `must be >= 0`. */
+  rule: string;
+  /** The offending value, as JSON text (absent when the field is missing). */
+  value?: string;
+}
+
+export type ValidationResult = { ok: true; scenario: Scenario } | { ok: false; problems: Problem[] };
+
+/** Renders a path like ['settings', 1, 'contactsPerDay', 2, 0] as `settings[1].contactsPerDay[2][0]`. */
+export function formatPath(path: readonly PropertyKey[]): string {
+  let out = '';
+  for (const key of path) {
+    if (typeof key === 'number') out += `[${key}]`;
+    else out += out === '' ? String(key) : `.${String(key)}`;
+  }
+  return out === '' ? '(file)' : out;
+}
+
+/** One line per problem: `path rule, got value`. */
+export function formatProblem(p: Problem): string {
+  return p.value === undefined ? `${p.path} ${p.rule}` : `${p.path} ${p.rule}, got ${p.value}`;
+}
+
+function showValue(v: unknown): string | undefined {
+  if (v === undefined) return undefined;
+  const text = JSON.stringify(v);
+  if (text === undefined) return String(v);
+  return text.length > 60 ? `${text.slice(0, 57)}...` : text;
+}
+
+function valueAt(root: unknown, path: readonly PropertyKey[]): unknown {
+  let node: unknown = root;
+  for (const key of path) {
+    if (node === null || typeof node !== 'object') return undefined;
+    node = (node as Record<PropertyKey, unknown>)[key as string];
+  }
+  return node;
+}
+
+function ruleOf(issue: z.core.$ZodIssue, value: unknown): string {
+  if (issue.code === 'invalid_type') {
+    return value === undefined ? `is required (${issue.expected})` : `must be ${issue.expected}`;
+  }
+  if (issue.code === 'invalid_value') {
+    return `must be ${issue.values.map((v) => JSON.stringify(v)).join(' or ')}`;
+  }
+  if (issue.code === 'unrecognized_keys') return `has unknown field(s) ${issue.keys.join(', ')}`;
+  if (issue.code === 'invalid_union') return 'does not match any allowed form';
+  const msg = issue.message;
+  if (/^must |^is |^has /.test(msg)) return msg;
+  if (issue.code === 'too_small') return `must have at least ${String(issue.minimum)}${issue.origin === 'array' ? ' item(s)' : ''}`;
+  if (issue.code === 'too_big') return `must be at most ${String(issue.maximum)}`;
+  return msg.charAt(0).toLowerCase() + msg.slice(1);
+}
+
+function structuralProblems(input: unknown, issues: readonly z.core.$ZodIssue[]): Problem[] {
+  return issues.map((issue) => {
+    const value = valueAt(input, issue.path);
+    return { path: formatPath(issue.path), rule: ruleOf(issue, value), value: showValue(value) };
+  });
+}
+
+function checkLength(problems: Problem[], path: string, arr: readonly unknown[] | undefined, n: number): void {
+  if (arr !== undefined && arr.length !== n) {
+    problems.push({ path, rule: `must have one entry per age band (${n})`, value: `${arr.length} entries` });
+  }
+}
+
+/** Rules that tie fields together; run only when the structure is valid. */
+export function crossFieldProblems(s: Scenario): Problem[] {
+  const problems: Problem[] = [];
+  const n = s.ageBands.length;
+  s.ageBands.forEach((band, i) => {
+    if (i > 0 && band.lowerAgeYears <= s.ageBands[i - 1].lowerAgeYears) {
+      problems.push({ path: `ageBands[${i}].lowerAgeYears`, rule: 'must be greater than the band before', value: String(band.lowerAgeYears) });
+    }
+  });
+  checkLength(problems, 'populationPersons', s.populationPersons, n);
+  if (s.populationPersons.every((p) => p === 0)) {
+    problems.push({ path: 'populationPersons', rule: 'must have at least one band with people', value: 'all 0' });
+  }
+  const settingNames = new Set<string>();
+  s.settings.forEach((setting, k) => {
+    if (settingNames.has(setting.name)) {
+      problems.push({ path: `settings[${k}].name`, rule: 'must be unique', value: JSON.stringify(setting.name) });
+    }
+    settingNames.add(setting.name);
+    const m = setting.contactsPerDay;
+    if (m.length !== n) {
+      problems.push({ path: `settings[${k}].contactsPerDay`, rule: `must have ${n} rows (one per age band)`, value: `${m.length} rows` });
+    }
+    m.forEach((row, i) => {
+      if (row.length !== n) {
+        problems.push({ path: `settings[${k}].contactsPerDay[${i}]`, rule: `must have ${n} columns (one per age band)`, value: `${row.length} columns` });
+      }
+    });
+  });
+  checkLength(problems, 'disease.relativeSusceptibility', s.disease.relativeSusceptibility, n);
+  checkLength(problems, 'disease.relativeInfectiousness', s.disease.relativeInfectiousness, n);
+  checkLength(problems, 'severity.infectionFatalityRatio', s.severity.infectionFatalityRatio, n);
+  checkLength(problems, 'initialState.infectedPersons', s.initialState.infectedPersons, n);
+  checkLength(problems, 'initialState.priorImmunityFraction', s.initialState.priorImmunityFraction, n);
+  if (s.initialState.infectedPersons.length === n) {
+    s.initialState.infectedPersons.forEach((x, i) => {
+      const immune = s.initialState.priorImmunityFraction?.[i] ?? 0;
+      const room = (s.populationPersons[i] ?? 0) * (1 - immune);
+      if (x > room + 1e-9) {
+        problems.push({ path: `initialState.infectedPersons[${i}]`, rule: `must not exceed the band's non-immune population (${room})`, value: String(x) });
+      }
+    });
+    if (s.initialState.infectedPersons.every((x) => x === 0)) {
+      problems.push({ path: 'initialState.infectedPersons', rule: 'must seed at least one infection', value: 'all 0' });
+    }
+  }
+  const optionNames = new Set<string>();
+  s.options.forEach((option, o) => {
+    if (optionNames.has(option.name)) {
+      problems.push({ path: `options[${o}].name`, rule: 'must be unique', value: JSON.stringify(option.name) });
+    }
+    optionNames.add(option.name);
+    const sorted = option.phases.map((p, k) => ({ p, k })).sort((a, b) => a.p.fromDay - b.p.fromDay);
+    sorted.forEach(({ p, k }, idx) => {
+      const at = `options[${o}].phases[${k}]`;
+      if (p.toDay <= p.fromDay) {
+        problems.push({ path: `${at}.toDay`, rule: `must be after fromDay (${p.fromDay})`, value: String(p.toDay) });
+      }
+      if (idx > 0) {
+        const prev = sorted[idx - 1];
+        if (p.fromDay < prev.p.toDay) {
+          problems.push({ path: `${at}.fromDay`, rule: `must not overlap phases[${prev.k}] (which runs to day ${prev.p.toDay})`, value: String(p.fromDay) });
+        }
+      }
+      for (const name of Object.keys(p.settingMultipliers)) {
+        if (!settingNames.has(name)) {
+          problems.push({ path: `${at}.settingMultipliers.${name}`, rule: `must name a setting of the scenario (${[...settingNames].join(', ')})`, value: JSON.stringify(name) });
+        }
+      }
+      p.ageFactors.forEach((f, a) => {
+        if (!settingNames.has(f.setting)) {
+          problems.push({ path: `${at}.ageFactors[${a}].setting`, rule: `must name a setting of the scenario (${[...settingNames].join(', ')})`, value: JSON.stringify(f.setting) });
+        }
+        f.bands.forEach((b, bi) => {
+          if (b >= n) problems.push({ path: `${at}.ageFactors[${a}].bands[${bi}]`, rule: `must be a band index below ${n}`, value: String(b) });
+        });
+      });
+    });
+  });
+  if (s.referenceOption !== undefined && !optionNames.has(s.referenceOption)) {
+    problems.push({ path: 'referenceOption', rule: 'must name one of the options', value: JSON.stringify(s.referenceOption) });
+  }
+  return problems;
+}
+
+/** Validates parsed JSON as a scenario, listing every problem. */
+export function validateScenario(input: unknown): ValidationResult {
+  const parsed = scenarioSchema.safeParse(input);
+  if (!parsed.success) return { ok: false, problems: structuralProblems(input, parsed.error.issues) };
+  const problems = crossFieldProblems(parsed.data);
+  return problems.length > 0 ? { ok: false, problems } : { ok: true, scenario: parsed.data };
+}
+
+/** Parses JSON text and validates it; a JSON syntax error is reported as one problem. */
+export function parseScenarioText(text: string): ValidationResult {
+  let json: unknown;
+  try {
+    json = JSON.parse(text.charCodeAt(0) === 0xfeff ? text.slice(1) : text);
+  } catch (err) {
+    return { ok: false, problems: [{ path: '(file)', rule: `must be valid JSON (${(err as Error).message})` }] };
+  }
+  return validateScenario(json);
+}
+
+/** Thrown by engine entry points handed an unvalidated scenario. */
+export class ScenarioError extends Error {
+  constructor(readonly problems: Problem[]) {
+    super(problems.map(formatProblem).join('\n'));
+    this.name = 'ScenarioError';
+  }
+}
