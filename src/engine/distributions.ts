@@ -82,18 +82,31 @@ export function dailyDelayWeights(meanDays: number, shape: number, length: numbe
 }
 
 /**
- * Discrete convolution of a daily series with delay weights, by band:
- * out[d][i] = scale_i * sum_{a <= d} series[a][i] * w[d - a]  (band-major rows of width `bands`).
+ * Discrete convolution of a daily series with delay weights: out[d] = sum_{a <= d} x[a] w[d - a].
+ * Weights below 1e-16 at the tail are skipped.
  */
-export function convolveByBand(series: Float64Array, bands: number, weights: Float64Array, scale: ArrayLike<number>): Float64Array {
-  const days = series.length / bands;
-  const out = new Float64Array(series.length);
+export function convolve(series: Float64Array, weights: Float64Array): Float64Array {
+  const days = series.length;
+  let last = weights.length;
+  while (last > 0 && weights[last - 1] < 1e-16) last--;
+  const out = new Float64Array(days);
   for (let a = 0; a < days; a++) {
-    for (let i = 0; i < bands; i++) {
-      const x = series[a * bands + i] * scale[i];
-      if (x === 0) continue;
-      for (let d = a; d < days; d++) out[d * bands + i] += x * weights[d - a];
-    }
+    const x = series[a];
+    if (x === 0) continue;
+    const end = Math.min(days, a + last);
+    for (let d = a; d < end; d++) out[d] += x * weights[d - a];
+  }
+  return out;
+}
+
+/** Sum over bands of scale_i x series[d][i] for each day d (band-major rows of width `bands`). */
+export function weightedBandSum(series: Float64Array, bands: number, scale: ArrayLike<number>): Float64Array {
+  const days = series.length / bands;
+  const out = new Float64Array(days);
+  for (let d = 0; d < days; d++) {
+    let acc = 0;
+    for (let i = 0; i < bands; i++) acc += series[d * bands + i] * scale[i];
+    out[d] = acc;
   }
   return out;
 }

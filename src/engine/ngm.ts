@@ -41,10 +41,12 @@ export function dominantEigenvalue(flat: Float64Array, n: number): number {
 
 /**
  * Spectral radius of a non-negative matrix by power iteration, warm-started from `vector`
- * (length n, updated in place to the Perron vector). Used for R(t) day by day, where the
- * previous day's vector is an excellent start. Falls back to `dominantEigenvalue` when the
- * iteration does not settle (e.g. a periodic or reducible K).
- *   x_{k+1} = K x_k / |K x_k|_1,   rho ~ |K x_k|_1 / |x_k|_1.
+ * (length n, non-negative; updated in place towards the Perron vector): x_{k+1} = K x_k / |K x_k|_1.
+ * Stops on the Collatz-Wielandt bracket: for x > 0, min_i (Kx)_i / x_i <= rho <= max_i (Kx)_i / x_i
+ * (Horn & Johnson 2013, Matrix Analysis, 2nd ed., Thm 8.1.26), once it is narrower than 1e-7
+ * relative; rows with x_i = 0 (no susceptibles or no susceptibility) have no say. Used for R(t)
+ * day by day, where the previous day's vector is an excellent start. Falls back to
+ * `dominantEigenvalue` (ml-matrix) when the bracket does not close (a periodic or reducible K).
  */
 export function spectralRadius(flat: Float64Array, n: number, vector: Float64Array, scratch: Float64Array): number {
   let sum = 0;
@@ -54,25 +56,26 @@ export function spectralRadius(flat: Float64Array, n: number, vector: Float64Arr
     sum = 1;
   }
   for (let i = 0; i < n; i++) vector[i] /= sum;
-  let previous = -1;
-  for (let iter = 0; iter < 200; iter++) {
+  for (let iter = 0; iter < 300; iter++) {
     let total = 0;
+    let low = Infinity;
+    let high = 0;
     for (let i = 0; i < n; i++) {
       let acc = 0;
       const row = i * n;
       for (let j = 0; j < n; j++) acc += flat[row + j] * vector[j];
       scratch[i] = acc;
       total += acc;
+      if (vector[i] > 0) {
+        const ratio = acc / vector[i];
+        if (ratio < low) low = ratio;
+        if (ratio > high) high = ratio;
+      }
     }
     if (total === 0) return 0;
-    let change = 0;
-    for (let i = 0; i < n; i++) {
-      const v = scratch[i] / total;
-      change += Math.abs(v - vector[i]);
-      vector[i] = v;
-    }
-    if (change < 1e-13 && Math.abs(total - previous) <= 1e-13 * total) return total;
-    previous = total;
+    for (let i = 0; i < n; i++) vector[i] = scratch[i] / total;
+    if (high - low <= 1e-7 * high) return 0.5 * (low + high);
   }
+  vector.fill(1 / n);
   return dominantEigenvalue(flat, n);
 }

@@ -18,7 +18,11 @@ export interface DailySeries {
   prevalence: Float64Array;
   /** New infections during day d, i.e. in [d, d+1) (d = 0..H-1), by band, persons. Length H·n. */
   incidence: Float64Array;
-  /** Deaths during day d (d = 0..H-1), by band: IFR x incidence convolved with the infection-to-death delay. Length H·n. */
+  /**
+   * Deaths during day d (d = 0..H-1), all bands together: sum_i IFR_i x incidence_i convolved with
+   * the infection-to-death delay (the same delay for every band, so the sum is convolved once).
+   * Length H. Deaths by band over the horizon are in `OptionResults.deathsByBand`.
+   */
   deaths: Float64Array;
   /** R(t): dominant eigenvalue of the next-generation matrix with day d's susceptibles and measures (d = 0..H). Length H+1. */
   rt: Float64Array;

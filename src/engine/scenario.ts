@@ -10,10 +10,9 @@ import { z } from 'zod';
 export const SCENARIO_FORMAT = 'mixwise-scenario';
 export const SCENARIO_VERSION = 1;
 
-const finite = z.number().refine(Number.isFinite, { message: 'must be a finite number' });
-const nonNegative = finite.refine((v) => v >= 0, { message: 'must be >= 0' });
-const positive = finite.refine((v) => v > 0, { message: 'must be > 0' });
-const fraction = finite.refine((v) => v >= 0 && v <= 1, { message: 'must be a fraction between 0 and 1' });
+const nonNegative = z.number({ message: 'must be a number' }).min(0, { message: 'must be >= 0' });
+const positive = z.number({ message: 'must be a number' }).gt(0, { message: 'must be > 0' });
+const fraction = z.number({ message: 'must be a number' }).min(0, { message: 'must be a fraction between 0 and 1' }).max(1, { message: 'must be a fraction between 0 and 1' });
 const wholeDay = z.number().int({ message: 'must be a whole number of days' }).min(0, { message: 'must be >= 0' });
 
 /** One age band: a label for display and the lower age bound in years. */

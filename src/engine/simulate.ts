@@ -4,7 +4,7 @@
  * daily state, then derive the outcomes.
  */
 import { integrate, Dopri5Workspace } from './dopri5.ts';
-import { convolveByBand } from './distributions.ts';
+import { convolve, weightedBandSum } from './distributions.ts';
 import { finalSizeByBand } from './finalSize.ts';
 import { doublingTimeDays, growthRateFromR, halvingTimeDays } from './growth.ts';
 import { dominantEigenvalue, nextGenerationMatrixInto, spectralRadius } from './ngm.ts';
@@ -144,7 +144,7 @@ export function simulateOption(p: PreparedScenario, option: PolicyOption): Optio
     susceptible: daily.susceptible,
     prevalence: daily.prevalence,
     incidence,
-    deaths: convolveByBand(incidence, n, p.deathDelayWeights, p.infectionFatalityRatio),
+    deaths: convolve(weightedBandSum(incidence, n, p.infectionFatalityRatio), p.deathDelayWeights),
     rt: reproductionByDay(p, segments, daily.susceptible),
   };
 

@@ -50,9 +50,18 @@ function valueAt(root: unknown, path: readonly PropertyKey[]): unknown {
   return node;
 }
 
+const TYPE_WORDS: Record<string, string> = {
+  number: 'a number',
+  string: 'text',
+  array: 'a list',
+  object: 'an object',
+  boolean: 'true or false',
+};
+
 function ruleOf(issue: z.core.$ZodIssue, value: unknown): string {
   if (issue.code === 'invalid_type') {
-    return value === undefined ? `is required (${issue.expected})` : `must be ${issue.expected}`;
+    const kind = TYPE_WORDS[issue.expected] ?? issue.expected;
+    return value === undefined ? `is required (${kind})` : `must be ${kind}`;
   }
   if (issue.code === 'invalid_value') {
     return `must be ${issue.values.map((v) => JSON.stringify(v)).join(' or ')}`;

@@ -153,7 +153,7 @@ export function parseCaseCountsCsv(text: string): CaseCsvResult {
     else problems.push({ line, column: timeName, rule: isDate ? 'must be a whole day number (the column holds day numbers, not dates)' : 'must be a whole day number', value: timeText });
     const countText = fields[layout.count];
     const rule = countRule(countText);
-    if (rule !== null) problems.push({ line, column: countName, rule, value: countText });
+    if (rule !== null) problems.push(countText === '' ? { line, column: countName, rule } : { line, column: countName, rule, value: countText });
     const band = layout.band === null ? null : fields[layout.band];
     if (band === '') problems.push({ line, column: layout.names[layout.band as number], rule: 'must not be empty' });
     if (time !== null && rule === null && band !== '') parsed.push({ time, count: Number(countText), band, line });

@@ -7,8 +7,8 @@
  *   working weight    w_i = mu_i² / Var(mu_i)   (= mu_i for Poisson, mu_i / (1 + α mu_i) for NB2),
  *   next b solves     (Xᵀ W X) b = Xᵀ W z,
  *
- * started from mu_i = y_i + 0.1 and repeated until the log-likelihood changes by less than 1e-11
- * (relative). A step that lowers the log-likelihood is halved (up to 30 times). The covariance of b
+ * started from mu_i = y_i + 0.1 and repeated until no coefficient changes by more than
+ * 1e-10 (1 + |b_j|). A step that lowers the log-likelihood (beyond rounding) is halved (up to 30 times). The covariance of b
  * is the inverse expected information (Xᵀ W X)^{-1} at the optimum.
  * Units: b per unit of the design columns (slope on day: per day).
  */
@@ -70,14 +70,16 @@ export function fitLogLinkGlm(data: GlmData, family: CountFamily): GlmResult {
     let next = choleskySolve(l, rhs);
     let nextMu = meansOf(data, next);
     let nextLl = family.logLikelihood(data.y, nextMu);
-    for (let halving = 0; b !== null && !(nextLl >= ll) && halving < 30; halving++) {
+    // Halve only a real loss (beyond rounding), so steps near the optimum are never shrunk.
+    for (let halving = 0; b !== null && !(nextLl >= ll - 1e-9 * (Math.abs(ll) + 1)) && halving < 30; halving++) {
       const prev: number[] = b;
       next = next.map((v, j) => 0.5 * (v + prev[j]));
       nextMu = meansOf(data, next);
       nextLl = family.logLikelihood(data.y, nextMu);
     }
     if (!Number.isFinite(nextLl) || next.some((v) => !Number.isFinite(v))) return { ok: false, reason: 'the fit diverged' };
-    const done = b !== null && Math.abs(nextLl - ll) <= 1e-11 * (Math.abs(nextLl) + 0.1);
+    const prev = b;
+    const done = prev !== null && next.every((v, j) => Math.abs(v - prev[j]) <= 1e-10 * (1 + Math.abs(v)));
     b = next;
     mu = nextMu;
     ll = nextLl;

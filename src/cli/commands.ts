@@ -1,0 +1,55 @@
+/**
+ * The two commands: `run` (policy options table) and `check` (validation report).
+ * Each writes through `Output` and returns its exit code; file and usage faults are thrown
+ * as `CliError` and reported by main.
+ */
+import { reciprocityBySetting, runScenario } from '../engine/index.ts';
+import type { Scenario } from '../engine/scenario.ts';
+import { formatProblem, parseScenarioText, type Problem } from '../engine/validation.ts';
+import type { OutputFormat } from './args.ts';
+import { EXIT_CODES, type ExitCode } from './errors.ts';
+import { readTextFile, writeTextFileAtomically } from './files.ts';
+import { formatReport } from './format.ts';
+import { optionsReport } from './options-report.ts';
+import { reciprocityNotes, reciprocityRows } from './reciprocity-notes.ts';
+
+export interface Output {
+  out(text: string): void;
+  err(text: string): void;
+}
+
+type Loaded = { ok: true; scenario: Scenario } | { ok: false; problems: Problem[] };
+
+function loadScenario(file: string): Loaded {
+  return parseScenarioText(readTextFile(file));
+}
+
+export function runCommand(io: Output, file: string, format: OutputFormat, out: string | null): ExitCode {
+  const loaded = loadScenario(file);
+  if (!loaded.ok) {
+    for (const p of loaded.problems) io.err(`mixwise: ${file}: ${formatProblem(p)}\n`);
+    return EXIT_CODES.invalidScenario;
+  }
+  const text = formatReport(optionsReport(runScenario(loaded.scenario)), format);
+  if (out === null) io.out(text);
+  else writeTextFileAtomically(out, text);
+  return EXIT_CODES.ok;
+}
+
+export function checkCommand(io: Output, file: string): ExitCode {
+  const loaded = loadScenario(file);
+  if (!loaded.ok) {
+    for (const p of loaded.problems) io.out(`${file}: ${formatProblem(p)}\n`);
+    const count = loaded.problems.length;
+    io.out(`${file} is not valid: ${count} problem${count === 1 ? '' : 's'}\n`);
+    return EXIT_CODES.invalidScenario;
+  }
+  const s = loaded.scenario;
+  io.out(
+    `${file} is valid: "${s.title}", ${s.ageBands.length} age bands, ${s.settings.length} settings, ` +
+      `${s.options.length} policy options, ${s.horizonDays} days\n`,
+  );
+  const bandLabels = s.ageBands.map((b) => b.label);
+  for (const note of reciprocityNotes(reciprocityRows(reciprocityBySetting(s), bandLabels))) io.out(`${file}: note: ${note}\n`);
+  return EXIT_CODES.ok;
+}

@@ -1,0 +1,49 @@
+/**
+ * Reading a scenario file and writing an output file, with one-line messages on failure.
+ * Output is written atomically: to a temporary file beside the target, then renamed over it,
+ * so a failed or interrupted run never leaves a half-written file (or destroys the old one).
+ */
+import { readFileSync, renameSync, rmSync, writeFileSync } from 'node:fs';
+import { basename, dirname, join } from 'node:path';
+import { CliError, EXIT_CODES } from './errors.ts';
+
+/** Plain words for the file-system error codes a user is likely to meet. */
+function reason(err: unknown): string {
+  const code = (err as NodeJS.ErrnoException | null)?.code;
+  switch (code) {
+    case 'ENOENT':
+      return 'no such file or folder';
+    case 'EACCES':
+    case 'EPERM':
+      return 'permission denied';
+    case 'EISDIR':
+      return 'is a folder, not a file';
+    case 'ENOTDIR':
+      return 'a part of the path is not a folder';
+    case 'ENOSPC':
+      return 'no space left on the device';
+    case 'EROFS':
+      return 'read-only file system';
+    default:
+      return err instanceof Error ? err.message : String(err);
+  }
+}
+
+export function readTextFile(path: string): string {
+  try {
+    return readFileSync(path, 'utf8');
+  } catch (err) {
+    throw new CliError(`cannot read ${path}: ${reason(err)}`, EXIT_CODES.fileError);
+  }
+}
+
+export function writeTextFileAtomically(path: string, text: string): void {
+  const temporary = join(dirname(path), `.${basename(path)}.${process.pid}.${Date.now()}.tmp`);
+  try {
+    writeFileSync(temporary, text, { flag: 'wx' });
+    renameSync(temporary, path);
+  } catch (err) {
+    rmSync(temporary, { force: true });
+    throw new CliError(`cannot write ${path}: ${reason(err)}`, EXIT_CODES.fileError);
+  }
+}

@@ -1,0 +1,30 @@
+/** The text of `mixwise --help`. */
+import { OUTPUT_FORMATS } from './args.ts';
+import { CAUTION } from './caution.ts';
+
+export const HELP_TEXT = `mixwise - compare public-health policy options with an age-structured SEIR model
+
+Usage:
+  mixwise run FILE [--format ${OUTPUT_FORMATS.join('|')}] [--out PATH]
+      Run every policy option of the scenario FILE and print the policy options table
+      (default format: table). --out writes to PATH instead of the screen; an existing
+      file is replaced only once the new one is complete.
+  mixwise check FILE
+      Check the scenario FILE against the format's rules; list every problem with its
+      place in the file.
+  mixwise fit CASES.csv --scenario FILE [--from D] [--to D] [--day-of-week]
+          [--family poisson|negative-binomial] [--measures-ratio X] [--format table|json]
+      Fit the growth rate r to daily case counts (columns date or day, count, optional band)
+      over days D (a date YYYY-MM-DD or a day number) and print r, doubling time and R0 for
+      the scenario's periods, with 95% intervals. --measures-ratio: dominant NGM eigenvalue
+      with the measures in force during the window / without; R0 = R in window / X.
+      A cases file that breaks a rule also exits with code 2.
+  mixwise --help       Show this text.
+  mixwise --version    Show the version.
+
+Exit codes: 0 done, 1 wrong command line, 2 scenario not valid (or not JSON),
+3 a file cannot be read or written, 4 internal fault.
+
+The scenario format is described in docs/scenario.schema.json.
+${CAUTION}
+`;

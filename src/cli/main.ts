@@ -1,0 +1,56 @@
+/**
+ * Entry point of the `mixwise` command line (started by bin/mixwise.mjs).
+ * `main` never throws: every fault becomes one line on stderr and an exit code.
+ */
+import packageJson from '../../package.json' with { type: 'json' };
+import { parseArgs } from './args.ts';
+import { checkCommand, runCommand, type Output } from './commands.ts';
+import { CliError, EXIT_CODES, type ExitCode } from './errors.ts';
+import { fitCommand } from './fit.ts';
+import { HELP_TEXT } from './help.ts';
+
+function execute(argv: readonly string[], io: Output): ExitCode {
+  // `fit` parses its own options (src/cli/fit.ts).
+  if (argv[0] === 'fit') return fitCommand(io, argv.slice(1));
+  const command = parseArgs(argv);
+  switch (command.kind) {
+    case 'help':
+      io.out(HELP_TEXT);
+      return EXIT_CODES.ok;
+    case 'version':
+      io.out(`mixwise ${packageJson.version}\n`);
+      return EXIT_CODES.ok;
+    case 'run':
+      return runCommand(io, command.file, command.format, command.out);
+    case 'check':
+      return checkCommand(io, command.file);
+  }
+}
+
+/** Runs the command line with `argv` (without node and script) and returns the exit code. */
+export function main(argv: readonly string[], io: Output): ExitCode {
+  try {
+    return execute(argv, io);
+  } catch (err) {
+    if (err instanceof CliError) {
+      io.err(`mixwise: ${err.message}\n`);
+      return err.exitCode;
+    }
+    const message = err instanceof Error ? err.message : String(err);
+    io.err(`mixwise: internal error: ${message.split('\n')[0]}\n`);
+    return EXIT_CODES.internal;
+  }
+}
+
+/** The process's own streams; a closed pipe (e.g. `mixwise run x | head`) ends quietly. */
+export const processOutput: Output = {
+  out: (text) => void process.stdout.write(text),
+  err: (text) => void process.stderr.write(text),
+};
+
+export function runProcess(): void {
+  process.stdout.on('error', (err: NodeJS.ErrnoException) => {
+    if (err.code === 'EPIPE') process.exit(process.exitCode ?? 0);
+  });
+  process.exitCode = main(process.argv.slice(2), processOutput);
+}

@@ -1,0 +1,74 @@
+/**
+ * The policy options table as data: the engine's `ScenarioResults` reduced to the numbers
+ * the command line prints. This is the `--format json` output; the table, Markdown and CSV
+ * formats render the same object. Nothing here computes a model quantity.
+ *
+ * Units: rates per day, times in days, prevalence and attack rates as fractions 0-1,
+ * infections and deaths in persons.
+ */
+import type { ScenarioResults } from '../engine/results.ts';
+import { CAUTION } from './caution.ts';
+import { reciprocityRows, type ReciprocityRow } from './reciprocity-notes.ts';
+
+export interface OptionRow {
+  name: string;
+  /** NGM dominant eigenvalue on day 0 under the option's measures. */
+  rStart: number;
+  growthRatePerDay: number;
+  /** null when not growing. */
+  doublingTimeDays: number | null;
+  /** null when not shrinking. */
+  halvingTimeDays: number | null;
+  peakDay: number;
+  /** Fraction of the population infected (E+I) on the peak day. */
+  peakPrevalence: number;
+  peakInfectedPersons: number;
+  infections: number;
+  infectionsByBand: number[];
+  attackRate: number;
+  attackRateByBand: number[];
+  deaths: number;
+  deathsByBand: number[];
+  /** Multi-group final-size attack rate, when the option's measures are constant; else null. */
+  finalSizeAttackRate: number | null;
+}
+
+export interface OptionsReport {
+  title: string;
+  ageBands: string[];
+  r0: number;
+  horizonDays: number;
+  referenceOption: string;
+  options: OptionRow[];
+  reciprocity: ReciprocityRow[];
+  caution: string;
+}
+
+export function optionsReport(results: ScenarioResults): OptionsReport {
+  return {
+    title: results.title,
+    ageBands: results.ageBands,
+    r0: results.r0,
+    horizonDays: results.options[0]?.series.days ?? 0,
+    referenceOption: results.options[results.referenceIndex]?.name ?? '',
+    options: results.options.map((o) => ({
+      name: o.name,
+      rStart: o.rStart,
+      growthRatePerDay: o.growthRatePerDay,
+      doublingTimeDays: o.doublingTimeDays,
+      halvingTimeDays: o.halvingTimeDays,
+      peakDay: o.peakDay,
+      peakPrevalence: o.peakPrevalence,
+      peakInfectedPersons: o.peakInfectedPersons,
+      infections: o.infections,
+      infectionsByBand: o.infectionsByBand,
+      attackRate: o.attackRate,
+      attackRateByBand: o.attackRateByBand,
+      deaths: o.deaths,
+      deathsByBand: o.deathsByBand,
+      finalSizeAttackRate: o.finalSize?.attackRate ?? null,
+    })),
+    reciprocity: reciprocityRows(results.reciprocity, results.ageBands),
+    caution: CAUTION,
+  };
+}
