@@ -17,3 +17,4 @@ export { prepareScenario, periodsOf, type PreparedScenario } from './prepare.ts'
 export { simulateOption } from './simulate.ts';
 export { finalSizeByBand } from './finalSize.ts';
 export { nextGenerationMatrix, dominantEigenvalue } from './ngm.ts';
+export * from './healthcare/index.ts';

@@ -9,6 +9,7 @@
  */
 import { dailyDelayWeights } from './distributions.ts';
 import { type Periods, reproductionNumberFromGrowthRate } from './growth.ts';
+import { type PreparedHealthcare, prepareHealthcare } from './healthcare/prepare.ts';
 import { dominantEigenvalue, nextGenerationMatrixInto } from './ngm.ts';
 import type { Scenario } from './scenario.ts';
 import { type StateLayout, stateLayout } from './seir.ts';
@@ -33,6 +34,8 @@ export interface PreparedScenario {
   infectionFatalityRatio: Float64Array;
   /** Daily infection-to-death delay weights over the horizon. */
   deathDelayWeights: Float64Array;
+  /** Hospital ratios and kernels; null when the scenario has no `healthcare` section. */
+  healthcare: PreparedHealthcare | null;
 }
 
 export function periodsOf(s: Scenario): Periods {
@@ -95,5 +98,6 @@ export function prepareScenario(s: Scenario): PreparedScenario {
     seeds: Float64Array.from(s.initialState.infectedPersons),
     infectionFatalityRatio: Float64Array.from(s.severity.infectionFatalityRatio),
     deathDelayWeights: dailyDelayWeights(s.severity.deathDelay.meanDays, s.severity.deathDelay.shape, s.horizonDays),
+    healthcare: prepareHealthcare(s),
   };
 }

@@ -60,6 +60,63 @@ export interface OptionResults {
    */
   finalSize: { attackRate: number; attackRateByBand: number[] } | null;
   series: DailySeries;
+  /** Hospital and ICU demand against capacity; null when the scenario has no `healthcare` section. */
+  healthcare: HealthcareOutcomes | null;
+}
+
+/**
+ * Daily hospital series of one option, all bands together (d = 0..H-1, length H each).
+ * Occupancy is the mean number of beds in use during day d (persons).
+ */
+export interface HealthcareSeries {
+  /** Hospital admissions on day d, ICU or not, persons. */
+  admissions: Float64Array;
+  /** Admissions on day d of patients who will need ICU, persons. */
+  icuAdmissions: Float64Array;
+  /** Ward beds in use (patients not needing ICU, and ICU patients' days outside ICU). */
+  wardOccupancy: Float64Array;
+  /** ICU beds in use. */
+  icuOccupancy: Float64Array;
+}
+
+/** Beds in use against beds available, over the horizon. */
+export interface BedDemand {
+  capacityBeds: number;
+  /** All beds at full surge; null when no surge level is given. */
+  surgeCapacityBeds: number | null;
+  /** Most beds in use on one day (mean over that day), persons. */
+  peakOccupancy: number;
+  /** Day (0..H-1) of the peak; the first such day if it repeats. */
+  peakDay: number;
+  /** Days on which occupancy exceeds capacity. */
+  daysOverCapacity: number;
+  /** sum over days of max(0, occupancy - capacity), patient-days. */
+  patientDaysOverCapacity: number;
+  /** First day occupancy exceeds capacity; null if it never does. */
+  firstDayOverCapacity: number | null;
+  /** As `daysOverCapacity` against the surge level; null when no surge level is given. */
+  daysOverSurgeCapacity: number | null;
+  /** As `patientDaysOverCapacity` against the surge level; null when no surge level is given. */
+  patientDaysOverSurgeCapacity: number | null;
+}
+
+/**
+ * Hospital and ICU demand of one option (model and sources: src/engine/healthcare).
+ * Admission totals count admissions on days 0..H-1: the few due after the horizon (from
+ * infections near its end) are left out, unlike `deaths`, which counts eventual deaths.
+ */
+export interface HealthcareOutcomes {
+  /** Hospital admissions (ICU or not) within the horizon, persons. */
+  admissions: number;
+  admissionsByBand: number[];
+  /** Admissions of patients who never need ICU, persons. */
+  wardOnlyAdmissions: number;
+  /** Admissions of patients who need ICU, persons. */
+  icuAdmissions: number;
+  icuAdmissionsByBand: number[];
+  ward: BedDemand;
+  icu: BedDemand;
+  series: HealthcareSeries;
 }
 
 /** The largest reciprocity imbalance of one setting's matrix (see contacts.ts). */

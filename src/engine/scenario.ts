@@ -6,6 +6,7 @@
  * path, the rule and the value (see `validation.ts`).
  */
 import { z } from 'zod';
+import { DEFAULT_ADMISSION_DELAY, DEFAULT_ICU_PATIENT_WARD_STAY, DEFAULT_ICU_STAY, DEFAULT_WARD_STAY } from './healthcare/defaults.ts';
 
 export const SCENARIO_FORMAT = 'mixwise-scenario';
 export const SCENARIO_VERSION = 1;
@@ -102,6 +103,40 @@ export const policyOptionSchema = z.object({
   phases: z.array(phaseSchema).default([]),
 });
 
+/** Beds available. Surge levels, when given, count all beds at full surge (not extra beds). */
+export const bedCapacitySchema = z.object({
+  wardBeds: nonNegative,
+  icuBeds: nonNegative,
+  wardSurgeBeds: nonNegative.optional(),
+  icuSurgeBeds: nonNegative.optional(),
+});
+
+/**
+ * Hospital and ICU demand (see src/engine/healthcare). Ratios by band default to Ferguson et al.
+ * 2020 (Imperial College Report 9, Table 1) turned into per-infection values; delays default to
+ * the values cited in src/engine/healthcare/defaults.ts. A `...ByBand` list, when given, replaces
+ * the common delay band by band.
+ */
+export const healthcareSchema = z.object({
+  /** IHR by band: fraction of infections admitted to hospital, 0-1. */
+  infectionHospitalisationRatio: z.array(fraction).optional(),
+  /** Share of admissions that need ICU, by band, 0-1. */
+  icuShareOfAdmissions: z.array(fraction).optional(),
+  /** Infection to hospital admission. */
+  admissionDelay: delaySchema.default(() => ({ ...DEFAULT_ADMISSION_DELAY })),
+  /** Length of stay in a ward of patients who do not need ICU. */
+  wardStay: delaySchema.default(() => ({ ...DEFAULT_WARD_STAY })),
+  /** Length of stay in ICU. */
+  icuStay: delaySchema.default(() => ({ ...DEFAULT_ICU_STAY })),
+  /** Days ICU patients spend in a ward outside ICU (counted in ward beds from admission). */
+  icuPatientWardStay: delaySchema.default(() => ({ ...DEFAULT_ICU_PATIENT_WARD_STAY })),
+  admissionDelayByBand: z.array(delaySchema).optional(),
+  wardStayByBand: z.array(delaySchema).optional(),
+  icuStayByBand: z.array(delaySchema).optional(),
+  capacity: bedCapacitySchema,
+  source: z.string().default(''),
+});
+
 export const scenarioSchema = z.object({
   format: z.literal(SCENARIO_FORMAT),
   version: z.literal(SCENARIO_VERSION),
@@ -117,6 +152,8 @@ export const scenarioSchema = z.object({
   /** Name of the option others are compared with; the first option if absent. */
   referenceOption: z.string().optional(),
   options: z.array(policyOptionSchema).min(1, { message: 'must list at least one policy option' }),
+  /** Optional: hospital and ICU demand against capacity. */
+  healthcare: healthcareSchema.optional(),
 });
 
 /** A scenario as written in a file (defaults may be missing). */
@@ -128,3 +165,4 @@ export type PolicyOption = z.output<typeof policyOptionSchema>;
 export type Phase = z.output<typeof phaseSchema>;
 export type AgeFactor = z.output<typeof ageFactorSchema>;
 export type Delay = z.output<typeof delaySchema>;
+export type Healthcare = z.output<typeof healthcareSchema>;

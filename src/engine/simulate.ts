@@ -7,6 +7,7 @@ import { integrate, Dopri5Workspace } from './dopri5.ts';
 import { convolve, weightedBandSum } from './distributions.ts';
 import { finalSizeByBand } from './finalSize.ts';
 import { doublingTimeDays, growthRateFromR, halvingTimeDays } from './growth.ts';
+import { healthcareDemand } from './healthcare/demand.ts';
 import { dominantEigenvalue, nextGenerationMatrixInto, spectralRadius } from './ngm.ts';
 import { changeDays, measuresConstant, phaseAt } from './phases.ts';
 import type { PreparedScenario } from './prepare.ts';
@@ -172,5 +173,6 @@ export function simulateOption(p: PreparedScenario, option: PolicyOption): Optio
     deathsByBand,
     finalSize,
     series,
+    healthcare: p.healthcare === null ? null : healthcareDemand(p.healthcare, incidence),
   };
 }

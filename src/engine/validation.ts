@@ -6,6 +6,7 @@
  * `populationPersons[3] must be >= 0, got -12`. A user's mistake is never a stack trace.
  */
 import type { z } from 'zod';
+import { healthcareProblems } from './healthcare/validation.ts';
 import { scenarioSchema, type Scenario } from './scenario.ts';
 
 export interface Problem {
@@ -170,6 +171,7 @@ export function crossFieldProblems(s: Scenario): Problem[] {
   if (s.referenceOption !== undefined && !optionNames.has(s.referenceOption)) {
     problems.push({ path: 'referenceOption', rule: 'must name one of the options', value: JSON.stringify(s.referenceOption) });
   }
+  problems.push(...healthcareProblems(s));
   return problems;
 }
 

@@ -23,7 +23,7 @@ describe('mixwise check', () => {
     const lines = stdout.trimEnd().split('\n');
     expect(lines).toContain(`${file}: populationPersons[3] must be >= 0, got -12`);
     expect(lines).toContain(`${file}: horizonDays must be >= 1, got 0`);
-    expect(lines).toContain(`${file}: title is required (string)`);
+    expect(lines).toContain(`${file}: title is required (text)`);
     expect(lines.at(-1)).toBe(`${file} is not valid: 3 problems`);
   });
 
