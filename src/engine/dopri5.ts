@@ -18,7 +18,7 @@ export interface Tolerances {
   maxStep: number;
 }
 
-export const DEFAULT_TOLERANCES: Tolerances = { relative: 1e-6, absolute: 1e-6, maxStep: 10 };
+export const DEFAULT_TOLERANCES: Tolerances = { relative: 1e-5, absolute: 1e-6, maxStep: 10 };
 
 const C2 = 1 / 5, C3 = 3 / 10, C4 = 4 / 5, C5 = 8 / 9;
 const A21 = 1 / 5;

@@ -43,12 +43,12 @@ export function dominantEigenvalue(flat: Float64Array, n: number): number {
  * Spectral radius of a non-negative matrix by power iteration, warm-started from `vector`
  * (length n, non-negative; updated in place towards the Perron vector): x_{k+1} = K x_k / |K x_k|_1.
  * Stops on the Collatz-Wielandt bracket: for x > 0, min_i (Kx)_i / x_i <= rho <= max_i (Kx)_i / x_i
- * (Horn & Johnson 2013, Matrix Analysis, 2nd ed., Thm 8.1.26), once it is narrower than 1e-7
- * relative; rows with x_i = 0 (no susceptibles or no susceptibility) have no say. Used for R(t)
+ * (Horn & Johnson 2013, Matrix Analysis, 2nd ed., Thm 8.1.26), once it is narrower than
+ * `relativeTolerance` (default 1e-7, ample for a daily R(t)); rows with x_i = 0 (no susceptibles or no susceptibility) have no say. Used for R(t)
  * day by day, where the previous day's vector is an excellent start. Falls back to
  * `dominantEigenvalue` (ml-matrix) when the bracket does not close (a periodic or reducible K).
  */
-export function spectralRadius(flat: Float64Array, n: number, vector: Float64Array, scratch: Float64Array): number {
+export function spectralRadius(flat: Float64Array, n: number, vector: Float64Array, scratch: Float64Array, relativeTolerance = 1e-7): number {
   let sum = 0;
   for (let i = 0; i < n; i++) sum += vector[i];
   if (!(sum > 0)) {
@@ -74,7 +74,7 @@ export function spectralRadius(flat: Float64Array, n: number, vector: Float64Arr
     }
     if (total === 0) return 0;
     for (let i = 0; i < n; i++) vector[i] = scratch[i] / total;
-    if (high - low <= 1e-7 * high) return 0.5 * (low + high);
+    if (high - low <= relativeTolerance * high) return 0.5 * (low + high);
   }
   vector.fill(1 / n);
   return dominantEigenvalue(flat, n);

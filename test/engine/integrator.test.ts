@@ -61,8 +61,8 @@ describe('the demo scenario against odex', () => {
       for (let i = 0; i < n; i++) {
         const sRef = y[L.susceptible + i];
         const infectedRef = y[L.latent + i] + y[L.infectious + i];
-        expect(Math.abs(option.series.susceptible[day * n + i] - sRef)).toBeLessThan(1e-4 * s.populationPersons[i]);
-        expect(Math.abs(option.series.prevalence[day * n + i] - infectedRef)).toBeLessThan(1e-4 * s.populationPersons[i]);
+        expect(Math.abs(option.series.susceptible[day * n + i] - sRef)).toBeLessThan(1e-5 * s.populationPersons[i]);
+        expect(Math.abs(option.series.prevalence[day * n + i] - infectedRef)).toBeLessThan(1e-5 * s.populationPersons[i]);
       }
     }
   });
