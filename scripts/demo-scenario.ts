@@ -205,6 +205,13 @@ export function buildDemoScenario(): ScenarioInput {
         ],
       },
     ],
+    healthcare: {
+      capacity: { wardBeds: 3200, icuBeds: 110, wardSurgeBeds: 3800, icuSurgeBeds: 200 },
+      source:
+        'Bed numbers are invented for the fictional region. Hospitalisation ratios, ICU shares, delays and stays are ' +
+        'the program defaults (src/engine/healthcare/defaults.ts: Ferguson et al. 2020, Imperial College Report 9, ' +
+        'Table 1, per symptomatic case x 0.8 symptomatic share from Buitrago-Garcia et al. 2020, PLoS Med 17:e1003346).',
+    },
   };
 }
 

@@ -31,6 +31,13 @@ export interface OptionRow {
   deathsByBand: number[];
   /** Multi-group final-size attack rate, when the option's measures are constant; else null. */
   finalSizeAttackRate: number | null;
+  /** Hospital demand (persons, days); null when the scenario has no `healthcare` section. */
+  peakWardOccupancy: number | null;
+  peakIcuOccupancy: number | null;
+  peakIcuDay: number | null;
+  daysIcuOverCapacity: number | null;
+  /** Hospital admissions (ICU or not) within the horizon. */
+  admissions: number | null;
 }
 
 export interface OptionsReport {
@@ -67,6 +74,11 @@ export function optionsReport(results: ScenarioResults): OptionsReport {
       deaths: o.deaths,
       deathsByBand: o.deathsByBand,
       finalSizeAttackRate: o.finalSize?.attackRate ?? null,
+      peakWardOccupancy: o.healthcare?.ward.peakOccupancy ?? null,
+      peakIcuOccupancy: o.healthcare?.icu.peakOccupancy ?? null,
+      peakIcuDay: o.healthcare?.icu.peakDay ?? null,
+      daysIcuOverCapacity: o.healthcare?.icu.daysOverCapacity ?? null,
+      admissions: o.healthcare?.admissions ?? null,
     })),
     reciprocity: reciprocityRows(results.reciprocity, results.ageBands),
     caution: CAUTION,

@@ -7,6 +7,7 @@ import { seirRightHandSide } from '../../src/engine/seir.ts';
 import { transmissionMatrixInto } from '../../src/engine/transmission.ts';
 import { demoScenario } from '../helpers/demo.ts';
 import { valid } from '../helpers/scenarios.ts';
+import type { ScenarioInput } from '../../src/engine/scenario.ts';
 
 describe('population conservation', () => {
   it('S + E + I + R stays the 16-band population to 1e-9 relative at every day', () => {
@@ -77,7 +78,7 @@ describe('determinism and sanity', () => {
 describe('measures', () => {
   const s = demoScenario();
   const base = s.options[0];
-  const withPhase = (phase: object) => valid({ ...s, options: [base, { name: 'measure', phases: [phase] }] });
+  const withPhase = (phase: ScenarioInput['options'][number]['phases'] extends (infer P)[] | undefined ? P : never) => valid({ ...s, options: [base, { name: 'measure', phases: [phase] }] });
 
   it('closing every setting from day 0 gives R at start 0 and stops spread', () => {
     const all = Object.fromEntries(s.settings.map((st) => [st.name, 0]));

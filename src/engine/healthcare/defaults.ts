@@ -67,9 +67,3 @@ export function defaultIcuShareOfAdmissions(s: Pick<Scenario, 'ageBands'>): numb
   return s.ageBands.map((b) => REPORT9_CRITICAL_CARE_PERCENT_OF_HOSPITALISED[report9BandOf(b.lowerAgeYears)] / 100);
 }
 
-/** One line naming the sources of the defaults, for reports. */
-export const DEFAULTS_SOURCE =
-  'Defaults: hospitalisation and critical-care shares by age from Ferguson NM et al. 2020, Imperial College ' +
-  'COVID-19 Response Team Report 9, Table 1 (per symptomatic case), times a symptomatic share of 0.8 ' +
-  '(Buitrago-Garcia D et al. 2020, PLoS Med 17:e1003346); stays of 8 days (ward), 10 days (ICU) and 6 ward days ' +
-  'for ICU patients from Report 9; stay shape 2 from Rees EM et al. 2020, BMC Med 18:270.';

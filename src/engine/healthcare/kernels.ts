@@ -47,6 +47,8 @@ export function admissionKernel(delay: Delay, days: number): Float64Array {
 export function expectedTimeInBedBy(x: number, stay: Delay): number {
   const { meanDays: mean, shape } = stay;
   if (mean === 0 || x <= 0) return 0;
+  // A mean so small that x / mean overflows: the whole stay lies before x.
+  if (!Number.isFinite((shape * x) / mean)) return mean;
   return x * (1 - gammaCdf(x, mean, shape)) + mean * gammaCdf(x, (mean * (shape + 1)) / shape, shape + 1);
 }
 
