@@ -149,7 +149,7 @@ export function buildDemoScenario(): ScenarioInput {
   return {
     format: 'mixwise-scenario',
     version: 1,
-    title: 'Tessarine Valley (fictional): first wave without vaccines',
+    title: 'Tessarine Valley (fictional): options for the coming wave',
     notes:
       'Tessarine Valley is a fictional region. Its population and all contact matrices are invented for demonstration ' +
       '(built by scripts/make-demo.ts from a symmetric matrix of total contacts, so they are exactly reciprocal; ' +
@@ -203,6 +203,26 @@ export function buildDemoScenario(): ScenarioInput {
             ],
           },
         ],
+      },
+      {
+        name: 'Vaccinate oldest first',
+        description: 'From day 30, 6,000 doses a day (12,000 from day 90), oldest band first; no contact measures.',
+        phases: [],
+        vaccinationCampaign: 'Autumn campaign',
+      },
+    ],
+    vaccinationCampaigns: [
+      {
+        name: 'Autumn campaign',
+        schedule: [{ fromDay: 30, dosesPerDay: 6000 }, { fromDay: 90, dosesPerDay: 12000 }],
+        uptakeCeiling: LOWER_AGES.map((lower) => (lower < 15 ? 0 : lower < 60 ? 0.7 : 0.85)),
+        delayToProtectionDays: 14,
+        efficacyAgainstInfection: 0.5,
+        efficacyAgainstDeath: 0.85,
+        efficacyAgainstAdmission: 0.8,
+        protection: 'leaky',
+        priority: [[15], [14], [13], [12], [11], [10], [9], [8], [7], [6], [5], [4], [3]],
+        source: 'Supply, uptake and efficacy are illustrative values for demonstration, not estimates for any vaccine.',
       },
     ],
     healthcare: {

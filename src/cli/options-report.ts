@@ -38,6 +38,15 @@ export interface OptionRow {
   daysIcuOverCapacity: number | null;
   /** Hospital admissions (ICU or not) within the horizon. */
   admissions: number | null;
+  /** Vaccine doses given within the horizon by band (zeros without a campaign). */
+  dosesByBand: number[];
+  /** Against the reference option (reference minus this option); null when not compared. */
+  infectionsAverted: number | null;
+  deathsAverted: number | null;
+  /** Deaths averted per 1,000 doses of this option's campaign; null without doses. */
+  deathsAvertedPer1000Doses: number | null;
+  /** Share of doses given to people already infected or immune, fraction; null without a campaign. */
+  dosesToNonSusceptibleShare: number | null;
 }
 
 export interface OptionsReport {
@@ -79,6 +88,11 @@ export function optionsReport(results: ScenarioResults): OptionsReport {
       peakIcuDay: o.healthcare?.icu.peakDay ?? null,
       daysIcuOverCapacity: o.healthcare?.icu.daysOverCapacity ?? null,
       admissions: o.healthcare?.admissions ?? null,
+      dosesByBand: o.vaccination?.dosesByBand ?? results.ageBands.map(() => 0),
+      infectionsAverted: o.comparison?.infectionsAverted ?? null,
+      deathsAverted: o.comparison?.deathsAverted ?? null,
+      deathsAvertedPer1000Doses: o.comparison?.deathsAvertedPer1000Doses ?? null,
+      dosesToNonSusceptibleShare: o.vaccination?.dosesToNonSusceptibleShare ?? null,
     })),
     reciprocity: reciprocityRows(results.reciprocity, results.ageBands),
     caution: CAUTION,

@@ -18,3 +18,4 @@ export { simulateOption } from './simulate.ts';
 export { finalSizeByBand } from './finalSize.ts';
 export { nextGenerationMatrix, dominantEigenvalue } from './ngm.ts';
 export * from './healthcare/index.ts';
+export * from './vaccination/index.ts';

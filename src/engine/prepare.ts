@@ -10,6 +10,7 @@
 import { dailyDelayWeights } from './distributions.ts';
 import { type Periods, reproductionNumberFromGrowthRate } from './growth.ts';
 import { type PreparedHealthcare, prepareHealthcare } from './healthcare/prepare.ts';
+import { type PreparedCampaign, prepareCampaign } from './vaccination/prepare.ts';
 import { dominantEigenvalue, nextGenerationMatrixInto } from './ngm.ts';
 import type { Scenario } from './scenario.ts';
 import { type StateLayout, stateLayout } from './seir.ts';
@@ -36,6 +37,8 @@ export interface PreparedScenario {
   deathDelayWeights: Float64Array;
   /** Hospital ratios and kernels; null when the scenario has no `healthcare` section. */
   healthcare: PreparedHealthcare | null;
+  /** Vaccination campaigns by name, with their dose plans. */
+  campaigns: Map<string, PreparedCampaign>;
 }
 
 export function periodsOf(s: Scenario): Periods {
@@ -48,7 +51,10 @@ export function periodsOf(s: Scenario): Periods {
   };
 }
 
-/** Day-0 state: S = N (1 - immune) - seeds, R = N immune, seeds in the first latent or infectious stage. */
+/**
+ * Day-0 state: S = N (1 - immune) - seeds, R = N immune, seeds in the first latent or infectious
+ * stage; with vaccination blocks, everyone unvaccinated (U = N).
+ */
 export function initialStateOf(s: Scenario, L: StateLayout): Float64Array {
   const y = new Float64Array(L.size);
   const init = s.initialState;
@@ -59,6 +65,7 @@ export function initialStateOf(s: Scenario, L: StateLayout): Float64Array {
     y[L.susceptible + i] = Math.max(0, n - immune - seed);
     y[L.recovered + i] = immune;
     y[(init.infectedCompartment === 'latent' ? L.latent : L.infectious) + i] = seed;
+    if (L.unvaccinated >= 0) y[L.unvaccinated + i] = n;
   }
   return y;
 }
@@ -99,5 +106,6 @@ export function prepareScenario(s: Scenario): PreparedScenario {
     infectionFatalityRatio: Float64Array.from(s.severity.infectionFatalityRatio),
     deathDelayWeights: dailyDelayWeights(s.severity.deathDelay.meanDays, s.severity.deathDelay.shape, s.horizonDays),
     healthcare: prepareHealthcare(s),
+    campaigns: new Map(s.vaccinationCampaigns.map((c) => [c.name, prepareCampaign(c, bp.population, s.horizonDays)])),
   };
 }

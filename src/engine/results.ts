@@ -26,6 +26,8 @@ export interface DailySeries {
   deaths: Float64Array;
   /** R(t): dominant eigenvalue of the next-generation matrix with day d's susceptibles and measures (d = 0..H). Length H+1. */
   rt: Float64Array;
+  /** Vaccine doses given during day d (d = 0..H-1), by band (zeros without a campaign). Length H·n. */
+  doses: Float64Array;
 }
 
 /** Results of one policy option over the horizon. */
@@ -62,6 +64,10 @@ export interface OptionResults {
   series: DailySeries;
   /** Hospital and ICU demand against capacity; null when the scenario has no `healthcare` section. */
   healthcare: HealthcareOutcomes | null;
+  /** The option's vaccination campaign; null when it has none. */
+  vaccination: VaccinationOutcomes | null;
+  /** Against the reference option (filled when the reference is run with it; null otherwise). */
+  comparison: Comparison | null;
 }
 
 /**
@@ -139,4 +145,27 @@ export interface ScenarioResults {
   referenceIndex: number;
   options: OptionResults[];
   reciprocity: ReciprocityCheck[];
+}
+
+/** Doses of one option's campaign within the horizon. */
+export interface VaccinationOutcomes {
+  campaign: string;
+  /** Doses given, persons (one dose each). */
+  doses: number;
+  dosesByBand: number[];
+  /** Share of doses given to people already infected or immune (latent, infectious or recovered), fraction. */
+  dosesToNonSusceptibleShare: number;
+}
+
+/** What an option changes against the reference option (positive = fewer than the reference). */
+export interface Comparison {
+  reference: string;
+  infectionsAverted: number;
+  deathsAverted: number;
+  /** Null when the scenario has no hospital section. */
+  admissionsAverted: number | null;
+  /** Averted per 1,000 doses of this option's campaign; null without doses. */
+  infectionsAvertedPer1000Doses: number | null;
+  deathsAvertedPer1000Doses: number | null;
+  admissionsAvertedPer1000Doses: number | null;
 }

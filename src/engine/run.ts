@@ -4,7 +4,7 @@
  */
 import { reciprocityCheck } from './contacts.ts';
 import { prepareScenario } from './prepare.ts';
-import type { ReciprocityCheck, ScenarioResults } from './results.ts';
+import type { Comparison, OptionResults, ReciprocityCheck, ScenarioResults } from './results.ts';
 import type { Scenario } from './scenario.ts';
 import { simulateOption } from './simulate.ts';
 
@@ -19,16 +19,41 @@ export function reciprocityBySetting(s: Scenario): ReciprocityCheck[] {
   return s.settings.map((setting) => ({ setting: setting.name, ...reciprocityCheck(setting.contactsPerDay, s.populationPersons) }));
 }
 
-/** Runs the options at `optionIndices` (all by default). */
+/** Averted = reference minus option; per 1,000 of the option's doses when it gives any. */
+export function compareWithReference(option: OptionResults, reference: OptionResults): Comparison {
+  const doses = option.vaccination?.doses ?? 0;
+  const per1000 = (averted: number | null) => (doses > 0 && averted !== null ? (1000 * averted) / doses : null);
+  const infectionsAverted = reference.infections - option.infections;
+  const deathsAverted = reference.deaths - option.deaths;
+  const admissionsAverted = option.healthcare !== null && reference.healthcare !== null ? reference.healthcare.admissions - option.healthcare.admissions : null;
+  return {
+    reference: reference.name,
+    infectionsAverted,
+    deathsAverted,
+    admissionsAverted,
+    infectionsAvertedPer1000Doses: per1000(infectionsAverted),
+    deathsAvertedPer1000Doses: per1000(deathsAverted),
+    admissionsAvertedPer1000Doses: per1000(admissionsAverted),
+  };
+}
+
+/**
+ * Runs the options at `optionIndices` (all by default). Comparisons with the reference option are
+ * filled when the reference is among them.
+ */
 export function runOptions(s: Scenario, optionIndices: readonly number[] = s.options.map((_, k) => k)): ScenarioResults {
   const prepared = prepareScenario(s);
+  const referenceIndex = referenceIndexOf(s);
+  const options = optionIndices.map((k) => simulateOption(prepared, s.options[k]));
+  const reference = options[optionIndices.indexOf(referenceIndex)];
+  if (reference !== undefined) for (const o of options) o.comparison = compareWithReference(o, reference);
   return {
     title: s.title,
     ageBands: s.ageBands.map((b) => b.label),
     r0: prepared.r0,
     beta: prepared.beta,
-    referenceIndex: referenceIndexOf(s),
-    options: optionIndices.map((k) => simulateOption(prepared, s.options[k])),
+    referenceIndex,
+    options,
     reciprocity: reciprocityBySetting(s),
   };
 }

@@ -6,6 +6,7 @@
  * path, the rule and the value (see `validation.ts`).
  */
 import { z } from 'zod';
+import { campaignSchema } from './vaccination/schema.ts';
 import { DEFAULT_ADMISSION_DELAY, DEFAULT_ICU_PATIENT_WARD_STAY, DEFAULT_ICU_STAY, DEFAULT_WARD_STAY } from './healthcare/defaults.ts';
 
 export const SCENARIO_FORMAT = 'mixwise-scenario';
@@ -101,6 +102,8 @@ export const policyOptionSchema = z.object({
   name: z.string().min(1, { message: 'must not be empty' }),
   description: z.string().default(''),
   phases: z.array(phaseSchema).default([]),
+  /** Name of the vaccination campaign this option runs (see `vaccinationCampaigns`); none if absent. */
+  vaccinationCampaign: z.string().optional(),
 });
 
 /** Beds available. Surge levels, when given, count all beds at full surge (not extra beds). */
@@ -154,6 +157,8 @@ export const scenarioSchema = z.object({
   options: z.array(policyOptionSchema).min(1, { message: 'must list at least one policy option' }),
   /** Optional: hospital and ICU demand against capacity. */
   healthcare: healthcareSchema.optional(),
+  /** Vaccination campaigns that options can refer to by name. */
+  vaccinationCampaigns: z.array(campaignSchema).default([]),
 });
 
 /** A scenario as written in a file (defaults may be missing). */
@@ -166,3 +171,4 @@ export type Phase = z.output<typeof phaseSchema>;
 export type AgeFactor = z.output<typeof ageFactorSchema>;
 export type Delay = z.output<typeof delaySchema>;
 export type Healthcare = z.output<typeof healthcareSchema>;
+export type { Campaign, CampaignInput } from './vaccination/schema.ts';

@@ -12,11 +12,27 @@
  *   dR_i/dt   = a_I IkI_i
  *   dX_i/dt   = lambda_i S_i               cumulative infections (a counter, not a state of people)
  *
- * Persons in S + E + I + R are conserved: the flows cancel exactly.
+ * With a vaccination campaign (doses v_i per day, efficacy e against infection, mean delay to
+ * protection delta), three more compartments of people and three counters join:
+ *   W  vaccinated, not yet protected (susceptible as usual)
+ *   P  vaccinated and protected: leaky, risk cut to (1 - e); all-or-nothing, the failures (risk 1)
+ *   V  fully immune by vaccine (all-or-nothing only)
+ *   U  counter of unvaccinated persons; Xp counter of infections in P; Q counter of doses given to
+ *      people who were no longer susceptible (latent, infectious or recovered).
+ * Doses reach the unvaccinated whatever their infection history, so a share S_i / U_i of them
+ * lands on susceptibles:
+ *   dS_i/dt = -lambda_i S_i - v_i S_i / U_i
+ *   dW_i/dt = v_i S_i / U_i - lambda_i W_i - W_i / delta
+ *   leaky:  dP_i/dt = W_i / delta - (1 - e) lambda_i P_i
+ *   all-or-nothing: dP_i/dt = (1 - e) W_i / delta - lambda_i P_i,  dV_i/dt = e W_i / delta
+ *   new infections lambda_i (S_i + W_i + s P_i), s = 1 - e (leaky) or 1 (all-or-nothing)
+ *   dU_i/dt = -v_i,  dXp_i/dt = s lambda_i P_i,  dQ_i/dt = v_i (1 - S_i / U_i)
+ *
+ * Persons in S + W + P + V + E + I + R are conserved: the flows cancel exactly.
  * Units: persons, days. The state vector is compartment-major: block c holds band 0..n-1.
  */
 
-/** Where each compartment's block of n bands starts in the state vector. */
+/** Where each compartment's block of n bands starts in the state vector (-1: not in this model). */
 export interface StateLayout {
   bands: number;
   latentStages: number;
@@ -27,15 +43,64 @@ export interface StateLayout {
   infectious: number;
   recovered: number;
   cumulative: number;
+  /** Vaccination blocks (all -1 without a campaign). */
+  waiting: number;
+  protectedSusceptible: number;
+  vaccineImmune: number;
+  unvaccinated: number;
+  protectedInfections: number;
+  dosesToNonSusceptible: number;
+  /** Blocks that hold people (the rest are counters): S, E.., I.., R and W, P, V when present. */
+  peopleBlocks: number[];
   size: number;
 }
 
-export function stateLayout(bands: number, latentStages: number, infectiousStages: number): StateLayout {
+export function stateLayout(bands: number, latentStages: number, infectiousStages: number, vaccination = false): StateLayout {
   const latent = bands;
   const infectious = latent + latentStages * bands;
   const recovered = infectious + infectiousStages * bands;
   const cumulative = recovered + bands;
-  return { bands, latentStages, infectiousStages, susceptible: 0, latent, infectious, recovered, cumulative, size: cumulative + bands };
+  const base = cumulative + bands;
+  const block = (k: number) => (vaccination ? base + k * bands : -1);
+  const people = [0, ...Array.from({ length: latentStages + infectiousStages + 1 }, (_, k) => latent + k * bands)];
+  if (vaccination) people.push(block(0), block(1), block(2));
+  return {
+    bands,
+    latentStages,
+    infectiousStages,
+    susceptible: 0,
+    latent,
+    infectious,
+    recovered,
+    cumulative,
+    waiting: block(0),
+    protectedSusceptible: block(1),
+    vaccineImmune: block(2),
+    unvaccinated: block(3),
+    protectedInfections: block(4),
+    dosesToNonSusceptible: block(5),
+    peopleBlocks: people,
+    size: vaccination ? base + 6 * bands : base,
+  };
+}
+
+/** Vaccine properties the right-hand side needs. */
+export interface VaccineEffect {
+  efficacyAgainstInfection: number;
+  protection: 'leaky' | 'allOrNothing';
+  delayToProtectionDays: number;
+}
+
+/** Relative risk of infection of a person in P: 1 - e (leaky) or 1 (all-or-nothing failures). */
+export function protectedRisk(v: VaccineEffect): number {
+  return v.protection === 'leaky' ? 1 - v.efficacyAgainstInfection : 1;
+}
+
+/** Persons susceptible, weighted by their risk: S + W + s P (band i). */
+export function effectiveSusceptibleIn(y: Float64Array, L: StateLayout, i: number, risk: number): number {
+  const s = y[L.susceptible + i];
+  if (L.waiting < 0) return s;
+  return s + y[L.waiting + i] + risk * y[L.protectedSusceptible + i];
 }
 
 /** Persons infectious (all stages) in band i. */
@@ -53,24 +118,57 @@ export function infectedIn(y: Float64Array, L: StateLayout, i: number): number {
 }
 
 /**
- * Builds the right-hand side for a layout and periods. `transmission` (n x n, per day) is read at
- * every call, so the caller may overwrite it between phases. No allocation per call.
+ * Builds the right-hand side for a layout and periods. `transmission` (n x n, per day) and
+ * `doseRates` (n, doses per day; only read with vaccination) are read at every call, so the caller
+ * may overwrite them between segments. No allocation per call.
  */
-export function seirRightHandSide(L: StateLayout, latentPeriodDays: number, infectiousPeriodDays: number, transmission: Float64Array) {
+export function seirRightHandSide(
+  L: StateLayout,
+  latentPeriodDays: number,
+  infectiousPeriodDays: number,
+  transmission: Float64Array,
+  vaccine: VaccineEffect | null = null,
+  doseRates: Float64Array = new Float64Array(L.bands),
+) {
   const n = L.bands;
   const aE = L.latentStages / latentPeriodDays;
   const aI = L.infectiousStages / infectiousPeriodDays;
   const infectious = new Float64Array(n);
   const lastE = L.latent + (L.latentStages - 1) * n;
   const lastI = L.infectious + (L.infectiousStages - 1) * n;
+  const vaccinated = vaccine !== null && L.waiting >= 0;
+  const risk = vaccine === null ? 1 : protectedRisk(vaccine);
+  const protect = vaccine === null ? 0 : 1 / vaccine.delayToProtectionDays;
+  const leaky = vaccine?.protection !== 'allOrNothing';
+  const efficacy = vaccine?.efficacyAgainstInfection ?? 0;
   return (_t: number, y: Float64Array, dydt: Float64Array): void => {
     for (let j = 0; j < n; j++) infectious[j] = infectiousIn(y, L, j);
     for (let i = 0; i < n; i++) {
       let lambda = 0;
       const row = i * n;
       for (let j = 0; j < n; j++) lambda += transmission[row + j] * infectious[j];
-      const flow = lambda * y[L.susceptible + i];
-      dydt[L.susceptible + i] = -flow;
+      const susceptible = y[L.susceptible + i];
+      let flow = lambda * susceptible;
+      if (vaccinated) {
+        const w = y[L.waiting + i];
+        const p = y[L.protectedSusceptible + i];
+        const u = y[L.unvaccinated + i];
+        const v = u > 0 ? doseRates[i] : 0;
+        const share = u > 0 ? Math.min(1, susceptible / u) : 0;
+        const toWaiting = v * share;
+        const protecting = protect * w;
+        const protectedFlow = risk * lambda * p;
+        dydt[L.susceptible + i] = -flow - toWaiting;
+        dydt[L.waiting + i] = toWaiting - lambda * w - protecting;
+        dydt[L.protectedSusceptible + i] = (leaky ? protecting : (1 - efficacy) * protecting) - protectedFlow;
+        dydt[L.vaccineImmune + i] = leaky ? 0 : efficacy * protecting;
+        dydt[L.unvaccinated + i] = -v;
+        dydt[L.protectedInfections + i] = protectedFlow;
+        dydt[L.dosesToNonSusceptible + i] = v - toWaiting;
+        flow += lambda * w + protectedFlow;
+      } else {
+        dydt[L.susceptible + i] = -flow;
+      }
       dydt[L.latent + i] = flow - aE * y[L.latent + i];
       for (let k = 1; k < L.latentStages; k++) {
         const at = L.latent + k * n + i;

@@ -1,126 +1,79 @@
 /**
- * One policy option through the horizon: integrate the SEIR system phase by phase (restarting
- * the integrator where the measures change, since the right-hand side jumps there), record the
- * daily state, then derive the outcomes.
+ * One policy option through the horizon: integrate the SEIR system segment by segment
+ * (segments.ts: restarting where the measures or the dose plan change), then derive the outcomes.
+ *
+ * Deaths by band: IFR_i x (infections_i - Xp_i + f_D Xp_i), with Xp_i the infections of protected
+ * people and f_D their relative fatality (vaccination/prepare.ts); without vaccination, IFR x
+ * infections. The daily death series convolves the same weighted daily infections with the
+ * infection-to-death delay. Hospital demand gets the daily infections weighted by f_H the same way.
  */
-import { integrate, Dopri5Workspace } from './dopri5.ts';
 import { convolve, weightedBandSum } from './distributions.ts';
 import { finalSizeByBand } from './finalSize.ts';
 import { doublingTimeDays, growthRateFromR, halvingTimeDays } from './growth.ts';
 import { healthcareDemand } from './healthcare/demand.ts';
+import { integrateOption } from './integrateOption.ts';
 import { nextGenerationMatrixInto, spectralRadius } from './ngm.ts';
-import { changeDays, measuresConstant, phaseAt } from './phases.ts';
+import { measuresConstant } from './phases.ts';
 import type { PreparedScenario } from './prepare.ts';
-import type { DailySeries, OptionResults } from './results.ts';
+import { reproductionByDay } from './reproduction.ts';
+import type { DailySeries, OptionResults, VaccinationOutcomes } from './results.ts';
 import type { PolicyOption } from './scenario.ts';
-import { infectedIn, seirRightHandSide } from './seir.ts';
-import { transmissionMatrixInto } from './transmission.ts';
+import { segmentsOf } from './segments.ts';
+import { type DosePiece, dosesByBandUntil } from './vaccination/dosePlan.ts';
+import type { PreparedCampaign } from './vaccination/prepare.ts';
 
-/** Daily state kept from the integration: susceptibles, infected (E+I), cumulative infections. */
-interface DailyState {
-  susceptible: Float64Array;
-  prevalence: Float64Array;
-  cumulative: Float64Array;
-}
-
-/** A stretch of days with the same measures and its transmission matrix M. */
-interface Segment {
-  fromDay: number;
-  toDay: number;
-  transmission: Float64Array;
-}
-
-function segmentsOf(p: PreparedScenario, option: PolicyOption): Segment[] {
-  const s = p.scenario;
-  const n = p.bands.bands;
-  const bounds = [0, ...changeDays(option, s.horizonDays), s.horizonDays];
-  const segments: Segment[] = [];
-  for (let k = 0; k + 1 < bounds.length; k++) {
-    const phase = phaseAt(option, bounds[k]);
-    segments.push({ fromDay: bounds[k], toDay: bounds[k + 1], transmission: transmissionMatrixInto(new Float64Array(n * n), s, p.bands, p.beta, phase) });
+/** Daily differences of a cumulative series (days 0..H, by band): new counts in [d, d+1), d = 0..H-1. */
+function dailyDifferences(cumulative: Float64Array, n: number, H: number): Float64Array {
+  const out = new Float64Array(H * n);
+  for (let d = 0; d < H; d++) {
+    for (let i = 0; i < n; i++) out[d * n + i] = Math.max(0, cumulative[(d + 1) * n + i] - cumulative[d * n + i]);
   }
-  return segments;
-}
-
-/** Integrates the option and returns the state on days 0..H (negative rounding noise clipped to 0). */
-function integrateDaily(p: PreparedScenario, segments: Segment[]): DailyState {
-  const L = p.layout;
-  const n = L.bands;
-  const H = p.scenario.horizonDays;
-  const daily: DailyState = {
-    susceptible: new Float64Array((H + 1) * n),
-    prevalence: new Float64Array((H + 1) * n),
-    cumulative: new Float64Array((H + 1) * n),
-  };
-  const record = (day: number, y: Float64Array): void => {
-    for (let i = 0; i < n; i++) {
-      daily.susceptible[day * n + i] = Math.max(0, y[L.susceptible + i]);
-      daily.prevalence[day * n + i] = Math.max(0, infectedIn(y, L, i));
-      daily.cumulative[day * n + i] = Math.max(0, y[L.cumulative + i]);
-    }
-  };
-  const y = p.initialState.slice();
-  record(0, y);
-  const transmission = new Float64Array(n * n);
-  const rhs = seirRightHandSide(L, p.periods.latentPeriodDays, p.periods.infectiousPeriodDays, transmission);
-  const ws = new Dopri5Workspace(L.size);
-  let step = 0.25;
-  for (const seg of segments) {
-    transmission.set(seg.transmission);
-    const days: number[] = [];
-    for (let d = seg.fromDay + 1; d <= seg.toDay; d++) days.push(d);
-    step = integrate(rhs, y, seg.fromDay, seg.toDay, days, (t, state) => record(Math.round(t), state), ws, undefined, Math.max(step, 0.05));
-  }
-  return daily;
-}
-
-/**
- * R(t) for days 0..H: spectral radius of K(d) = D diag(S(d)) M(d). Each day's power iteration
- * starts from the Perron vector extrapolated quadratically from the three days before
- * (3 x_{d-1} - 3 x_{d-2} + x_{d-3}, clipped at 0), much closer than yesterday's vector while S
- * changes fast; within the first days of a phase, from yesterday's vector.
- */
-function reproductionByDay(p: PreparedScenario, segments: Segment[], susceptible: Float64Array): Float64Array {
-  const n = p.bands.bands;
-  const H = p.scenario.horizonDays;
-  const rt = new Float64Array(H + 1);
-  const k = new Float64Array(n * n);
-  const vector = new Float64Array(n).fill(1 / n);
-  const x1 = new Float64Array(n);
-  const x2 = new Float64Array(n);
-  const x3 = new Float64Array(n);
-  const scratch = new Float64Array(n);
-  let seg = 0;
-  for (let d = 0; d <= H; d++) {
-    while (seg + 1 < segments.length && d >= segments[seg].toDay) seg++;
-    if (d >= 3 && segments[seg].fromDay <= d - 3) {
-      for (let i = 0; i < n; i++) vector[i] = Math.max(0, 3 * x1[i] - 3 * x2[i] + x3[i]);
-    }
-    nextGenerationMatrixInto(k, segments[seg].transmission, susceptible.subarray(d * n, (d + 1) * n), p.periods.infectiousPeriodDays);
-    rt[d] = spectralRadius(k, n, vector, scratch);
-    x3.set(x2);
-    x2.set(x1);
-    x1.set(vector);
-  }
-  return rt;
+  return out;
 }
 
 /** New infections during each day d in [d, d+1), by band; the day-0 seeds are counted on day 0. */
 function dailyIncidence(p: PreparedScenario, cumulative: Float64Array): Float64Array {
   const n = p.bands.bands;
-  const H = p.scenario.horizonDays;
-  const incidence = new Float64Array(H * n);
-  for (let d = 0; d < H; d++) {
-    for (let i = 0; i < n; i++) incidence[d * n + i] = Math.max(0, cumulative[(d + 1) * n + i] - cumulative[d * n + i]);
-  }
+  const incidence = dailyDifferences(cumulative, n, p.scenario.horizonDays);
   for (let i = 0; i < n; i++) incidence[i] += p.seeds[i];
   return incidence;
+}
+
+/** incidence - (1 - factor) x protected incidence: infections weighted by their relative risk of an outcome. */
+function weightedIncidence(incidence: Float64Array, protectedIncidence: Float64Array | null, factor: number): Float64Array {
+  if (protectedIncidence === null) return incidence;
+  return incidence.map((x, k) => Math.max(0, x - (1 - factor) * protectedIncidence[k]));
+}
+
+/** Doses given during each day d (d = 0..H-1) by band, from the plan. */
+function dailyDoses(plan: readonly DosePiece[], n: number, H: number): Float64Array {
+  const out = new Float64Array(H * n);
+  for (const piece of plan) {
+    for (let d = Math.floor(piece.fromDay); d < Math.min(H, Math.ceil(piece.toDay)); d++) {
+      const span = Math.min(d + 1, piece.toDay) - Math.max(d, piece.fromDay);
+      if (span <= 0) continue;
+      for (let i = 0; i < n; i++) out[d * n + i] += piece.dosesPerDay[i] * span;
+    }
+  }
+  return out;
 }
 
 function sum(values: ArrayLike<number>): number {
   let total = 0;
   for (let i = 0; i < values.length; i++) total += values[i];
   return total;
+}
+
+/** Doses given within the horizon and the share that reached people no longer susceptible. */
+function vaccinationOutcomes(campaign: PreparedCampaign, plan: readonly DosePiece[], n: number, H: number, toNonSusceptible: Float64Array): VaccinationOutcomes {
+  const dosesByBand = Array.from(dosesByBandUntil(plan, n, H));
+  const doses = sum(dosesByBand);
+  return {
+    campaign: campaign.campaign.name,
+    doses,
+    dosesByBand,
+    dosesToNonSusceptibleShare: doses > 0 ? sum(toNonSusceptible) / doses : 0,
+  };
 }
 
 /** Runs one option of a prepared scenario. */
@@ -130,8 +83,10 @@ export function simulateOption(p: PreparedScenario, option: PolicyOption): Optio
   const H = s.horizonDays;
   const population = p.bands.population;
   const totalPopulation = sum(population);
-  const segments = segmentsOf(p, option);
-  const daily = integrateDaily(p, segments);
+  const campaign = option.vaccinationCampaign === undefined ? null : (p.campaigns.get(option.vaccinationCampaign) ?? null);
+  const plan = campaign?.plan ?? [];
+  const segments = segmentsOf(p, option, plan);
+  const daily = integrateOption(p, segments, campaign);
 
   const kStart = nextGenerationMatrixInto(new Float64Array(n * n), segments[0].transmission, p.initialSusceptible, p.periods.infectiousPeriodDays);
   // Certified to 1e-12 by the Collatz-Wielandt bracket; ml-matrix is the fallback inside.
@@ -150,22 +105,26 @@ export function simulateOption(p: PreparedScenario, option: PolicyOption): Optio
 
   const infectionsByBand = Array.from({ length: n }, (_, i) => p.seeds[i] + daily.cumulative[H * n + i]);
   const attackRateByBand = infectionsByBand.map((x, i) => (population[i] > 0 ? x / population[i] : 0));
-  const deathsByBand = infectionsByBand.map((x, i) => x * p.infectionFatalityRatio[i]);
+  const protectedByBand = Array.from({ length: n }, (_, i) => daily.protectedCumulative[H * n + i]);
+  const deathFactor = campaign?.deathRiskFactor ?? 1;
+  const deathsByBand = infectionsByBand.map((x, i) => (x - (1 - deathFactor) * protectedByBand[i]) * p.infectionFatalityRatio[i]);
   const infections = sum(infectionsByBand);
 
   const incidence = dailyIncidence(p, daily.cumulative);
+  const protectedIncidence = campaign === null ? null : dailyDifferences(daily.protectedCumulative, n, H);
   const series: DailySeries = {
     days: H,
     bands: n,
     susceptible: daily.susceptible,
     prevalence: daily.prevalence,
     incidence,
-    deaths: convolve(weightedBandSum(incidence, n, p.infectionFatalityRatio), p.deathDelayWeights),
-    rt: reproductionByDay(p, segments, daily.susceptible),
+    deaths: convolve(weightedBandSum(weightedIncidence(incidence, protectedIncidence, deathFactor), n, p.infectionFatalityRatio), p.deathDelayWeights),
+    rt: reproductionByDay(p, segments, daily.effectiveSusceptible),
+    doses: dailyDoses(plan, n, H),
   };
 
   let finalSize: OptionResults['finalSize'] = null;
-  if (measuresConstant(option, H)) {
+  if (campaign === null && measuresConstant(option, H)) {
     const s0 = Array.from(population, (N, i) => (N > 0 ? 1 - (s.initialState.priorImmunityFraction?.[i] ?? 0) : 0));
     const z = Array.from(finalSizeByBand(segments[0].transmission, population, s0, p.periods.infectiousPeriodDays));
     finalSize = { attackRateByBand: z, attackRate: sum(z.map((x, i) => x * population[i])) / totalPopulation };
@@ -188,6 +147,8 @@ export function simulateOption(p: PreparedScenario, option: PolicyOption): Optio
     deathsByBand,
     finalSize,
     series,
-    healthcare: p.healthcare === null ? null : healthcareDemand(p.healthcare, incidence),
+    healthcare: p.healthcare === null ? null : healthcareDemand(p.healthcare, weightedIncidence(incidence, protectedIncidence, campaign?.admissionRiskFactor ?? 1)),
+    vaccination: campaign === null ? null : vaccinationOutcomes(campaign, plan, n, H, daily.dosesToNonSusceptible),
+    comparison: null,
   };
 }

@@ -7,6 +7,7 @@
  */
 import type { z } from 'zod';
 import { healthcareProblems } from './healthcare/validation.ts';
+import { vaccinationProblems } from './vaccination/validation.ts';
 import { scenarioSchema, type Scenario } from './scenario.ts';
 
 export interface Problem {
@@ -172,6 +173,7 @@ export function crossFieldProblems(s: Scenario): Problem[] {
     problems.push({ path: 'referenceOption', rule: 'must name one of the options', value: JSON.stringify(s.referenceOption) });
   }
   problems.push(...healthcareProblems(s));
+  problems.push(...vaccinationProblems(s));
   return problems;
 }
 

@@ -8,7 +8,7 @@ describe('mixwise check', () => {
     expect(code).toBe(0);
     expect(stderr).toBe('');
     expect(stdout).toBe(
-      `${DEMO} is valid: "Tessarine Valley (fictional): first wave without vaccines", 16 age bands, 4 settings, 4 policy options, 365 days\n`,
+      `${DEMO} is valid: "Tessarine Valley (fictional): options for the coming wave", 16 age bands, 4 settings, 5 policy options, 365 days\n`,
     );
   });
 

@@ -51,7 +51,7 @@ describe.concurrent('bin/mixwise.mjs', () => {
   it('run prints the options table for the demo', async () => {
     const r = await mixwise('run', DEMO, '--format', 'json');
     expect(r.code).toBe(0);
-    expect(JSON.parse(r.stdout).options).toHaveLength(4);
+    expect(JSON.parse(r.stdout).options).toHaveLength(5);
   });
 
   it('no command: exit 1', async () => {

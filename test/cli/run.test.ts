@@ -37,7 +37,7 @@ describe('mixwise run --format json', () => {
     expect(report.ageBands[0]).toBe('0-4');
     expect(typeof report.r0).toBe('number');
     expect(report.options.map((o: { name: string }) => o.name)).toEqual([
-      'No measures', 'Schools closed 8 weeks', 'Work contacts halved', 'Shield 70+',
+      'No measures', 'Schools closed 8 weeks', 'Work contacts halved', 'Shield 70+', 'Vaccinate oldest first',
     ]);
     for (const option of report.options) {
       expect(Object.keys(option)).toEqual(expect.arrayContaining(OPTION_KEYS));
@@ -101,7 +101,7 @@ describe('mixwise run, text formats', () => {
   it('--format csv has a header and one row per option with the JSON numbers', () => {
     const { stdout } = runCli('run', DEMO, '--format', 'csv');
     const lines = stdout.trimEnd().split('\r\n');
-    expect(lines).toHaveLength(1 + 4);
+    expect(lines).toHaveLength(1 + 5);
     const header = lines[0].split(',');
     expect(header.slice(0, 3)).toEqual(['option', 'r_start', 'growth_rate_per_day']);
     expect(header).toContain('attack_rate 75+');
@@ -137,7 +137,7 @@ describe('mixwise run --out', () => {
     const target = join(dir, 'options.json');
     writeFileSync(target, 'old');
     expect(runCli('run', DEMO, '--format', 'json', '--out', target).code).toBe(0);
-    expect(JSON.parse(readFileSync(target, 'utf8')).options).toHaveLength(4);
+    expect(JSON.parse(readFileSync(target, 'utf8')).options).toHaveLength(5);
   });
 
   it('keeps an existing file when the scenario is invalid', () => {
