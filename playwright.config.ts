@@ -1,0 +1,39 @@
+import { defineConfig } from '@playwright/test';
+
+/** Debian's chromium (installed with apt-get); never a downloaded browser. Flags keep it offline and quiet. */
+const CHROMIUM_ARGS = [
+  '--headless',
+  '--no-sandbox',
+  '--disable-gpu',
+  '--disable-quic',
+  '--no-first-run',
+  '--disable-background-networking',
+  '--disable-component-update',
+  '--disable-sync',
+];
+
+const PORT = 4173;
+
+export default defineConfig({
+  testDir: 'e2e',
+  outputDir: 'test-results',
+  timeout: 60_000,
+  fullyParallel: false,
+  workers: 1,
+  reporter: [['list']],
+  use: {
+    baseURL: `http://127.0.0.1:${PORT}/`,
+    viewport: { width: 1400, height: 1000 },
+    acceptDownloads: true,
+    launchOptions: { executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium', args: CHROMIUM_ARGS },
+  },
+  webServer: {
+    // Build, then serve exactly the bundle Electron loads (web mode).
+    command: `npx electron-vite build && npx vite preview --outDir out/renderer --host 127.0.0.1 --port ${PORT} --strictPort`,
+    url: `http://127.0.0.1:${PORT}/`,
+    reuseExistingServer: false,
+    timeout: 120_000,
+    stdout: 'ignore',
+    stderr: 'pipe',
+  },
+});

@@ -1,0 +1,31 @@
+/**
+ * The main window's options, as a plain function so the security settings can be tested.
+ * Rules (Electron security checklist, electronjs.org/docs/latest/tutorial/security):
+ * context isolation on, renderer sandboxed, no Node integration, web security on,
+ * no webview tag, no insecure content.
+ */
+import type { BrowserWindowConstructorOptions } from 'electron';
+
+export function mainWindowOptions(preloadPath: string): BrowserWindowConstructorOptions {
+  return {
+    width: 1360,
+    height: 880,
+    minWidth: 900,
+    minHeight: 600,
+    show: false,
+    title: 'Mixwise',
+    backgroundColor: '#f7f6f2',
+    webPreferences: {
+      preload: preloadPath,
+      contextIsolation: true,
+      sandbox: true,
+      nodeIntegration: false,
+      nodeIntegrationInWorker: false,
+      nodeIntegrationInSubFrames: false,
+      webSecurity: true,
+      allowRunningInsecureContent: false,
+      webviewTag: false,
+      spellcheck: false,
+    },
+  };
+}

@@ -1,0 +1,40 @@
+/**
+ * The renderer's side of the engine worker: `run(scenario)` posts a new run and resolves
+ * the callback only for the newest run; older replies are ignored.
+ */
+import type { Scenario } from '../../engine/scenario.ts';
+import type { ScenarioResults } from '../../engine/results.ts';
+import type { EngineReply, EngineRequest } from './engineProtocol.ts';
+
+export interface EngineCallbacks {
+  onResults(results: ScenarioResults, runId: number, computeMs: number): void;
+  onFailure(message: string, runId: number): void;
+}
+
+export class EngineClient {
+  private readonly worker: Worker;
+  private lastRunId = 0;
+
+  constructor(private readonly callbacks: EngineCallbacks) {
+    this.worker = new Worker(new URL('./engine.worker.ts', import.meta.url), { type: 'module', name: 'mixwise-engine' });
+    this.worker.addEventListener('message', (event: MessageEvent<EngineReply>) => this.receive(event.data));
+    this.worker.addEventListener('error', (event) => this.callbacks.onFailure(event.message || 'The engine worker stopped.', this.lastRunId));
+  }
+
+  /** Starts a run of every option; returns its id. Any older run still going is cancelled. */
+  run(scenario: Scenario): number {
+    const request: EngineRequest = { type: 'run', runId: ++this.lastRunId, scenario };
+    this.worker.postMessage(request);
+    return request.runId;
+  }
+
+  private receive(reply: EngineReply): void {
+    if (reply.runId !== this.lastRunId) return;
+    if (reply.type === 'results') this.callbacks.onResults(reply.results, reply.runId, reply.computeMs);
+    else if (reply.type === 'failed') this.callbacks.onFailure(reply.message, reply.runId);
+  }
+
+  dispose(): void {
+    this.worker.terminate();
+  }
+}

@@ -1,0 +1,48 @@
+/**
+ * Option colours: the eight-colour palette of Okabe M, Ito K (2008), "Color Universal
+ * Design (CUD): how to make figures and presentations that are friendly to colorblind
+ * people" (jfly.uni-koeln.de/color), minus its yellow (too faint on white), plus dark grey.
+ * Each option holds a colour slot for life, so it keeps its colour across every view.
+ */
+export const OPTION_COLOURS = ['#0072B2', '#E69F00', '#009E73', '#D55E00', '#CC79A7', '#56B4E9', '#444444'] as const;
+
+/** Dash patterns used once the colours run out (slot >= 7), so lines stay distinguishable. */
+const DASHES: number[][] = [[], [6, 4], [2, 3], [10, 3, 2, 3]];
+
+export function optionColour(slot: number): string {
+  return OPTION_COLOURS[slot % OPTION_COLOURS.length];
+}
+
+export function optionDash(slot: number): number[] {
+  return DASHES[Math.floor(slot / OPTION_COLOURS.length) % DASHES.length];
+}
+
+/** The lowest colour slot not yet used (so a new option never takes a colour already on screen). */
+export function freeColourSlot(used: readonly number[]): number {
+  let slot = 0;
+  while (used.includes(slot)) slot++;
+  return slot;
+}
+
+/**
+ * Diverging shade for a change against the reference: blue when better, orange when worse
+ * (a blue/orange pair stays distinct under the common colour-vision deficiencies; Okabe & Ito 2008).
+ * `relativeChange` is (value - reference) / |reference|; `lowerIsBetter` says which way is good.
+ * Returns a translucent background, strength capped at a 100 % change.
+ */
+export function changeShade(relativeChange: number | null, lowerIsBetter: boolean): string {
+  if (relativeChange === null || !Number.isFinite(relativeChange) || Math.abs(relativeChange) < 0.005) return 'transparent';
+  const better = lowerIsBetter ? relativeChange < 0 : relativeChange > 0;
+  const strength = Math.min(1, Math.abs(relativeChange));
+  const alpha = (0.1 + 0.45 * strength).toFixed(2);
+  return better ? `rgba(0, 114, 178, ${alpha})` : `rgba(230, 159, 0, ${alpha})`;
+}
+
+/** Sequential ramp for heatmaps, white to deep blue; `t` in [0, 1]. */
+export function heatColour(t: number): string {
+  const x = Math.max(0, Math.min(1, t));
+  const from = [247, 251, 255];
+  const to = [8, 48, 107];
+  const c = from.map((f, i) => Math.round(f + (to[i] - f) * Math.sqrt(x)));
+  return `rgb(${c[0]}, ${c[1]}, ${c[2]})`;
+}

@@ -1,0 +1,111 @@
+/**
+ * The web implementation of `MixwiseHost` (web mode, no Electron): a file input to open,
+ * a download to save, `window.print()` to print. Recent files are copies kept in this
+ * browser's local storage, since a web page cannot reopen a path on disk.
+ */
+import { parseScenarioText, formatProblem } from '../../engine/validation.ts';
+import type { MixwiseHost, OpenedScenarioFile, RecentFile, SaveOutcome } from '../../preload/api.ts';
+
+const RECENT_KEY = 'mixwise.recent';
+const RECENT_COPY = (key: string) => `mixwise.recent.${key}`;
+const MAX_RECENT = 8;
+
+function readRecent(): RecentFile[] {
+  try {
+    const list: unknown = JSON.parse(localStorage.getItem(RECENT_KEY) ?? '[]');
+    return Array.isArray(list) ? list.filter((r): r is RecentFile => typeof r?.name === 'string' && typeof r?.path === 'string') : [];
+  } catch {
+    return [];
+  }
+}
+
+/** Keeps a copy of the file text under its name; the oldest copies drop off. */
+function rememberCopy(name: string, text: string): void {
+  const key = name;
+  const list = [{ name, path: key }, ...readRecent().filter((r) => r.path !== key)];
+  try {
+    localStorage.setItem(RECENT_COPY(key), text);
+    for (const dropped of list.slice(MAX_RECENT)) localStorage.removeItem(RECENT_COPY(dropped.path));
+    localStorage.setItem(RECENT_KEY, JSON.stringify(list.slice(0, MAX_RECENT)));
+  } catch {
+    // Storage full or disabled: the recent list is a convenience, the file itself is safe.
+  }
+}
+
+function pickFile(accept: string): Promise<File | null> {
+  return new Promise((resolve) => {
+    const input = document.createElement('input');
+    input.type = 'file';
+    input.accept = accept;
+    input.style.display = 'none';
+    input.dataset.testid = 'web-file-input';
+    input.addEventListener('change', () => {
+      resolve(input.files?.[0] ?? null);
+      input.remove();
+    });
+    input.addEventListener('cancel', () => {
+      resolve(null);
+      input.remove();
+    });
+    document.body.append(input);
+    input.click();
+  });
+}
+
+/** Reads a file the user picks (shared with CSV import). */
+export async function pickTextFile(accept: string): Promise<{ name: string; text: string } | null> {
+  const file = await pickFile(accept);
+  return file === null ? null : { name: file.name, text: await file.text() };
+}
+
+function download(name: string, blob: Blob): void {
+  const url = URL.createObjectURL(blob);
+  const link = document.createElement('a');
+  link.href = url;
+  link.download = name;
+  document.body.append(link);
+  link.click();
+  link.remove();
+  setTimeout(() => URL.revokeObjectURL(url), 10_000);
+}
+
+export function createWebHost(): MixwiseHost {
+  return {
+    kind: 'web',
+    async openScenario(): Promise<OpenedScenarioFile | null> {
+      const picked = await pickTextFile('.json,application/json');
+      if (picked === null) return null;
+      rememberCopy(picked.name, picked.text);
+      return { name: picked.name, path: null, text: picked.text };
+    },
+    async openRecent(path) {
+      const text = localStorage.getItem(RECENT_COPY(path));
+      return text === null ? null : { name: path, path: null, text };
+    },
+    async listRecent() {
+      return readRecent();
+    },
+    async saveScenario({ suggestedName, text }): Promise<SaveOutcome> {
+      const check = parseScenarioText(text);
+      if (!check.ok) return { ok: false, cancelled: false, message: `Not saved: the scenario is not valid.\n${check.problems.slice(0, 5).map(formatProblem).join('\n')}` };
+      download(suggestedName, new Blob([text], { type: 'application/json' }));
+      rememberCopy(suggestedName, text);
+      return { ok: true, file: { name: suggestedName, path: null } };
+    },
+    async print() {
+      window.print();
+    },
+    async exportPdf(): Promise<SaveOutcome> {
+      // Browsers have no silent PDF export: their print dialog offers "Save as PDF".
+      window.print();
+      return { ok: false, cancelled: true };
+    },
+    setDocumentState({ title, dirty }) {
+      document.title = `${dirty ? '• ' : ''}${title} — Mixwise`;
+    },
+    onMenuCommand() {
+      // No native menu in a browser: the app's own toolbar and shortcuts do the same work.
+      return () => undefined;
+    },
+  };
+}

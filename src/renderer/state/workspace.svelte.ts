@@ -1,0 +1,217 @@
+/**
+ * The app's state in one place: the working document with its undo history, the file it
+ * came from, the newest engine results (and whether they are stale), and the UI selection.
+ * Components read this and call its actions; they do no model math.
+ */
+import { tick } from 'svelte';
+import type { Scenario } from '../../engine/scenario.ts';
+import type { ScenarioResults } from '../../engine/results.ts';
+import { validateScenario, parseScenarioText, formatProblem } from '../../engine/validation.ts';
+import { EngineClient } from '../lib/engineClient.ts';
+import { pushHistory, redoHistory, startHistory, undoHistory, type HistoryState } from '../lib/history.ts';
+import { documentFor, replaceScenario, type WorkingDocument } from '../lib/scenarioEdits.ts';
+import { clearAutosave, loadAutosave, storeAutosave, type AutosavedCopy } from '../lib/autosave.ts';
+import { DEMO_FILE_NAME, demoScenario } from '../lib/demo.ts';
+import { host } from '../lib/host.ts';
+import type { RecentFile } from '../../preload/api.ts';
+
+export type ViewName = 'board' | 'curves' | 'by-age' | 'assumptions';
+export type Notice = { kind: 'info' | 'error'; text: string };
+
+/** Performance mark/measure names for the edit-to-redraw time (read by the e2e run). */
+export const EDIT_MARK = 'mixwise-edit';
+export const REDRAW_MEASURE = 'mixwise-edit-to-redraw';
+
+const AUTOSAVE_DELAY_MS = 400;
+
+class Workspace {
+  history = $state.raw<HistoryState<WorkingDocument>>(startHistory(documentFor(demoScenario())));
+  /** The document as last opened or saved; dirty when the present one differs. */
+  savedDocument = $state.raw<WorkingDocument | null>(null);
+  fileName = $state(DEMO_FILE_NAME);
+  filePath = $state<string | null>(null);
+
+  results = $state.raw<ScenarioResults | null>(null);
+  stale = $state(true);
+  computeMs = $state<number | null>(null);
+  redrawMs = $state<number | null>(null);
+  engineError = $state<string | null>(null);
+
+  view = $state<ViewName>('board');
+  selectedOption = $state(0);
+  selectedPhase = $state(0);
+  notice = $state<Notice | null>(null);
+  recent = $state.raw<RecentFile[]>([]);
+  recovered = $state.raw<AutosavedCopy | null>(null);
+
+  readonly doc = $derived(this.history.present);
+  readonly scenario = $derived(this.history.present.scenario);
+  readonly dirty = $derived(this.savedDocument !== this.history.present);
+  readonly canUndo = $derived(this.history.past.length > 0);
+  readonly canRedo = $derived(this.history.future.length > 0);
+
+  private engine: EngineClient | null = null;
+  private editPending = false;
+  private autosaveTimer: ReturnType<typeof setTimeout> | undefined;
+
+  /** Starts the engine, computes the demo, offers back an autosaved copy if one exists. */
+  start(): void {
+    this.savedDocument = this.history.present;
+    this.engine = new EngineClient({
+      onResults: (results, _runId, computeMs) => void this.receive(results, computeMs),
+      onFailure: (message) => {
+        this.engineError = message;
+      },
+    });
+    this.recovered = loadAutosave();
+    this.host();
+    void this.refreshRecent();
+    this.recompute();
+  }
+
+  private recompute(): void {
+    this.stale = true;
+    this.engine?.run(this.history.present.scenario);
+  }
+
+  private async receive(results: ScenarioResults, computeMs: number): Promise<void> {
+    this.results = results;
+    this.stale = false;
+    this.engineError = null;
+    this.computeMs = computeMs;
+    if (this.editPending) {
+      this.editPending = false;
+      await tick();
+      requestAnimationFrame(() => {
+        const measure = performance.measure(REDRAW_MEASURE, EDIT_MARK);
+        this.redrawMs = measure.duration;
+      });
+    }
+  }
+
+  private afterChange(): void {
+    const max = this.scenario.options.length - 1;
+    if (this.selectedOption > max) this.selectedOption = max;
+    const phases = this.scenario.options[this.selectedOption].phases.length;
+    if (this.selectedPhase >= phases) this.selectedPhase = Math.max(0, phases - 1);
+    this.host();
+    this.scheduleAutosave();
+    performance.mark(EDIT_MARK);
+    this.editPending = true;
+    this.recompute();
+  }
+
+  /**
+   * Commits an edited document after validating its scenario with the engine's rules.
+   * Returns the problems (and changes nothing) when the edit would make the scenario invalid.
+   */
+  commit(next: WorkingDocument, mergeKey: string | null = null): string[] {
+    if (next === this.history.present) return [];
+    const check = validateScenario(next.scenario);
+    if (!check.ok) return check.problems.map(formatProblem);
+    this.history = pushHistory(this.history, { ...next, scenario: check.scenario }, mergeKey, performance.now());
+    this.afterChange();
+    return [];
+  }
+
+  /** Commits a whole new scenario (assumptions edits, CSV import). */
+  commitScenario(scenario: Scenario, mergeKey: string | null = null): string[] {
+    return this.commit(replaceScenario(this.history.present, scenario), mergeKey);
+  }
+
+  undo(): void {
+    if (!this.canUndo) return;
+    this.history = undoHistory(this.history);
+    this.afterChange();
+  }
+
+  redo(): void {
+    if (!this.canRedo) return;
+    this.history = redoHistory(this.history);
+    this.afterChange();
+  }
+
+  /** Replaces the document (open, new from demo, restore); history starts afresh. */
+  load(doc: WorkingDocument, fileName: string, filePath: string | null, dirty = false): void {
+    this.history = startHistory(doc);
+    this.savedDocument = dirty ? null : doc;
+    this.fileName = fileName;
+    this.filePath = filePath;
+    this.selectedOption = 0;
+    this.selectedPhase = 0;
+    this.afterChange();
+  }
+
+  newFromDemo(): void {
+    this.load(documentFor(demoScenario()), DEMO_FILE_NAME, null);
+  }
+
+  /** Opens scenario text; on problems shows them and keeps the current document. */
+  openText(name: string, path: string | null, text: string): boolean {
+    const result = parseScenarioText(text);
+    if (!result.ok) {
+      const lines = result.problems.slice(0, 6).map(formatProblem);
+      const more = result.problems.length > 6 ? `\n… and ${result.problems.length - 6} more` : '';
+      this.notice = { kind: 'error', text: `${name} was not opened: it is not a valid scenario.\n${lines.join('\n')}${more}` };
+      return false;
+    }
+    this.load(documentFor(result.scenario), name, path);
+    this.notice = { kind: 'info', text: `Opened ${name}.` };
+    return true;
+  }
+
+  /** The scenario as file text (what Save writes). */
+  fileText(): string {
+    return `${JSON.stringify(this.scenario, null, 2)}\n`;
+  }
+
+  async save(saveAs: boolean): Promise<boolean> {
+    const doc = this.history.present;
+    const outcome = await host.saveScenario({ path: saveAs ? null : this.filePath, suggestedName: this.fileName, text: this.fileText() });
+    if (!outcome.ok) {
+      if (!outcome.cancelled) this.notice = { kind: 'error', text: outcome.message };
+      return false;
+    }
+    this.savedDocument = doc;
+    this.fileName = outcome.file.name;
+    this.filePath = outcome.file.path;
+    this.notice = { kind: 'info', text: `Saved ${outcome.file.name}.` };
+    clearAutosave();
+    this.host();
+    void this.refreshRecent();
+    return true;
+  }
+
+  restoreRecovered(): void {
+    const copy = this.recovered;
+    if (copy === null) return;
+    this.recovered = null;
+    this.load(copy.document, copy.fileName, copy.filePath, true);
+    this.notice = { kind: 'info', text: `Restored the unsaved working copy from ${new Date(copy.savedAt).toLocaleString()}.` };
+  }
+
+  discardRecovered(): void {
+    this.recovered = null;
+    clearAutosave();
+  }
+
+  async refreshRecent(): Promise<void> {
+    this.recent = await host.listRecent();
+  }
+
+  private host(): void {
+    host.setDocumentState({ title: this.scenario.title, dirty: this.dirty });
+  }
+
+  private scheduleAutosave(): void {
+    clearTimeout(this.autosaveTimer);
+    this.autosaveTimer = setTimeout(() => {
+      if (!this.dirty) return clearAutosave();
+      // Keep an older unsaved copy until the user has answered the restore offer.
+      if (this.recovered !== null) return;
+      storeAutosave({ savedAt: new Date().toISOString(), fileName: this.fileName, filePath: this.filePath, document: this.history.present });
+    }, AUTOSAVE_DELAY_MS);
+  }
+}
+
+export const workspace = new Workspace();

@@ -1,0 +1,73 @@
+import { describe, expect, it } from 'vitest';
+import { avertedShare, formatGrowthRate, formatPercent, formatPersons, formatR, formatSignedPersons, relativeChange } from '../../src/renderer/lib/format.ts';
+import { changeShade, freeColourSlot, optionColour, optionDash, OPTION_COLOURS } from '../../src/renderer/lib/palette.ts';
+import { commandForKey, keepsNativeUndo } from '../../src/renderer/lib/shortcuts.ts';
+import { totalOverBands } from '../../src/renderer/lib/seriesTotals.ts';
+
+const key = (k: string, mods: Partial<{ ctrlKey: boolean; metaKey: boolean; shiftKey: boolean; altKey: boolean }> = {}) => ({
+  key: k,
+  ctrlKey: false,
+  metaKey: false,
+  shiftKey: false,
+  altKey: false,
+  ...mods,
+});
+
+describe('format', () => {
+  it('formats with units and sensible precision', () => {
+    expect(formatR(2.49997)).toBe('2.50');
+    expect(formatPercent(0.8336)).toBe('83.4 %');
+    expect(formatPercent(0.00042)).toBe('0.042 %');
+    expect(formatPercent(1e-16)).toBe('< 0.001 %');
+    expect(formatPersons(8297.66)).toBe('8,298');
+    expect(formatPersons(1_264_000)).toBe('1.26 M');
+    expect(formatGrowthRate(0.147)).toBe('+14.7 %/day');
+    expect(formatGrowthRate(-0.02)).toBe('−2.0 %/day');
+    expect(formatSignedPersons(-53.2)).toBe('−53');
+    expect(relativeChange(90, 100)).toBeCloseTo(-0.1);
+    expect(relativeChange(1, 0)).toBeNull();
+    expect(avertedShare(90, 100)).toBeCloseTo(0.1);
+  });
+});
+
+describe('palette', () => {
+  it('gives each slot a colour, then dashes once colours run out', () => {
+    expect(new Set(OPTION_COLOURS).size).toBe(OPTION_COLOURS.length);
+    expect(optionColour(0)).toBe(optionColour(OPTION_COLOURS.length));
+    expect(optionDash(0)).not.toEqual(optionDash(OPTION_COLOURS.length));
+    expect(freeColourSlot([0, 1, 3])).toBe(2);
+  });
+
+  it('shades better blue, worse orange, none for a tiny change', () => {
+    expect(changeShade(-0.5, true)).toMatch(/^rgba\(0, 114, 178/);
+    expect(changeShade(0.5, true)).toMatch(/^rgba\(230, 159, 0/);
+    expect(changeShade(0.001, true)).toBe('transparent');
+    expect(changeShade(null, true)).toBe('transparent');
+  });
+});
+
+describe('shortcuts', () => {
+  it('maps the common keys', () => {
+    expect(commandForKey(key('s', { ctrlKey: true }))).toBe('save');
+    expect(commandForKey(key('S', { ctrlKey: true, shiftKey: true }))).toBe('save-as');
+    expect(commandForKey(key('z', { metaKey: true }))).toBe('undo');
+    expect(commandForKey(key('z', { ctrlKey: true, shiftKey: true }))).toBe('redo');
+    expect(commandForKey(key('y', { ctrlKey: true }))).toBe('redo');
+    expect(commandForKey(key('2', { altKey: true }))).toBe('view-curves');
+    expect(commandForKey(key('F1'))).toBe('show-model-notes');
+    expect(commandForKey(key('s'))).toBeNull();
+  });
+
+  it('leaves undo to text fields while they have focus', () => {
+    expect(keepsNativeUndo({ tagName: 'INPUT', type: 'text' })).toBe(true);
+    expect(keepsNativeUndo({ tagName: 'TEXTAREA' })).toBe(true);
+    expect(keepsNativeUndo({ tagName: 'INPUT', type: 'range' })).toBe(false);
+    expect(keepsNativeUndo(null)).toBe(false);
+  });
+});
+
+describe('totalOverBands', () => {
+  it('adds bands per day (band-major layout)', () => {
+    expect(totalOverBands(new Float64Array([1, 2, 3, 4, 5, 6]), 3)).toEqual([6, 15]);
+  });
+});
