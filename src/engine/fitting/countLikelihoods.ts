@@ -7,7 +7,7 @@
  * (Cameron & Trivedi 2013, Regression Analysis of Count Data, 2nd ed., sec. 3.3; "NB2" is their
  * name for the quadratic-variance form.) α = 0 is the Poisson limit.
  */
-import { logGamma } from './logGamma.ts';
+import { logGamma } from '../distributions.ts';
 
 /**
  * ln Γ(θ + y) - ln Γ(θ) for θ > 0 and whole y >= 0, accurate also for huge θ (α near 0), where

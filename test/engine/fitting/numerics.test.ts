@@ -2,7 +2,7 @@ import { inv } from 'mathjs';
 import { describe, expect, it } from 'vitest';
 import { choleskyFactor, choleskyInverse } from '../../../src/engine/fitting/cholesky.ts';
 import { logFactorial, logRisingFactorial } from '../../../src/engine/fitting/countLikelihoods.ts';
-import { logGamma } from '../../../src/engine/fitting/logGamma.ts';
+import { logGamma } from '../../../src/engine/distributions.ts';
 
 describe('fitting numerics', () => {
   it('logGamma matches ln n!, Γ(1/2) = √π and the reflection region', () => {
