@@ -59,9 +59,12 @@ export function regularizedLowerGamma(a: number, x: number): number {
   return Math.max(0, 1 - Math.exp(lnPrefix) * h);
 }
 
-/** CDF of a gamma delay with mean `meanDays` and `shape` at x days. A zero mean is a point mass at 0. */
+/**
+ * CDF of a gamma delay with mean `meanDays` and `shape` at x days. A mean below 1e-9 days (about
+ * 0.1 ms) is treated as a point mass at 0, which also keeps shape x / mean from overflowing.
+ */
 export function gammaCdf(x: number, meanDays: number, shape: number): number {
-  if (meanDays === 0) return x >= 0 ? 1 : 0;
+  if (meanDays < 1e-9) return x >= 0 ? 1 : 0;
   return regularizedLowerGamma(shape, (shape * x) / meanDays);
 }
 
