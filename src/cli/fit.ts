@@ -1,7 +1,9 @@
 /**
  * `mixwise fit CASES.csv --scenario FILE [--from D --to D] [--family poisson|negative-binomial]
- * [--day-of-week] [--measures-ratio X] [--format table|json]`: growth rate r, doubling time and R0
- * (for the scenario's periods) with 95% intervals, from daily case counts.
+ * [--day-of-week] [--measures-ratio X | --measures-option NAME] [--format table|json]`: growth
+ * rate r, doubling time and R0 (for the scenario's periods) with 95% intervals, from daily case
+ * counts. --measures-option takes the ratio from the phase that option has in force on the
+ * window's first day (measuresRatioForOption).
  * D is a date (YYYY-MM-DD, when the file has dates) or a day number. The arguments are parsed here,
  * in the same style as args.ts (long options, `--name value` or `--name=value`).
  */
@@ -12,11 +14,13 @@ import {
   fitGrowth,
   formatCsvProblem,
   isoDateToEpochDay,
+  measuresRatioForOption,
   parseCaseCountsCsv,
   r0FromFit,
   type CaseSeries,
   type CountModel,
   type GrowthFit,
+  type MeasuresRatio,
   type R0FromFit,
 } from '../engine/fitting/index.ts';
 import { CAUTION } from './caution.ts';
@@ -33,10 +37,11 @@ interface FitArgs {
   family: CountModel;
   dayOfWeek: boolean;
   measuresRatio: number | undefined;
+  measuresOption: string | null;
   format: 'table' | 'json';
 }
 
-const VALUE_OPTIONS = ['--scenario', '--from', '--to', '--family', '--measures-ratio', '--format'];
+const VALUE_OPTIONS = ['--scenario', '--from', '--to', '--family', '--measures-ratio', '--measures-option', '--format'];
 const FLAG_OPTIONS = ['--day-of-week'];
 const FAMILIES: Record<string, CountModel> = { poisson: 'poisson', 'negative-binomial': 'negativeBinomial' };
 
@@ -77,6 +82,8 @@ function parseFitArgs(words: readonly string[]): FitArgs {
   if (measuresRatio !== undefined && !(Number.isFinite(measuresRatio) && measuresRatio > 0)) {
     throw usageError(`--measures-ratio must be a number > 0 (dominant NGM eigenvalue with measures / without), got ${JSON.stringify(ratioText)}`);
   }
+  const measuresOption = options.get('--measures-option') ?? null;
+  if (measuresOption !== null && measuresRatio !== undefined) throw usageError('give --measures-ratio or --measures-option, not both');
   return {
     casesFile: positional[0],
     scenarioFile,
@@ -85,6 +92,7 @@ function parseFitArgs(words: readonly string[]): FitArgs {
     family,
     dayOfWeek: options.has('--day-of-week'),
     measuresRatio,
+    measuresOption,
     format,
   };
 }
@@ -103,7 +111,7 @@ function windowDay(option: string, text: string | null, series: CaseSeries): num
 
 const num = (x: number | null, digits: number): string => (x === null ? 'unbounded' : Number.isFinite(x) ? x.toFixed(digits) : x > 0 ? '+inf' : '-inf');
 
-function tableText(file: string, fit: GrowthFit, r0: R0FromFit, scenarioTitle: string): string {
+function tableText(file: string, fit: GrowthFit, r0: R0FromFit, scenarioTitle: string, measures: MeasuresRatio | undefined): string {
   const [lo, hi] = fit.growthRateInterval;
   const lines = [
     `Growth-rate fit of ${file}: days ${fit.fromDay} to ${fit.toDay}, ${fit.daysUsed} days with counts, ${fit.casesInWindow} cases`,
@@ -116,7 +124,7 @@ function tableText(file: string, fit: GrowthFit, r0: R0FromFit, scenarioTitle: s
   } else lines.push('Doubling time:      not growing');
   lines.push(`R0 for "${scenarioTitle}": ${num(r0.r0, 2)} (95% interval ${num(r0.r0Interval[0], 2)} to ${num(r0.r0Interval[1], 2)})`);
   if (fit.dispersion.negativeBinomialAlpha !== null) lines.push(`Dispersion alpha:   ${fit.dispersion.negativeBinomialAlpha.toPrecision(3)}`);
-  for (const note of [...fit.notes, ...r0.notes]) lines.push(`note: ${note}`);
+  for (const note of [...fit.notes, ...r0.notes, ...(measures === undefined ? [] : [measures.note])]) lines.push(`note: ${note}`);
   lines.push(CAUTION);
   return `${lines.join('\n')}\n`;
 }
@@ -148,7 +156,13 @@ export function fitCommand(io: Output, words: readonly string[]): ExitCode {
     for (const p of result.problems) io.err(`mixwise: ${args.casesFile}: ${p.field} ${p.rule}${p.value === undefined ? '' : `, got ${p.value}`}\n`);
     return EXIT_CODES.invalidScenario;
   }
-  const r0 = r0FromFit(result.fit, periodsOf(scenario.scenario), args.measuresRatio);
+  let measures: MeasuresRatio | undefined;
+  if (args.measuresOption !== null) {
+    const found = measuresRatioForOption(scenario.scenario, args.measuresOption, result.fit.fromDay);
+    if (!found.ok) throw usageError(found.problems.map((p) => `--measures-option ${p.rule}, got ${JSON.stringify(p.value)}`).join('; '));
+    measures = found.value;
+  }
+  const r0 = r0FromFit(result.fit, periodsOf(scenario.scenario), measures === undefined ? args.measuresRatio : measures.phase === null ? undefined : measures.ratio);
   if (!r0.ok) throw usageError(r0.problems.map((p) => `${p.field} ${p.rule}`).join('; '));
   const fit = result.fit;
   if (args.format === 'json') {
@@ -166,11 +180,12 @@ export function fitCommand(io: Output, words: readonly string[]): ExitCode {
       window: { fromDay: fit.fromDay, toDay: fit.toDay, startDate: cases.series.startDate, daysUsed: fit.daysUsed, cases: fit.casesInWindow },
       dispersion: fit.dispersion,
       measuresRatio: r0.value.measuresRatio,
-      notes: [...fit.notes, ...r0.value.notes],
+      ...(measures === undefined ? {} : { measures: { option: measures.option, day: measures.day, phase: measures.phase, reproductionNumberInWindow: r0.value.reproductionNumberInWindow } }),
+      notes: [...fit.notes, ...r0.value.notes, ...(measures === undefined ? [] : [measures.note])],
       caution: CAUTION,
     };
     // JSON has no infinity: an unbounded interval end is written as null.
     io.out(`${JSON.stringify(json, null, 2)}\n`);
-  } else io.out(tableText(args.casesFile, fit, r0.value, scenario.scenario.title));
+  } else io.out(tableText(args.casesFile, fit, r0.value, scenario.scenario.title, measures));
   return EXIT_CODES.ok;
 }

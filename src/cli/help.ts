@@ -13,12 +13,23 @@ Usage:
       Check the scenario FILE against the format's rules; list every problem with its
       place in the file.
   mixwise fit CASES.csv --scenario FILE [--from D] [--to D] [--day-of-week]
-          [--family poisson|negative-binomial] [--measures-ratio X] [--format table|json]
+          [--family poisson|negative-binomial] [--measures-ratio X | --measures-option NAME]
+          [--format table|json]
       Fit the growth rate r to daily case counts (columns date or day, count, optional band)
       over days D (a date YYYY-MM-DD or a day number) and print r, doubling time and R0 for
       the scenario's periods, with 95% intervals. --measures-ratio: dominant NGM eigenvalue
       with the measures in force during the window / without; R0 = R in window / X.
+      --measures-option: take X from the phase option NAME has in force on the window's
+      first day (case day numbers counted as scenario days).
       A cases file that breaks a rule also exits with code 2.
+  mixwise report FILE [--out PATH] [--format html|csv|pdf] [--series]
+          [--paper A4|Letter] [--landscape]
+      The printable policy options report: summary of each option's measures, the options
+      table, curves and by-age charts, assumptions with sources, cautions; every page shows
+      the scenario fingerprint. Self-contained HTML by default; --out report.pdf prints it
+      to PDF with a local Chromium (/usr/bin/chromium or $CHROMIUM_PATH; exit code 3 when
+      none is found). --format csv gives the options table (one row per option), with
+      --series the daily series (option, day, band, quantity, value).
   mixwise --help       Show this text.
   mixwise --version    Show the version.
 

@@ -8,6 +8,7 @@ import { checkCommand, runCommand, type Output } from './commands.ts';
 import { CliError, EXIT_CODES, type ExitCode } from './errors.ts';
 import { fitCommand } from './fit.ts';
 import { HELP_TEXT } from './help.ts';
+import { reportCommand } from './report.ts';
 
 function execute(argv: readonly string[], io: Output): ExitCode {
   // `fit` parses its own options (src/cli/fit.ts).
@@ -42,6 +43,16 @@ export function main(argv: readonly string[], io: Output): ExitCode {
   }
 }
 
+/**
+ * As `main`, and also the commands that must wait for something (`report`: Web Crypto for the
+ * fingerprint, Chromium for a PDF). Never rejects.
+ */
+export async function mainAsync(argv: readonly string[], io: Output): Promise<ExitCode> {
+  const wantsHelp = argv.includes('--help') || argv.includes('-h');
+  if (argv[0] === 'report' && !wantsHelp) return reportCommand(io, argv.slice(1));
+  return main(argv, io);
+}
+
 /** The process's own streams; a closed pipe (e.g. `mixwise run x | head`) ends quietly. */
 export const processOutput: Output = {
   out: (text) => void process.stdout.write(text),
@@ -52,5 +63,7 @@ export function runProcess(): void {
   process.stdout.on('error', (err: NodeJS.ErrnoException) => {
     if (err.code === 'EPIPE') process.exit(process.exitCode ?? 0);
   });
-  process.exitCode = main(process.argv.slice(2), processOutput);
+  void mainAsync(process.argv.slice(2), processOutput).then((code) => {
+    process.exitCode = code;
+  });
 }

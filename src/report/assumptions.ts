@@ -1,0 +1,145 @@
+/**
+ * The assumptions table: every input parameter of the scenario with its value, unit and source,
+ * plus the by-band inputs as one table. Values are the validated scenario's (defaults filled in);
+ * hospital ratios left out of the file are the program defaults, named as such with their source.
+ * The only figures derived here are summaries of inputs (totals, mean contacts per person).
+ */
+import {
+  DEFAULT_ADMISSION_DELAY,
+  DEFAULT_ICU_PATIENT_WARD_STAY,
+  DEFAULT_ICU_STAY,
+  DEFAULT_WARD_STAY,
+  defaultIcuShareOfAdmissions,
+  defaultInfectionHospitalisationRatio,
+} from '../engine/healthcare/defaults.ts';
+import type { ScenarioResults } from '../engine/results.ts';
+import type { Delay, Scenario } from '../engine/scenario.ts';
+import { formatDecimal, formatPercent, formatPersons } from './numbers.ts';
+
+export interface ParameterRow {
+  parameter: string;
+  value: string;
+  unit: string;
+  source: string;
+}
+
+export interface BandTable {
+  header: string[];
+  rows: string[][];
+}
+
+const FROM_FILE = 'Scenario file';
+const HOSPITAL_DEFAULT_SOURCE =
+  'Program default: Ferguson et al. 2020, Imperial College COVID-19 Response Team Report 9, Table 1 (per symptomatic case x 0.8 symptomatic share, Buitrago-Garcia et al. 2020, PLoS Med 17:e1003346)';
+const DELAY_DEFAULT_SOURCE = 'Program default (src/engine/healthcare/defaults.ts: Ferguson et al. 2020 Report 9; Rees et al. 2020, BMC Med 18:270; Lauer et al. 2020, Ann Intern Med 172:577)';
+
+const orFile = (source: string): string => (source.trim() === '' ? FROM_FILE : source);
+const sameDelay = (a: Delay, b: Delay): boolean => a.meanDays === b.meanDays && a.shape === b.shape;
+const delayText = (d: Delay): string => `mean ${formatDecimal(d.meanDays, 1)}, gamma shape ${formatDecimal(d.shape, 1)}`;
+
+/** Population-weighted mean contacts per person per day in one setting: sum_i N_i sum_j C_ij / sum_i N_i. */
+function meanContactsPerPerson(matrix: number[][], population: number[]): number {
+  let weighted = 0;
+  let total = 0;
+  matrix.forEach((row, i) => {
+    weighted += population[i] * row.reduce((a, b) => a + b, 0);
+    total += population[i];
+  });
+  return total > 0 ? weighted / total : 0;
+}
+
+export function parameterRows(scenario: Scenario, results: ScenarioResults): ParameterRow[] {
+  const d = scenario.disease;
+  const diseaseSource = orFile(d.source);
+  const rows: ParameterRow[] = [];
+  const add = (parameter: string, value: string, unit: string, source: string) => rows.push({ parameter, value, unit, source });
+  const populationTotal = scenario.populationPersons.reduce((a, b) => a + b, 0);
+
+  add('Age bands', `${scenario.ageBands.length} (${scenario.ageBands[0].label} ... ${scenario.ageBands[scenario.ageBands.length - 1].label})`, 'bands', FROM_FILE);
+  add('Population', formatPersons(populationTotal), 'persons', `${FROM_FILE} (by band below)`);
+  add('Horizon', String(scenario.horizonDays), 'days', FROM_FILE);
+  if (d.transmission.kind === 'r0') add('Basic reproduction number R0 (target)', formatDecimal(d.transmission.r0, 2), 'per case', diseaseSource);
+  else add('Doubling time before measures (target)', formatDecimal(d.transmission.doublingTimeDays, 2), 'days', diseaseSource);
+  add('R0 from the next-generation matrix', formatDecimal(results.r0, 3), 'per case', 'Computed by Mixwise (dominant eigenvalue, all susceptible, no measures)');
+  add('Transmission rate beta', results.beta.toPrecision(4), 'per contact', 'Calibrated by Mixwise to the target above');
+  add('Latent period (mean)', formatDecimal(d.latentPeriodDays, 2), 'days', diseaseSource);
+  add('Infectious period D (mean)', formatDecimal(d.infectiousPeriodDays, 2), 'days', diseaseSource);
+  add('Latent / infectious stages (Erlang)', `${d.latentStages} / ${d.infectiousStages}`, 'stages', diseaseSource);
+  add('Relative susceptibility u', d.relativeSusceptibility === undefined ? '1 in every band' : 'by band, below', 'ratio', d.relativeSusceptibility === undefined ? 'Program default' : diseaseSource);
+  add('Relative infectiousness h', d.relativeInfectiousness === undefined ? '1 in every band' : 'by band, below', 'ratio', d.relativeInfectiousness === undefined ? 'Program default' : diseaseSource);
+  add('Infection fatality ratio (IFR)', 'by band, below', 'fraction of infections', scenario.severity.source);
+  add('Infection-to-death delay', delayText(scenario.severity.deathDelay), 'days', `${FROM_FILE}, or program default (mean 21, shape 4) when left out`);
+  for (const setting of scenario.settings) {
+    add(`Contacts in setting "${setting.name}"`, formatDecimal(meanContactsPerPerson(setting.contactsPerDay, scenario.populationPersons), 2), 'per person per day', `${FROM_FILE} (contact matrix)`);
+  }
+  add(
+    'Reciprocity imbalance (largest, by setting)',
+    results.reciprocity.map((c) => `${c.setting} ${formatPercent(c.largestRelativeImbalance, 1)}`).join(', '),
+    '|N_i C_ij - N_j C_ji| / max',
+    'Computed by Mixwise from the file',
+  );
+  const initial = scenario.initialState;
+  add('Infected on day 0', formatDecimal(initial.infectedPersons.reduce((a, b) => a + b, 0), 1), `persons (${initial.infectedCompartment})`, FROM_FILE);
+  add('Prior immunity', initial.priorImmunityFraction === undefined ? 'none' : 'by band, below', 'fraction of band', FROM_FILE);
+  add('Reference option', scenario.options[results.referenceIndex]?.name ?? '', '', FROM_FILE);
+
+  for (const campaign of scenario.vaccinationCampaigns) {
+    const source = orFile(campaign.source);
+    const name = `Campaign "${campaign.name}"`;
+    const supply = [...campaign.schedule].sort((a, b) => a.fromDay - b.fromDay).map((step) => `${formatPersons(step.dosesPerDay)} from day ${step.fromDay}`);
+    add(`${name}: doses per day`, supply.join('; '), 'doses per day', source);
+    add(`${name}: priority order`, campaign.priority.map((group) => group.map((b) => scenario.ageBands[b]?.label ?? `band ${b}`).join(' + ')).join(', '), 'age bands', source);
+    add(`${name}: uptake ceiling`, 'by band, below', 'fraction of band', source);
+    add(`${name}: efficacy against infection`, formatPercent(campaign.efficacyAgainstInfection, 0), `fraction (${campaign.protection === 'leaky' ? 'leaky' : 'all-or-nothing'})`, source);
+    add(`${name}: efficacy against admission`, formatPercent(campaign.efficacyAgainstAdmission ?? campaign.efficacyAgainstDeath, 0), 'fraction', campaign.efficacyAgainstAdmission === undefined ? 'Program default: the efficacy against death' : source);
+    add(`${name}: efficacy against death`, formatPercent(campaign.efficacyAgainstDeath, 0), 'fraction', source);
+    add(`${name}: delay to protection`, formatDecimal(campaign.delayToProtectionDays, 1), 'days (mean, exponential)', source);
+  }
+
+  const h = scenario.healthcare;
+  if (h !== undefined) {
+    const hospitalSource = orFile(h.source);
+    add('Infection-hospitalisation ratio (IHR)', 'by band, below', 'fraction of infections', h.infectionHospitalisationRatio === undefined ? HOSPITAL_DEFAULT_SOURCE : hospitalSource);
+    add('ICU share of admissions', 'by band, below', 'fraction of admissions', h.icuShareOfAdmissions === undefined ? HOSPITAL_DEFAULT_SOURCE : hospitalSource);
+    const delays: [string, Delay, Delay, boolean][] = [
+      ['Infection to hospital admission', h.admissionDelay, DEFAULT_ADMISSION_DELAY, h.admissionDelayByBand !== undefined],
+      ['Ward stay (patients not needing ICU)', h.wardStay, DEFAULT_WARD_STAY, h.wardStayByBand !== undefined],
+      ['ICU stay', h.icuStay, DEFAULT_ICU_STAY, h.icuStayByBand !== undefined],
+      ['Ward days of ICU patients outside ICU', h.icuPatientWardStay, DEFAULT_ICU_PATIENT_WARD_STAY, false],
+    ];
+    for (const [name, delay, fallback, byBand] of delays) {
+      const value = byBand ? `${delayText(delay)} (replaced band by band in the file)` : delayText(delay);
+      add(name, value, 'days', sameDelay(delay, fallback) && !byBand ? DELAY_DEFAULT_SOURCE : hospitalSource);
+    }
+    const surge = (n: number | undefined) => (n === undefined ? '' : `; ${formatPersons(n)} at full surge`);
+    add('Ward beds', `${formatPersons(h.capacity.wardBeds)}${surge(h.capacity.wardSurgeBeds)}`, 'beds', hospitalSource);
+    add('ICU beds', `${formatPersons(h.capacity.icuBeds)}${surge(h.capacity.icuSurgeBeds)}`, 'beds', hospitalSource);
+  }
+  return rows;
+}
+
+/** Inputs by age band, one row per band; percentages for fractions. */
+export function bandTable(scenario: Scenario): BandTable {
+  const d = scenario.disease;
+  const h = scenario.healthcare;
+  const ihr = h === undefined ? null : (h.infectionHospitalisationRatio ?? defaultInfectionHospitalisationRatio(scenario));
+  const icu = h === undefined ? null : (h.icuShareOfAdmissions ?? defaultIcuShareOfAdmissions(scenario));
+  const header = ['Age band', 'Population, persons', 'IFR, %', 'Rel. susceptibility', 'Rel. infectiousness', 'Infected on day 0', 'Prior immunity, %'];
+  if (ihr !== null) header.push('IHR, %', 'ICU share of admissions, %');
+  for (const campaign of scenario.vaccinationCampaigns) header.push(`Uptake ceiling, % (${campaign.name})`);
+  const rows = scenario.ageBands.map((band, i) => {
+    const row = [
+      band.label,
+      formatPersons(scenario.populationPersons[i]),
+      formatPercent(scenario.severity.infectionFatalityRatio[i], 3),
+      formatDecimal(d.relativeSusceptibility?.[i] ?? 1, 2),
+      formatDecimal(d.relativeInfectiousness?.[i] ?? 1, 2),
+      formatDecimal(scenario.initialState.infectedPersons[i], 1),
+      formatPercent(scenario.initialState.priorImmunityFraction?.[i] ?? 0, 1),
+    ];
+    if (ihr !== null && icu !== null) row.push(formatPercent(ihr[i], 2), formatPercent(icu[i], 1));
+    for (const campaign of scenario.vaccinationCampaigns) row.push(formatPercent(campaign.uptakeCeiling[i] ?? 0, 0));
+    return row;
+  });
+  return { header, rows };
+}

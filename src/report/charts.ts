@@ -1,0 +1,108 @@
+/**
+ * The report's key charts, built from the engine's results: curves over time (people infected,
+ * deaths per day, ICU beds in use against capacity when present) and profiles by age band
+ * (attack rate, deaths). Totals over bands are plain sums of the engine's by-band series.
+ */
+import type { OptionResults, ScenarioResults } from '../engine/results.ts';
+import { formatAxisValue, formatPersons } from './numbers.ts';
+import { optionStyle } from './palette.ts';
+import { lineChartSvg, type ChartSeries } from './svgLineChart.ts';
+
+export interface ReportChart {
+  id: string;
+  heading: string;
+  /** One sentence saying what is drawn, with units. */
+  caption: string;
+  svg: string;
+}
+
+/** Sum over bands of a band-major daily series ([d * bands + i]). */
+function totalOverBands(values: Float64Array, bands: number): Float64Array {
+  const days = Math.floor(values.length / bands);
+  const total = new Float64Array(days);
+  for (let d = 0; d < days; d++) for (let i = 0; i < bands; i++) total[d] += values[d * bands + i];
+  return total;
+}
+
+function seriesOf(results: ScenarioResults, values: (o: OptionResults) => ArrayLike<number>): ChartSeries[] {
+  return results.options.map((o, k) => ({ name: o.name, style: optionStyle(k), values: values(o) }));
+}
+
+export function curveCharts(results: ScenarioResults): ReportChart[] {
+  const charts: ReportChart[] = [
+    {
+      id: 'prevalence',
+      heading: 'People infected over time',
+      caption: 'Persons currently infected (latent or infectious), all ages, by day.',
+      svg: lineChartSvg({
+        title: 'People infected by day, each option',
+        xLabel: 'Day',
+        yLabel: 'Persons infected',
+        series: seriesOf(results, (o) => totalOverBands(o.series.prevalence, o.series.bands)),
+        yFormat: formatAxisValue,
+      }),
+    },
+    {
+      id: 'deaths',
+      heading: 'Deaths per day',
+      caption: 'Deaths per day, all ages (infections spread over the infection-to-death delay).',
+      svg: lineChartSvg({
+        title: 'Deaths per day, each option',
+        xLabel: 'Day',
+        yLabel: 'Deaths per day',
+        series: seriesOf(results, (o) => o.series.deaths),
+        yFormat: formatAxisValue,
+      }),
+    },
+  ];
+  const hospital = results.options.find((o) => o.healthcare !== null)?.healthcare ?? null;
+  if (hospital !== null) {
+    const lines = [{ value: hospital.icu.capacityBeds, label: `ICU capacity ${formatPersons(hospital.icu.capacityBeds)} beds` }];
+    if (hospital.icu.surgeCapacityBeds !== null) lines.push({ value: hospital.icu.surgeCapacityBeds, label: `surge ${formatPersons(hospital.icu.surgeCapacityBeds)} beds` });
+    charts.push({
+      id: 'icu',
+      heading: 'ICU beds in use',
+      caption: 'ICU beds in use (mean over each day) against capacity, dotted lines.',
+      svg: lineChartSvg({
+        title: 'ICU beds in use by day, each option, with capacity',
+        xLabel: 'Day',
+        yLabel: 'ICU beds in use',
+        series: seriesOf(results, (o) => o.healthcare?.series.icuOccupancy ?? new Float64Array(0)),
+        referenceLines: lines,
+        yFormat: formatAxisValue,
+      }),
+    });
+  }
+  return charts;
+}
+
+export function byAgeCharts(results: ScenarioResults): ReportChart[] {
+  return [
+    {
+      id: 'attack-rate-by-age',
+      heading: 'Attack rate by age band',
+      caption: 'Share of each age band infected by the end of the horizon, %.',
+      svg: lineChartSvg({
+        title: 'Attack rate by age band, each option',
+        xLabel: 'Age band (years)',
+        yLabel: 'Attack rate, %',
+        categories: results.ageBands,
+        series: seriesOf(results, (o) => o.attackRateByBand.map((a) => 100 * a)),
+        yFormat: (v) => `${formatAxisValue(v)}%`,
+      }),
+    },
+    {
+      id: 'deaths-by-age',
+      heading: 'Deaths by age band',
+      caption: 'Deaths caused by the infections within the horizon, persons, by age band.',
+      svg: lineChartSvg({
+        title: 'Deaths by age band, each option',
+        xLabel: 'Age band (years)',
+        yLabel: 'Deaths',
+        categories: results.ageBands,
+        series: seriesOf(results, (o) => o.deathsByBand),
+        yFormat: formatAxisValue,
+      }),
+    },
+  ];
+}

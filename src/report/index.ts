@@ -1,0 +1,14 @@
+/**
+ * The policy options report: printable HTML, CSV exports and the scenario fingerprint.
+ * Pure TypeScript over the engine's results (no Node, no DOM), shared by the CLI and the app.
+ */
+export { buildReportHtml, formatReportTime } from './reportHtml.ts';
+export { scenarioFingerprint, shortFingerprint, canonicalJson, SHORT_FINGERPRINT_LENGTH } from './fingerprint.ts';
+export { optionsTableCsv, dailySeriesCsv, DAILY_QUANTITIES, type DailyQuantity } from './csv.ts';
+export { optionsTable, columnGroups, type OptionsTable, type OutcomeRow } from './optionsTable.ts';
+export { optionSummaries, optionSummary, type OptionSummary, type PhaseSummary } from './measures.ts';
+export { parameterRows, bandTable, type ParameterRow, type BandTable } from './assumptions.ts';
+export { CAUTION, CAUTION_PARAGRAPHS, MODEL_LIMITS } from './cautions.ts';
+export { optionStyle, OPTION_COLOURS, type OptionStyle } from './palette.ts';
+export * from './numbers.ts';
+export { PAPERS, OPTION_COLUMNS_PER_TABLE, type Paper, type Orientation, type ReportMeta } from './reportTypes.ts';

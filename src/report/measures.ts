@@ -1,0 +1,109 @@
+/**
+ * Plain-language summary of a policy option's measures, phase by phase, e.g.
+ * "Days 21 to 76 (56 days): school contacts 0% of usual (closed), home contacts 120% of usual."
+ *
+ * Day numbers count from 0, the scenario's first day. A phase in the file runs from `fromDay`
+ * up to but not including `toDay`; the summary prints both ends included (fromDay to toDay - 1),
+ * cut to the horizon. Settings not named in a phase stay at 100% of usual contacts.
+ */
+import type { AgeFactor, Campaign, Phase, PolicyOption, Scenario } from '../engine/scenario.ts';
+import { formatMultiplier, formatPercent, formatPersons } from './numbers.ts';
+
+export interface PhaseSummary {
+  /** "Days 21 to 76 (56 days)" or "Whole horizon (days 0 to 364)". */
+  when: string;
+  /** "school contacts 0% of usual (closed); home contacts 120% of usual". */
+  what: string;
+}
+
+export interface OptionSummary {
+  name: string;
+  isReference: boolean;
+  /** The analyst's own description from the scenario file (may be empty). */
+  description: string;
+  /** One entry per phase that falls within the horizon; empty = contacts as usual throughout. */
+  phases: PhaseSummary[];
+  /** One sentence for an option with no phase in the horizon, else null. */
+  noMeasures: string | null;
+  /** The option's vaccination campaign in plain words, or null without one. */
+  vaccination: string | null;
+}
+
+function bandList(bands: readonly number[], labels: readonly string[]): string {
+  return bands.map((b) => labels[b] ?? `band ${b}`).join(', ');
+}
+
+function settingChange(setting: string, multiplier: number): string {
+  const closed = multiplier === 0 ? ' (closed)' : '';
+  return `${setting} contacts ${formatMultiplier(multiplier)} of usual${closed}`;
+}
+
+function ageFactorText(factor: AgeFactor, labels: readonly string[]): string {
+  return `${factor.setting} contacts of ages ${bandList(factor.bands, labels)} at ${formatMultiplier(factor.factor)} of usual`;
+}
+
+/** What a phase changes, in plain words; "no change to contacts" when it changes nothing. */
+export function phaseMeasuresText(phase: Phase, bandLabels: readonly string[]): string {
+  const parts: string[] = [];
+  for (const [setting, multiplier] of Object.entries(phase.settingMultipliers)) {
+    if (multiplier !== 1) parts.push(settingChange(setting, multiplier));
+  }
+  for (const factor of phase.ageFactors) parts.push(ageFactorText(factor, bandLabels));
+  if (phase.caseIsolation > 0) parts.push(`infectiousness of cases cut by ${formatPercent(phase.caseIsolation, 0)} (isolation)`);
+  return parts.length === 0 ? 'no change to contacts' : parts.join('; ');
+}
+
+/** When a phase applies, both ends included, within the horizon; null when it lies outside it. */
+export function phaseWhenText(phase: Phase, horizonDays: number): string | null {
+  const first = phase.fromDay;
+  const last = Math.min(phase.toDay, horizonDays) - 1;
+  if (last < first) return null;
+  const length = last - first + 1;
+  if (first === 0 && last === horizonDays - 1) return `Whole horizon (days 0 to ${last})`;
+  if (length === 1) return `Day ${first} only`;
+  return `Days ${first} to ${last} (${length} days)`;
+}
+
+/**
+ * A campaign in plain words: supply steps, priority order, uptake ceiling, efficacy, protection.
+ * E.g. "Autumn campaign: from day 30, 6,000 doses a day; from day 90, 12,000 doses a day. Priority: 75+, then 70-74, ..."
+ */
+export function campaignText(campaign: Campaign, bandLabels: readonly string[]): string {
+  const supply = [...campaign.schedule]
+    .sort((a, b) => a.fromDay - b.fromDay)
+    .map((step) => `from day ${step.fromDay}, ${formatPersons(step.dosesPerDay)} doses a day`)
+    .join('; ');
+  const priority = campaign.priority.map((group) => bandList(group, bandLabels)).join(', then ');
+  const ceilings = [...new Set(campaign.uptakeCeiling.filter((c) => c > 0))].map((c) => formatPercent(c, 0));
+  const uptake = ceilings.length === 0 ? 'no uptake in any band' : `uptake at most ${ceilings.join(' or ')} of a band (bands with 0% are not offered doses)`;
+  const admission = campaign.efficacyAgainstAdmission ?? campaign.efficacyAgainstDeath;
+  const protection = campaign.protection === 'leaky' ? 'leaky (each vaccinated person\'s risk cut)' : 'all-or-nothing (that share fully protected)';
+  return (
+    `${campaign.name}: ${supply}. Priority: ${priority}; ${uptake}. ` +
+    `Efficacy against infection ${formatPercent(campaign.efficacyAgainstInfection, 0)}, against hospital admission ${formatPercent(admission, 0)}, ` +
+    `against death ${formatPercent(campaign.efficacyAgainstDeath, 0)}, ${protection}, protection after ${campaign.delayToProtectionDays} days on average`
+  );
+}
+
+export function optionSummary(option: PolicyOption, scenario: Scenario, isReference: boolean): OptionSummary {
+  const labels = scenario.ageBands.map((b) => b.label);
+  const phases: PhaseSummary[] = [];
+  for (const phase of [...option.phases].sort((a, b) => a.fromDay - b.fromDay)) {
+    const when = phaseWhenText(phase, scenario.horizonDays);
+    if (when !== null) phases.push({ when, what: phaseMeasuresText(phase, labels) });
+  }
+  const campaign = option.vaccinationCampaign === undefined ? undefined : scenario.vaccinationCampaigns.find((c) => c.name === option.vaccinationCampaign);
+  return {
+    name: option.name,
+    isReference,
+    description: option.description,
+    phases,
+    noMeasures: phases.length === 0 ? `No contact measures: contacts as usual for all ${scenario.horizonDays} days.` : null,
+    vaccination: campaign === undefined ? null : campaignText(campaign, labels),
+  };
+}
+
+/** Summaries of every option, in the scenario's order. */
+export function optionSummaries(scenario: Scenario, referenceIndex: number): OptionSummary[] {
+  return scenario.options.map((o, k) => optionSummary(o, scenario, k === referenceIndex));
+}

@@ -1,0 +1,22 @@
+/** Paper and page settings of a printed report. */
+export const PAPERS = ['A4', 'Letter'] as const;
+export type Paper = (typeof PAPERS)[number];
+export type Orientation = 'portrait' | 'landscape';
+
+export interface ReportMeta {
+  /** Version of Mixwise that computed the results (printed, and part of the fingerprint). */
+  appVersion: string;
+  /** When the report was made; printed in local time with its UTC offset. */
+  generatedAt: Date;
+  /** Full SHA-256 fingerprint from `scenarioFingerprint` (hex). */
+  fingerprint: string;
+  paper: Paper;
+  orientation: Orientation;
+}
+
+/**
+ * Most option columns printed side by side, by orientation; more options print as several
+ * tables of this many columns each (a 45 mm outcome column plus 25-27 mm per option fits the
+ * printable width of A4 and Letter: about 180 mm portrait, 265 mm landscape).
+ */
+export const OPTION_COLUMNS_PER_TABLE: Record<Orientation, number> = { portrait: 5, landscape: 8 };
