@@ -16,7 +16,10 @@ export interface DailySeries {
   susceptible: Float64Array;
   /** Persons currently infected, latent or infectious (E+I), at day d (d = 0..H), by band. Length (H+1)·n. */
   prevalence: Float64Array;
-  /** New infections during day d, i.e. in [d, d+1) (d = 0..H-1), by band, persons. Length H·n. */
+  /**
+   * New infections during day d, i.e. in [d, d+1) (d = 0..H-1), by band, persons; day 0 also holds
+   * the initial infections, so the series adds up to `infectionsByBand`. Length H·n.
+   */
   incidence: Float64Array;
   /**
    * Deaths during day d (d = 0..H-1), all bands together: sum_i IFR_i x incidence_i convolved with
