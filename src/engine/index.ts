@@ -2,7 +2,7 @@
 export * from './scenario.ts';
 export * from './results.ts';
 export { validateScenario, parseScenarioText, formatProblem, formatPath, ScenarioError, type Problem, type ValidationResult } from './validation.ts';
-export { runScenario, runOptions, referenceIndexOf, reciprocityBySetting } from './run.ts';
+export { runScenario, runOptions, referenceIndexOf, reciprocityBySetting, compareWithReference } from './run.ts';
 export { effectiveContactMatrix, reciprocityCheck, correctReciprocity } from './contacts.ts';
 export { phaseAt, changeDays, measuresConstant } from './phases.ts';
 export {

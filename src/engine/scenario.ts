@@ -7,6 +7,7 @@
  */
 import { z } from 'zod';
 import { campaignSchema } from './vaccination/schema.ts';
+import { fitRecordSchema } from './fitting/fitRecord.ts';
 import { DEFAULT_ADMISSION_DELAY, DEFAULT_ICU_PATIENT_WARD_STAY, DEFAULT_ICU_STAY, DEFAULT_WARD_STAY } from './healthcare/defaults.ts';
 
 export const SCENARIO_FORMAT = 'mixwise-scenario';
@@ -56,6 +57,8 @@ export const diseaseSchema = z.object({
   /** h_j, relative infectiousness by band (1 = reference). */
   relativeInfectiousness: z.array(nonNegative).optional(),
   source: z.string().default(''),
+  /** Optional: how R0 was fitted to daily case counts (see src/engine/fitting/fitRecord.ts). */
+  fitRecord: fitRecordSchema.optional(),
 });
 
 export const severitySchema = z.object({

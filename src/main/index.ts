@@ -10,6 +10,7 @@ import { IPC, type MenuCommand, type RecentFile } from '../preload/api.ts';
 import { APP_ENTRY_URL, APP_SCHEME, assetPathFor, mimeTypeFor } from './appProtocol.ts';
 import { CONTENT_SECURITY_POLICY, isAllowedNavigation } from './contentSecurity.ts';
 import { registerIpcHandlers } from './ipcHandlers.ts';
+import { reportPageResponse } from './reportWindow.ts';
 import { menuTemplate } from './menu.ts';
 import { loadRecent, storeRecent, withRecent, withoutRecent } from './recentFiles.ts';
 import { mainWindowOptions } from './windowOptions.ts';
@@ -44,6 +45,8 @@ async function updateRecent(list: RecentFile[]): Promise<void> {
 
 function serveRenderer(): void {
   protocol.handle(APP_SCHEME, async (request) => {
+    const report = reportPageResponse(request.url);
+    if (report !== null) return report;
     const path = assetPathFor(request.url, rendererRoot);
     if (path === null) return new Response('Not found', { status: 404 });
     const response = await net.fetch(pathToFileURL(path).toString());

@@ -5,6 +5,7 @@
  */
 import { z } from 'zod';
 import { IPC } from '../preload/api.ts';
+import { PAPERS } from '../report/reportTypes.ts';
 import { isAllowedNavigation } from './contentSecurity.ts';
 
 const fileName = z
@@ -13,6 +14,33 @@ const fileName = z
   .max(255)
   .refine((s) => !/[\\/\0]/.test(s), { message: 'must be a file name, not a path' });
 const filePath = z.string().min(1).max(4096).refine((s) => !s.includes('\0'), { message: 'must not contain NUL' });
+
+/** Largest report HTML accepted (the demo's report is about 150 kB; 12 options about 0.5 MB). */
+export const MAX_REPORT_HTML_CHARS = 20 * 1024 * 1024;
+/** Largest CSV accepted (the demo's daily series is about 6 MB in long format). */
+export const MAX_CSV_CHARS = 100 * 1024 * 1024;
+
+/** A file name that must end in `.ext` (case-insensitive). */
+const fileNameWith = (ext: string) =>
+  fileName.refine((s) => s.toLowerCase().endsWith(`.${ext}`), { message: `must end in .${ext}` });
+
+/**
+ * The report's HTML: a whole document, within the size cap, with no script element. It is shown
+ * with JavaScript off under a no-script CSP anyway; refusing scripts here keeps a forged message
+ * from ever reaching that window. (The report escapes every user text, so `<script` never occurs
+ * in a genuine one.)
+ */
+const reportHtml = z
+  .string()
+  .max(MAX_REPORT_HTML_CHARS, { message: `must be at most ${MAX_REPORT_HTML_CHARS} characters` })
+  .refine((s) => /^\s*<!DOCTYPE html>/i.test(s), { message: 'must be an HTML document' })
+  .refine((s) => !/<script/i.test(s), { message: 'must not contain a script element' });
+
+const reportDocument = {
+  html: reportHtml,
+  paper: z.enum(PAPERS),
+  orientation: z.enum(['portrait', 'landscape']),
+};
 
 /** Payload schema of every renderer -> main channel. */
 export const ipcPayloadSchemas = {
@@ -24,6 +52,11 @@ export const ipcPayloadSchemas = {
     .strict(),
   [IPC.print]: z.undefined(),
   [IPC.exportPdf]: z.object({ suggestedName: fileName }).strict(),
+  [IPC.printReport]: z.object(reportDocument).strict(),
+  [IPC.exportReportPdf]: z.object({ ...reportDocument, suggestedName: fileNameWith('pdf') }).strict(),
+  [IPC.exportCsv]: z
+    .object({ suggestedName: fileNameWith('csv'), text: z.string().max(MAX_CSV_CHARS, { message: `must be at most ${MAX_CSV_CHARS} characters` }) })
+    .strict(),
   [IPC.documentState]: z.object({ title: z.string().max(500), dirty: z.boolean() }).strict(),
 } as const;
 

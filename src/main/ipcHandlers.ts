@@ -9,6 +9,8 @@ import { IPC, type OpenedScenarioFile, type RecentFile, type SaveOutcome } from 
 import { checkIpcMessage, type IpcChannel, type IpcPayload } from './ipcContract.ts';
 import { readScenarioFile, saveScenarioText } from './scenarioFiles.ts';
 import { writeFileAtomic } from './atomicWrite.ts';
+import { reportPdfOptions } from './reportPrinting.ts';
+import { printReportContents, withReportWindow } from './reportWindow.ts';
 
 export interface HandlerContext {
   devServerUrl: string | undefined;
@@ -94,6 +96,33 @@ export function registerIpcHandlers(ctx: HandlerContext): void {
     if (picked.canceled || picked.filePath === undefined) return { ok: false, cancelled: true };
     const pdf = await window.webContents.printToPDF({ printBackground: true, landscape: true, pageSize: 'A4' });
     await writeFileAtomic(picked.filePath, pdf);
+    return { ok: true, file: { name: basename(picked.filePath), path: picked.filePath } };
+  });
+
+  handle(IPC.printReport, ctx, async (report, window) => {
+    await withReportWindow(report.html, window, (contents) => printReportContents(contents, report));
+  });
+
+  handle(IPC.exportReportPdf, ctx, async (report, window): Promise<SaveOutcome> => {
+    const picked = await dialog.showSaveDialog(window, { title: 'Export report as PDF', defaultPath: report.suggestedName, filters: [{ name: 'PDF', extensions: ['pdf'] }] });
+    if (picked.canceled || picked.filePath === undefined) return { ok: false, cancelled: true };
+    try {
+      const pdf = await withReportWindow(report.html, window, (contents) => contents.printToPDF(reportPdfOptions(report)));
+      await writeFileAtomic(picked.filePath, pdf);
+    } catch (err) {
+      return { ok: false, cancelled: false, message: `The PDF was not written: ${(err as Error).message}` };
+    }
+    return { ok: true, file: { name: basename(picked.filePath), path: picked.filePath } };
+  });
+
+  handle(IPC.exportCsv, ctx, async ({ suggestedName, text }, window): Promise<SaveOutcome> => {
+    const picked = await dialog.showSaveDialog(window, { title: 'Export CSV', defaultPath: suggestedName, filters: [{ name: 'CSV', extensions: ['csv'] }] });
+    if (picked.canceled || picked.filePath === undefined) return { ok: false, cancelled: true };
+    try {
+      await writeFileAtomic(picked.filePath, text);
+    } catch (err) {
+      return { ok: false, cancelled: false, message: `The CSV was not written: ${(err as Error).message}` };
+    }
     return { ok: true, file: { name: basename(picked.filePath), path: picked.filePath } };
   });
 

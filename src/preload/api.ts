@@ -4,6 +4,7 @@
  *
  * This file holds types and channel names only, so main, preload and renderer can all import it.
  */
+import type { Orientation as ReportOrientation, Paper as ReportPaper } from '../report/reportTypes.ts';
 
 /** A scenario file the user picked: its display name, where it lives (desktop only) and its text. */
 export interface OpenedScenarioFile {
@@ -35,12 +36,17 @@ export const MENU_COMMANDS = [
   'save-as',
   'print',
   'export-pdf',
+  'print-report',
+  'export-report-pdf',
+  'export-table-csv',
+  'export-daily-csv',
   'undo',
   'redo',
   'view-board',
   'view-curves',
   'view-by-age',
   'view-assumptions',
+  'view-report',
   'show-model-notes',
   'show-about',
 ] as const;
@@ -61,6 +67,21 @@ export interface SaveRequest {
   text: string;
 }
 
+/** The printable policy options report as the renderer built it (src/report), with its page settings. */
+export interface ReportDocument {
+  /** Self-contained HTML (styles and SVG charts inline, no script). */
+  html: string;
+  paper: ReportPaper;
+  orientation: ReportOrientation;
+}
+
+/** A CSV file to write (options table or daily series). */
+export interface CsvExportRequest {
+  /** Suggested file name for the dialog / download, e.g. `my-scenario-table.csv`. */
+  suggestedName: string;
+  text: string;
+}
+
 export type SaveOutcome = { ok: true; file: SavedFile } | { ok: false; cancelled: true } | { ok: false; cancelled: false; message: string };
 
 export interface MixwiseHost {
@@ -76,6 +97,12 @@ export interface MixwiseHost {
   print(): Promise<void>;
   /** Save the current view as PDF; in web mode this opens the print dialog (choose "Save as PDF"). */
   exportPdf(suggestedName: string): Promise<SaveOutcome>;
+  /** Print the report (system print dialog); desktop prints it from a hidden window, web mode from a frame of this page. */
+  printReport(report: ReportDocument): Promise<void>;
+  /** Save the report as PDF (desktop: a save dialog; web mode: the print dialog, choose "Save as PDF"). */
+  exportReportPdf(report: ReportDocument, suggestedName: string): Promise<SaveOutcome>;
+  /** Write a CSV file (desktop: a save dialog and an atomic write; web mode: a download). */
+  exportCsv(request: CsvExportRequest): Promise<SaveOutcome>;
   setDocumentState(state: DocumentState): void;
   /** Subscribe to menu commands (`open-recent` carries the entry's path); returns the unsubscribe function. */
   onMenuCommand(listener: (command: MenuCommand, path?: string) => void): () => void;
@@ -89,6 +116,9 @@ export const IPC = {
   save: 'scenario:save',
   print: 'view:print',
   exportPdf: 'view:export-pdf',
+  printReport: 'report:print',
+  exportReportPdf: 'report:export-pdf',
+  exportCsv: 'report:export-csv',
   documentState: 'document:state',
   menuCommand: 'menu:command',
 } as const;

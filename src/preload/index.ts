@@ -13,6 +13,10 @@ const host: MixwiseHost = {
   saveScenario: (request) => ipcRenderer.invoke(IPC.save, { path: request.path, suggestedName: request.suggestedName, text: request.text }),
   print: () => ipcRenderer.invoke(IPC.print),
   exportPdf: (suggestedName) => ipcRenderer.invoke(IPC.exportPdf, { suggestedName }),
+  printReport: (report) => ipcRenderer.invoke(IPC.printReport, { html: report.html, paper: report.paper, orientation: report.orientation }),
+  exportReportPdf: (report, suggestedName) =>
+    ipcRenderer.invoke(IPC.exportReportPdf, { html: report.html, paper: report.paper, orientation: report.orientation, suggestedName }),
+  exportCsv: (request) => ipcRenderer.invoke(IPC.exportCsv, { suggestedName: request.suggestedName, text: request.text }),
   setDocumentState: (state) => ipcRenderer.send(IPC.documentState, { title: state.title, dirty: state.dirty }),
   onMenuCommand(listener) {
     const forward = (_event: unknown, command: unknown, path: unknown) => {

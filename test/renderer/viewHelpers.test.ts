@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { avertedShare, formatGrowthRate, formatPercent, formatPersons, formatR, formatSignedPersons, relativeChange } from '../../src/renderer/lib/format.ts';
+import { formatGrowthRate, formatPercent, formatPersons, formatR, formatSignedPersons, relativeChange } from '../../src/renderer/lib/format.ts';
 import { changeShade, freeColourSlot, optionColour, optionDash, OPTION_COLOURS } from '../../src/renderer/lib/palette.ts';
 import { commandForKey, keepsNativeUndo } from '../../src/renderer/lib/shortcuts.ts';
 import { totalOverBands } from '../../src/renderer/lib/seriesTotals.ts';
@@ -26,7 +26,6 @@ describe('format', () => {
     expect(formatSignedPersons(-53.2)).toBe('−53');
     expect(relativeChange(90, 100)).toBeCloseTo(-0.1);
     expect(relativeChange(1, 0)).toBeNull();
-    expect(avertedShare(90, 100)).toBeCloseTo(0.1);
   });
 });
 

@@ -1,12 +1,27 @@
 /**
  * The engine worker: runs every option of a scenario off the main thread.
  * A newer `run` cancels an older one at the next option boundary (see engineProtocol.ts).
+ * `orders` answers with the vaccination order templates and the coverage needed for R < 1; it
+ * waits until no run is going, so it never delays the redraw after an edit (newest request only).
  */
-import { prepareScenario, reciprocityBySetting, referenceIndexOf, simulateOption } from '../../engine/index.ts';
+import {
+  compareWithReference,
+  coverageNeededForRBelowOne,
+  ORDER_TEMPLATES,
+  prepareScenario,
+  priorityFromTemplate,
+  reciprocityBySetting,
+  referenceIndexOf,
+  simulateOption,
+} from '../../engine/index.ts';
 import type { OptionResults } from '../../engine/results.ts';
-import { transferablesOf, type EngineReply, type EngineRequest } from './engineProtocol.ts';
+import type { Scenario } from '../../engine/scenario.ts';
+import { transferablesOf, type EngineReply, type EngineRequest, type OrdersInfo } from './engineProtocol.ts';
 
 let newestRunId = -1;
+/** Runs started and not yet finished or cancelled. */
+let activeRuns = 0;
+let pendingOrders: { requestId: number; scenario: Scenario; optionIndex: number } | null = null;
 
 /** Lets queued messages (a newer run) arrive before the next option starts. */
 function yieldToMessages(): Promise<void> {
@@ -17,7 +32,7 @@ function reply(message: EngineReply, transfer: ArrayBuffer[] = []): void {
   (self as unknown as Worker).postMessage(message, transfer);
 }
 
-async function run({ runId, scenario }: EngineRequest): Promise<void> {
+async function run({ runId, scenario }: { runId: number; scenario: Scenario }): Promise<void> {
   await yieldToMessages();
   if (runId !== newestRunId) return reply({ type: 'cancelled', runId });
   const started = performance.now();
@@ -29,12 +44,14 @@ async function run({ runId, scenario }: EngineRequest): Promise<void> {
       await yieldToMessages();
       if (runId !== newestRunId) return reply({ type: 'cancelled', runId });
     }
+    const referenceIndex = referenceIndexOf(scenario);
+    for (const o of options) o.comparison = compareWithReference(o, options[referenceIndex]);
     const results = {
       title: scenario.title,
       ageBands: scenario.ageBands.map((b) => b.label),
       r0: prepared.r0,
       beta: prepared.beta,
-      referenceIndex: referenceIndexOf(scenario),
+      referenceIndex,
       options,
       reciprocity: reciprocityBySetting(scenario),
     };
@@ -44,8 +61,35 @@ async function run({ runId, scenario }: EngineRequest): Promise<void> {
   }
 }
 
+function answerOrdersWhenIdle(): void {
+  if (activeRuns > 0 || pendingOrders === null) return;
+  const { requestId, scenario, optionIndex } = pendingOrders;
+  pendingOrders = null;
+  try {
+    const prepared = prepareScenario(scenario);
+    const option = scenario.options[optionIndex];
+    const campaign = scenario.vaccinationCampaigns.find((c) => c.name === option?.vaccinationCampaign);
+    const info: OrdersInfo = {
+      templates: ORDER_TEMPLATES.map((t) => ({ ...t, priority: priorityFromTemplate(t.id, prepared) })),
+      coverage: option !== undefined && campaign !== undefined ? coverageNeededForRBelowOne(prepared, option, campaign) : null,
+    };
+    reply({ type: 'orders', requestId, orders: info });
+  } catch (err) {
+    reply({ type: 'orders-failed', requestId, message: err instanceof Error ? err.message : String(err) });
+  }
+}
+
 self.addEventListener('message', (event: MessageEvent<EngineRequest>) => {
-  if (event.data?.type !== 'run') return;
-  newestRunId = Math.max(newestRunId, event.data.runId);
-  void run(event.data);
+  const request = event.data;
+  if (request?.type === 'run') {
+    newestRunId = Math.max(newestRunId, request.runId);
+    activeRuns++;
+    void run(request).finally(() => {
+      activeRuns--;
+      answerOrdersWhenIdle();
+    });
+  } else if (request?.type === 'orders') {
+    pendingOrders = request;
+    setTimeout(answerOrdersWhenIdle, 0);
+  }
 });

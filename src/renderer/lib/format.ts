@@ -65,7 +65,12 @@ export function relativeChange(value: number, reference: number): number | null 
   return reference === 0 ? (value === 0 ? 0 : null) : (value - reference) / Math.abs(reference);
 }
 
-/** Share of the reference averted: (ref − v) / ref; null when the reference is 0. */
-export function avertedShare(value: number, reference: number): number | null {
-  return reference === 0 ? null : (reference - value) / reference;
+/** Beds in use against beds available: "4,311 / 110 beds". */
+export function formatBedsAgainstCapacity(inUse: number, capacity: number): string {
+  return `${formatPersons(inUse)} / ${formatPersons(capacity)} beds`;
+}
+
+/** A count per 1,000 doses, one decimal: "4.1 per 1,000 doses". */
+export function formatPer1000Doses(value: number | null): string {
+  return value === null || !Number.isFinite(value) ? '—' : `${value.toFixed(1)} per 1,000 doses`;
 }

@@ -2,9 +2,12 @@
  * Option colours: the eight-colour palette of Okabe M, Ito K (2008), "Color Universal
  * Design (CUD): how to make figures and presentations that are friendly to colorblind
  * people" (jfly.uni-koeln.de/color), minus its yellow (too faint on white), plus dark grey.
+ * One list for the app and the printed report (src/report/palette.ts).
  * Each option holds a colour slot for life, so it keeps its colour across every view.
  */
-export const OPTION_COLOURS = ['#0072B2', '#E69F00', '#009E73', '#D55E00', '#CC79A7', '#56B4E9', '#444444'] as const;
+import { OPTION_COLOURS } from '../../report/palette.ts';
+
+export { OPTION_COLOURS };
 
 /** Dash patterns used once the colours run out (slot >= 7), so lines stay distinguishable. */
 const DASHES: number[][] = [[], [6, 4], [2, 3], [10, 3, 2, 3]];

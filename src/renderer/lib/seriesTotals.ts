@@ -2,9 +2,12 @@
  * Daily series summed over age bands, for the Curves view. The engine stores series
  * band-major per day (`[d * bands + i]`, see results.ts); this only adds the bands up.
  */
-import type { DailySeries } from '../../engine/results.ts';
+import type { DailySeries, OptionResults } from '../../engine/results.ts';
 
-export type CurveMetric = 'prevalence' | 'incidence' | 'deaths' | 'rt';
+export type CurveMetric = 'prevalence' | 'incidence' | 'deaths' | 'rt' | 'wardOccupancy' | 'icuOccupancy';
+
+/** Metrics read from the engine's hospital series (only when the scenario has a hospital section). */
+export const OCCUPANCY_METRICS: readonly CurveMetric[] = ['wardOccupancy', 'icuOccupancy'];
 
 /** Total over bands for each day: a series of length days+1 (prevalence) or days (incidence, deaths). */
 export function totalOverBands(values: Float64Array, bands: number): number[] {
@@ -19,14 +22,22 @@ export function totalOverBands(values: Float64Array, bands: number): number[] {
 }
 
 /** The curve of one option for a metric: persons (prevalence), persons per day (incidence, deaths) or R(t). */
-export function curveOf(series: DailySeries, metric: CurveMetric): number[] {
+export function curveOf(series: DailySeries, metric: Exclude<CurveMetric, 'wardOccupancy' | 'icuOccupancy'>): number[] {
   if (metric === 'rt') return Array.from(series.rt);
   return totalOverBands(series[metric], series.bands);
 }
 
-export const METRIC_LABELS: Record<CurveMetric, { title: string; axis: string }> = {
-  prevalence: { title: 'Infected now (latent or infectious)', axis: 'persons' },
-  incidence: { title: 'New infections per day', axis: 'persons per day' },
-  deaths: { title: 'Deaths per day', axis: 'persons per day' },
-  rt: { title: 'R(t): reproduction number with current susceptibles and measures', axis: 'R(t)' },
+/** The curve of one option for any metric; beds in use come from the engine's hospital series (empty without one). */
+export function curveOfOption(o: OptionResults, metric: CurveMetric): number[] {
+  if (metric === 'wardOccupancy' || metric === 'icuOccupancy') return o.healthcare === null ? [] : Array.from(o.healthcare.series[metric]);
+  return curveOf(o.series, metric);
+}
+
+export const METRIC_LABELS: Record<CurveMetric, { title: string; axis: string; short: string }> = {
+  prevalence: { title: 'Infected now (latent or infectious)', axis: 'persons', short: 'Infected now' },
+  incidence: { title: 'New infections per day', axis: 'persons per day', short: 'New infections' },
+  deaths: { title: 'Deaths per day', axis: 'persons per day', short: 'Deaths' },
+  rt: { title: 'R(t): reproduction number with current susceptibles and measures', axis: 'R(t)', short: 'R(t)' },
+  wardOccupancy: { title: 'Ward beds in use, against ward capacity', axis: 'beds in use', short: 'Ward beds' },
+  icuOccupancy: { title: 'ICU beds in use, against ICU capacity', axis: 'beds in use', short: 'ICU beds' },
 };

@@ -19,13 +19,13 @@ export function commandForKey(k: KeyPress): MenuCommand | null {
     if (key === 'n' && !k.shiftKey) return 'new-from-demo';
     if (key === 'o' && !k.shiftKey) return 'open';
     if (key === 's') return k.shiftKey ? 'save-as' : 'save';
-    if (key === 'p' && !k.shiftKey) return 'print';
-    if (key === 'e' && k.shiftKey) return 'export-pdf';
+    if (key === 'p' && !k.shiftKey) return 'print-report';
+    if (key === 'e') return k.shiftKey ? 'export-report-pdf' : 'export-table-csv';
     if (key === 'z') return k.shiftKey ? 'redo' : 'undo';
     if (key === 'y' && !k.shiftKey) return 'redo';
   }
   if (k.altKey && !mod && !k.shiftKey) {
-    const views: Record<string, MenuCommand> = { '1': 'view-board', '2': 'view-curves', '3': 'view-by-age', '4': 'view-assumptions' };
+    const views: Record<string, MenuCommand> = { '1': 'view-board', '2': 'view-curves', '3': 'view-by-age', '4': 'view-assumptions', '5': 'view-report' };
     if (views[key]) return views[key];
   }
   if (key === 'f1' && !mod && !k.altKey) return 'show-model-notes';

@@ -69,6 +69,42 @@ function download(name: string, blob: Blob): void {
   setTimeout(() => URL.revokeObjectURL(url), 10_000);
 }
 
+/**
+ * Prints a whole HTML document (the report) with the browser's print dialog, from a frame of
+ * this page: sandboxed (no scripts; `allow-modals` lets print() open the dialog,
+ * `allow-same-origin` lets this page call it), laid out off screen, removed after printing.
+ */
+function printHtmlInFrame(html: string): Promise<void> {
+  document.querySelectorAll('iframe[data-print-frame]').forEach((old) => old.remove());
+  return new Promise((resolve, reject) => {
+    const frame = document.createElement('iframe');
+    frame.dataset.printFrame = 'report';
+    frame.setAttribute('sandbox', 'allow-same-origin allow-modals');
+    frame.setAttribute('aria-hidden', 'true');
+    frame.tabIndex = -1;
+    frame.title = 'Report for printing';
+    frame.style.cssText = 'position: fixed; left: 0; top: 0; width: 0; height: 0; border: 0; opacity: 0; pointer-events: none;';
+    frame.addEventListener(
+      'load',
+      () => {
+        const target = frame.contentWindow;
+        if (target === null) {
+          frame.remove();
+          reject(new Error('The report could not be prepared for printing.'));
+          return;
+        }
+        // (Not focused first: focus would stay in the hidden frame and the app's shortcuts would stop.)
+        target.addEventListener('afterprint', () => frame.remove(), { once: true });
+        target.print();
+        resolve();
+      },
+      { once: true },
+    );
+    frame.srcdoc = html;
+    document.body.append(frame);
+  });
+}
+
 export function createWebHost(): MixwiseHost {
   return {
     kind: 'web',
@@ -99,6 +135,18 @@ export function createWebHost(): MixwiseHost {
       // Browsers have no silent PDF export: their print dialog offers "Save as PDF".
       window.print();
       return { ok: false, cancelled: true };
+    },
+    async printReport(report) {
+      await printHtmlInFrame(report.html);
+    },
+    async exportReportPdf(report): Promise<SaveOutcome> {
+      // As for exportPdf: the print dialog's "Save as PDF" writes the file.
+      await printHtmlInFrame(report.html);
+      return { ok: false, cancelled: true };
+    },
+    async exportCsv({ suggestedName, text }): Promise<SaveOutcome> {
+      download(suggestedName, new Blob([text], { type: 'text/csv;charset=utf-8' }));
+      return { ok: true, file: { name: suggestedName, path: null } };
     },
     setDocumentState({ title, dirty }) {
       document.title = `${dirty ? '• ' : ''}${title} — Mixwise`;

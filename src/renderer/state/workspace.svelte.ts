@@ -8,6 +8,7 @@ import type { Scenario } from '../../engine/scenario.ts';
 import type { ScenarioResults } from '../../engine/results.ts';
 import { validateScenario, parseScenarioText, formatProblem } from '../../engine/validation.ts';
 import { EngineClient } from '../lib/engineClient.ts';
+import type { OrdersInfo } from '../lib/engineProtocol.ts';
 import { pushHistory, redoHistory, startHistory, undoHistory, type HistoryState } from '../lib/history.ts';
 import { documentFor, replaceScenario, type WorkingDocument } from '../lib/scenarioEdits.ts';
 import { clearAutosave, loadAutosave, storeAutosave, type AutosavedCopy } from '../lib/autosave.ts';
@@ -15,7 +16,7 @@ import { DEMO_FILE_NAME, demoScenario } from '../lib/demo.ts';
 import { host } from '../lib/host.ts';
 import type { RecentFile } from '../../preload/api.ts';
 
-export type ViewName = 'board' | 'curves' | 'by-age' | 'assumptions';
+export type ViewName = 'board' | 'curves' | 'by-age' | 'assumptions' | 'report';
 export type Notice = { kind: 'info' | 'error'; text: string };
 
 /** Performance mark/measure names for the edit-to-redraw time (read by the e2e run). */
@@ -43,6 +44,9 @@ class Workspace {
   notice = $state<Notice | null>(null);
   recent = $state.raw<RecentFile[]>([]);
   recovered = $state.raw<AutosavedCopy | null>(null);
+  /** Vaccination order templates and coverage needed for R < 1, as the engine gave them for `scenario` and `optionIndex`. */
+  orders = $state.raw<{ scenario: Scenario; optionIndex: number; info: OrdersInfo } | null>(null);
+  ordersError = $state<string | null>(null);
 
   readonly doc = $derived(this.history.present);
   readonly scenario = $derived(this.history.present.scenario);
@@ -51,6 +55,7 @@ class Workspace {
   readonly canRedo = $derived(this.history.future.length > 0);
 
   private engine: EngineClient | null = null;
+  private ordersRequest: { scenario: Scenario; optionIndex: number } | null = null;
   private editPending = false;
   private autosaveTimer: ReturnType<typeof setTimeout> | undefined;
 
@@ -62,11 +67,28 @@ class Workspace {
       onFailure: (message) => {
         this.engineError = message;
       },
+      onOrders: (info) => {
+        if (this.ordersRequest !== null) this.orders = { ...this.ordersRequest, info };
+        this.ordersError = null;
+      },
+      onOrdersFailure: (message) => {
+        this.ordersError = message;
+      },
     });
+    if (this.ordersRequest !== null) this.engine.orders(this.ordersRequest.scenario, this.ordersRequest.optionIndex);
     this.recovered = loadAutosave();
     this.host();
     void this.refreshRecent();
     this.recompute();
+  }
+
+  /** Asks the engine for order templates and option `optionIndex`'s coverage needed (unless already asked for this scenario). */
+  requestOrders(optionIndex: number): void {
+    const scenario = this.history.present.scenario;
+    const asked = this.ordersRequest;
+    if (asked !== null && asked.scenario === scenario && asked.optionIndex === optionIndex) return;
+    this.ordersRequest = { scenario, optionIndex };
+    this.engine?.orders(scenario, optionIndex);
   }
 
   private recompute(): void {

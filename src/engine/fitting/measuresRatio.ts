@@ -1,0 +1,73 @@
+/**
+ * How much a phase's measures lower R: the measures ratio
+ *
+ *   ρ = λ(K with the phase's measures) / λ(K without measures),
+ *
+ * both next-generation matrices K = D diag(S) M (ngm.ts) taken at the scenario's initial
+ * susceptibles S (day 0) and the same transmission rate, so beta cancels and is set to 1.
+ * λ is the dominant eigenvalue (Diekmann, Heesterbeek & Roberts 2010, J R Soc Interface 7:873).
+ * A growth rate fitted while the measures were in force gives R under measures; dividing by ρ
+ * gives R0 (r0FromFit). Which phase: the one an option has in force on the window's first day,
+ * counting case days and scenario days from the same day 0.
+ */
+import { phaseAt } from '../phases.ts';
+import { prepareScenario } from '../prepare.ts';
+import { dominantEigenvalue, nextGenerationMatrixInto } from '../ngm.ts';
+import type { Phase, Scenario } from '../scenario.ts';
+import { transmissionMatrixInto } from '../transmission.ts';
+
+/** Dominant NGM eigenvalue at transmission rate 1 and the initial susceptibles, under `phase` (null = none). */
+function eigenvalueAtUnitBeta(scenario: Scenario, phase: Phase | null): number {
+  const prepared = prepareScenario(scenario);
+  const n = prepared.bands.bands;
+  const m = transmissionMatrixInto(new Float64Array(n * n), scenario, prepared.bands, 1, phase);
+  const k = nextGenerationMatrixInto(new Float64Array(n * n), m, prepared.initialSusceptible, scenario.disease.infectiousPeriodDays);
+  return dominantEigenvalue(k, n);
+}
+
+export interface MeasuresRatio {
+  /** ρ (dimensionless); 1 when the option has no phase in force on `day`. */
+  ratio: number;
+  /** Name of the option whose measures were in force. */
+  option: string;
+  /** Day looked up (the window's first day). */
+  day: number;
+  /** The phase in force on `day`, or null. */
+  phase: { fromDay: number; toDay: number } | null;
+  /** One plain sentence for notes and the report. */
+  note: string;
+}
+
+export type MeasuresRatioResult = { ok: true; value: MeasuresRatio } | { ok: false; problems: { field: string; rule: string; value?: string }[] };
+
+/** ρ for an explicit phase (null gives 1). Throws nothing; 0 / 0 (no transmission at all) gives NaN. */
+export function measuresRatioOfPhase(scenario: Scenario, phase: Phase | null): number {
+  if (phase === null) return 1;
+  return eigenvalueAtUnitBeta(scenario, phase) / eigenvalueAtUnitBeta(scenario, null);
+}
+
+/** ρ for the phase option `optionName` has in force on `day` (the fitting window's first day). */
+export function measuresRatioForOption(scenario: Scenario, optionName: string, day: number): MeasuresRatioResult {
+  const option = scenario.options.find((o) => o.name === optionName);
+  if (option === undefined) {
+    return { ok: false, problems: [{ field: 'measuresOption', rule: `must name a policy option of the scenario (${scenario.options.map((o) => JSON.stringify(o.name)).join(', ')})`, value: optionName }] };
+  }
+  const phase = phaseAt(option, day);
+  if (phase === null) {
+    return { ok: true, value: { ratio: 1, option: option.name, day, phase: null, note: `Option "${option.name}" has no measures in force on day ${day}: nothing divided out (ratio 1).` } };
+  }
+  const ratio = measuresRatioOfPhase(scenario, phase);
+  if (!(Number.isFinite(ratio) && ratio > 0)) {
+    return { ok: false, problems: [{ field: 'measuresOption', rule: `its measures on day ${day} stop all transmission (ratio ${ratio}), so R0 cannot be back-calculated`, value: optionName }] };
+  }
+  return {
+    ok: true,
+    value: {
+      ratio,
+      option: option.name,
+      day,
+      phase: { fromDay: phase.fromDay, toDay: phase.toDay },
+      note: `Measures of option "${option.name}" (phase days ${phase.fromDay}-${phase.toDay}) were in force on day ${day}; they scale the dominant next-generation-matrix eigenvalue by ${ratio.toPrecision(4)}, so R0 = R in the window / ${ratio.toPrecision(4)}.`,
+    },
+  };
+}

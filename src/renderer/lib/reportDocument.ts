@@ -1,0 +1,45 @@
+/**
+ * The report and its exports for the scenario on screen, built with the same code as
+ * `mixwise report` (src/report), so the app, the CLI and a printout agree to the character.
+ */
+import type { ScenarioResults } from '../../engine/results.ts';
+import type { Scenario } from '../../engine/scenario.ts';
+import { buildReportHtml, dailySeriesCsv, optionsTableCsv, scenarioFingerprint, shortFingerprint, type Orientation, type Paper } from '../../report/index.ts';
+import type { ReportDocument } from '../../preload/api.ts';
+import { APP_VERSION } from './appVersion.ts';
+
+export interface ReportSettings {
+  paper: Paper;
+  orientation: Orientation;
+}
+
+export interface BuiltReport extends ReportDocument {
+  /** Full SHA-256 fingerprint of the scenario and program version (hex). */
+  fingerprint: string;
+  /** The short form printed on every page. */
+  shortFingerprint: string;
+  generatedAt: Date;
+}
+
+/** The report for `scenario` and its `results` (results must be the engine's for exactly this scenario). */
+export async function buildReport(scenario: Scenario, results: ScenarioResults, settings: ReportSettings, generatedAt: Date): Promise<BuiltReport> {
+  const fingerprint = await scenarioFingerprint(scenario, APP_VERSION);
+  const html = buildReportHtml(scenario, results, { appVersion: APP_VERSION, generatedAt, fingerprint, ...settings });
+  return { html, paper: settings.paper, orientation: settings.orientation, fingerprint, shortFingerprint: shortFingerprint(fingerprint), generatedAt };
+}
+
+export type CsvExport = 'table' | 'daily-series';
+
+/** The CSV text of an export: the options table (one row per option) or the daily series (long format). */
+export function csvText(kind: CsvExport, results: ScenarioResults): string {
+  return kind === 'table' ? optionsTableCsv(results) : dailySeriesCsv(results);
+}
+
+/**
+ * File name for an export of the document `fileName`: "city.json" -> "city-report.pdf",
+ * "city-table.csv", "city-daily-series.csv". Characters a file name cannot hold become "-".
+ */
+export function exportFileName(fileName: string, what: 'report' | CsvExport, extension: 'pdf' | 'csv'): string {
+  const base = fileName.replace(/\.json$/i, '').replace(/[\\/:*?"<>|\u0000-\u001f]/g, '-').trim().slice(0, 180) || 'scenario';
+  return `${base}-${what}.${extension}`;
+}
