@@ -1,16 +1,6 @@
 import { defineConfig } from '@playwright/test';
-
-/** Debian's chromium (installed with apt-get); never a downloaded browser. Flags keep it offline and quiet. */
-const CHROMIUM_ARGS = [
-  '--headless',
-  '--no-sandbox',
-  '--disable-gpu',
-  '--disable-quic',
-  '--no-first-run',
-  '--disable-background-networking',
-  '--disable-component-update',
-  '--disable-sync',
-];
+// Debian's chromium (installed with apt-get), never a downloaded browser, with the same flags as `mixwise report`.
+import { CHROMIUM_ARGS, chromiumPath } from './src/cli/chromium.ts';
 
 const PORT = 4173;
 
@@ -25,7 +15,7 @@ export default defineConfig({
     baseURL: `http://127.0.0.1:${PORT}/`,
     viewport: { width: 1400, height: 1000 },
     acceptDownloads: true,
-    launchOptions: { executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium', args: CHROMIUM_ARGS },
+    launchOptions: { executablePath: chromiumPath(process.env), args: [...CHROMIUM_ARGS] },
   },
   webServer: {
     // Build, then serve exactly the bundle Electron loads (web mode).

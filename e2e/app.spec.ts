@@ -2,30 +2,14 @@
  * The app in web mode (the same bundle Electron loads), in Debian's chromium.
  */
 import { expect, test, type Page } from '@playwright/test';
-import { mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { tmpdir } from 'node:os';
 import { formatPercent, formatR } from '../src/renderer/lib/format.ts';
 import { parseScenarioText } from '../src/engine/index.ts';
 import { cliDemoResults, demoScenario, engineRStart } from './engineReference.ts';
+import { ARTIFACTS, columns, openApp, settled } from './helpers.ts';
 
-const ARTIFACTS = 'e2e-artifacts';
-mkdirSync(ARTIFACTS, { recursive: true });
-
-/** Waits until the newest results are shown (no stale marker). */
-async function settled(page: Page) {
-  await expect(page.getByTestId('run-status')).toHaveAttribute('data-stale', 'false', { timeout: 20_000 });
-}
-
-async function openApp(page: Page) {
-  const errors: string[] = [];
-  page.on('pageerror', (e) => errors.push(e.message));
-  await page.goto('/');
-  await settled(page);
-  return errors;
-}
-
-const columns = (page: Page) => page.locator('[data-testid^="option-column-"]');
 const optionNamed = (page: Page, name: string) => page.locator('[data-testid^="option-name-"]', { hasText: name });
 
 test('the demo loads computed, with the engine\'s R at start and attack rate on the board', async ({ page }) => {

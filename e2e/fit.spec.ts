@@ -10,9 +10,8 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { formatR } from '../src/renderer/lib/format.ts';
 import { demoScenario, engineRStart } from './engineReference.ts';
+import { ARTIFACTS, openApp, settled } from './helpers.ts';
 
-const ARTIFACTS = 'e2e-artifacts';
-mkdirSync(ARTIFACTS, { recursive: true });
 const CASES = 'resources/example-cases.csv';
 
 /** `npx mixwise fit CASES --scenario demo --format json` with extra arguments. */
@@ -21,20 +20,13 @@ function cliFit(...extra: string[]): { r0: number; growthRatePerDay: number; win
   return JSON.parse(out);
 }
 
-async function settled(page: Page) {
-  await expect(page.getByTestId('run-status')).toHaveAttribute('data-stale', 'false', { timeout: 20_000 });
-}
-
 async function fitted(page: Page) {
   await expect(page.getByTestId('fit-results')).toHaveAttribute('data-busy', 'false', { timeout: 20_000 });
   await expect(page.getByTestId('fit-r0')).toBeVisible();
 }
 
 async function openFitPanel(page: Page): Promise<string[]> {
-  const errors: string[] = [];
-  page.on('pageerror', (e) => errors.push(e.message));
-  await page.goto('/');
-  await settled(page);
+  const errors = await openApp(page);
   await page.getByRole('tab', { name: 'Assumptions' }).click();
   await page.getByTestId('fit-file').setInputFiles(CASES);
   await fitted(page);
@@ -88,10 +80,12 @@ test('dragging on the chart picks the window, and the fit matches the CLI for it
   await page.mouse.move(box.x + box.width * 0.5, y, { steps: 5 });
   await page.mouse.move(box.x + box.width * 0.7, y, { steps: 5 });
   await page.mouse.up();
+  // The window fields update once the drag has been handled; only then does a new fit start.
+  const fromValue = async () => Number(await page.getByTestId('fit-from').inputValue());
+  await expect.poll(fromValue, { timeout: 10_000 }).toBeGreaterThan(3);
   await fitted(page);
-  const from = Number(await page.getByTestId('fit-from').inputValue());
+  const from = await fromValue();
   const to = Number(await page.getByTestId('fit-to').inputValue());
-  expect(from).toBeGreaterThan(3);
   expect(to).toBeLessThan(31);
   expect(to - from).toBeGreaterThan(8);
   const cli = cliFit('--from', String(from), '--to', String(to));

@@ -6,28 +6,18 @@
  * e2e-artifacts/view-report.png.
  */
 import { expect, test, type FrameLocator, type Page } from '@playwright/test';
-import { execFileSync } from 'node:child_process';
-import { mkdirSync, readFileSync } from 'node:fs';
+import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { fileURLToPath } from 'node:url';
 import Papa from 'papaparse';
 import { formatPersons, formatR, shortFingerprint } from '../src/report/index.ts';
+import { ARTIFACTS, DEMO, mixwise, openApp } from './helpers.ts';
 
-const ROOT = fileURLToPath(new URL('..', import.meta.url));
-const BIN = join(ROOT, 'bin/mixwise.mjs');
-const DEMO = join(ROOT, 'resources/demo-scenario.json');
-const ARTIFACTS = join(ROOT, 'e2e-artifacts');
-mkdirSync(ARTIFACTS, { recursive: true });
 
 interface JsonOption {
   name: string;
   rStart: number;
   attackRate: number;
   deaths: number;
-}
-
-function mixwise(...args: string[]): string {
-  return execFileSync(process.execPath, [BIN, ...args], { cwd: ROOT, encoding: 'utf8', maxBuffer: 64 * 1024 * 1024 });
 }
 
 /** The demo's options as the CLI computes them. */
@@ -46,10 +36,7 @@ function expectSameNumber(shown: number, engine: number, what: string): void {
 }
 
 async function openReportView(page: Page): Promise<{ errors: string[]; report: FrameLocator }> {
-  const errors: string[] = [];
-  page.on('pageerror', (e) => errors.push(e.message));
-  await page.goto('/');
-  await expect(page.getByTestId('run-status')).toHaveAttribute('data-stale', 'false', { timeout: 20_000 });
+  const errors = await openApp(page);
   await page.getByRole('tab', { name: 'Report' }).click();
   await expect(page.getByTestId('report-view')).toHaveAttribute('data-stale', 'false', { timeout: 20_000 });
   const report = page.frameLocator('[data-testid="report-frame"]');

@@ -8,17 +8,13 @@
 import { test, expect } from '@playwright/test';
 import { execFileSync } from 'node:child_process';
 import { createHash } from 'node:crypto';
-import { existsSync, mkdirSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { fileURLToPath } from 'node:url';
 import { parseScenarioText } from '../src/engine/validation.ts';
 import { canonicalJson, formatPercent, formatPersons, formatR } from '../src/report/index.ts';
+import { ARTIFACTS, CHROMIUM, DEMO, ROOT, mixwise } from './helpers.ts';
 
-const ROOT = fileURLToPath(new URL('..', import.meta.url));
-const BIN = join(ROOT, 'bin/mixwise.mjs');
-const DEMO = join(ROOT, 'resources/demo-scenario.json');
-const ARTIFACTS = join(ROOT, 'e2e-artifacts');
 const VERSION = (JSON.parse(readFileSync(join(ROOT, 'package.json'), 'utf8')) as { version: string }).version;
 
 interface JsonOption {
@@ -29,12 +25,7 @@ interface JsonOption {
   peakIcuOccupancy: number | null;
 }
 
-const chromiumPath = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
-test.skip(!existsSync(chromiumPath), `no Chromium at ${chromiumPath}`);
-
-function mixwise(...args: string[]): string {
-  return execFileSync(process.execPath, [BIN, ...args], { cwd: ROOT, encoding: 'utf8' });
-}
+test.skip(!existsSync(CHROMIUM), `no Chromium at ${CHROMIUM}`);
 
 function cliOptions(file: string): JsonOption[] {
   return (JSON.parse(mixwise('run', file, '--format', 'json')) as { options: JsonOption[] }).options;
@@ -78,7 +69,6 @@ function renderPdf(file: string, pdf: string, ...extra: string[]): string[] {
 }
 
 function savePngs(pdf: string, prefix: string): void {
-  mkdirSync(ARTIFACTS, { recursive: true });
   for (const page of ['1', '2']) {
     // -singlefile: the name is exactly prefix-N.png (otherwise pdftoppm pads N by the page count).
     execFileSync('pdftoppm', ['-png', '-r', '60', '-f', page, '-l', page, '-singlefile', pdf, join(ARTIFACTS, `${prefix}-${page}`)]);

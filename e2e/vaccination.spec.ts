@@ -4,27 +4,11 @@
  * and "compare orders".
  */
 import { expect, test, type Page } from '@playwright/test';
-import { mkdirSync } from 'node:fs';
 import { coverageNeededForRBelowOne, prepareScenario, priorityFromTemplate, runScenario, type Scenario } from '../src/engine/index.ts';
 import { formatBedsAgainstCapacity, formatR } from '../src/renderer/lib/format.ts';
 import { demoScenario } from './engineReference.ts';
+import { ARTIFACTS, columns, openApp, settled } from './helpers.ts';
 
-const ARTIFACTS = 'e2e-artifacts';
-mkdirSync(ARTIFACTS, { recursive: true });
-
-async function settled(page: Page) {
-  await expect(page.getByTestId('run-status')).toHaveAttribute('data-stale', 'false', { timeout: 20_000 });
-}
-
-async function openApp(page: Page) {
-  const errors: string[] = [];
-  page.on('pageerror', (e) => errors.push(e.message));
-  await page.goto('/');
-  await settled(page);
-  return errors;
-}
-
-const columns = (page: Page) => page.locator('[data-testid^="option-column-"]');
 const cellValue = async (page: Page, id: string) => Number(await page.getByTestId(id).getAttribute('data-value'));
 
 /** The demo option that runs a campaign ("Vaccinate oldest first"). */

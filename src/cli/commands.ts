@@ -8,7 +8,7 @@ import type { Scenario } from '../engine/scenario.ts';
 import { formatProblem, parseScenarioText, type Problem } from '../engine/validation.ts';
 import type { OutputFormat } from './args.ts';
 import { EXIT_CODES, type ExitCode } from './errors.ts';
-import { readTextFile, writeTextFileAtomically } from './files.ts';
+import { readTextFile, writeFileAtomically } from './files.ts';
 import { formatReport } from './format.ts';
 import { optionsReport } from './options-report.ts';
 import { reciprocityNotes, reciprocityRows } from './reciprocity-notes.ts';
@@ -24,15 +24,20 @@ function loadScenario(file: string): Loaded {
   return parseScenarioText(readTextFile(file));
 }
 
-export function runCommand(io: Output, file: string, format: OutputFormat, out: string | null): ExitCode {
+/** The valid scenario in `file`, or null after writing each of its problems as a `mixwise: FILE: ...` line on stderr. */
+export function loadScenarioOrComplain(io: Output, file: string): Scenario | null {
   const loaded = loadScenario(file);
-  if (!loaded.ok) {
-    for (const p of loaded.problems) io.err(`mixwise: ${file}: ${formatProblem(p)}\n`);
-    return EXIT_CODES.invalidScenario;
-  }
-  const text = formatReport(optionsReport(runScenario(loaded.scenario)), format);
+  if (loaded.ok) return loaded.scenario;
+  for (const p of loaded.problems) io.err(`mixwise: ${file}: ${formatProblem(p)}\n`);
+  return null;
+}
+
+export function runCommand(io: Output, file: string, format: OutputFormat, out: string | null): ExitCode {
+  const scenario = loadScenarioOrComplain(io, file);
+  if (scenario === null) return EXIT_CODES.invalidScenario;
+  const text = formatReport(optionsReport(runScenario(scenario)), format);
   if (out === null) io.out(text);
-  else writeTextFileAtomically(out, text);
+  else writeFileAtomically(out, text);
   return EXIT_CODES.ok;
 }
 

@@ -25,3 +25,17 @@ export class CliError extends Error {
     this.name = 'CliError';
   }
 }
+
+/**
+ * Turns anything a command threw into one line on `writeErr` and an exit code: a `CliError` with
+ * its own message and code, any other fault as an internal error (first line of its message).
+ */
+export function reportFault(err: unknown, writeErr: (text: string) => void): ExitCode {
+  if (err instanceof CliError) {
+    writeErr(`mixwise: ${err.message}\n`);
+    return err.exitCode;
+  }
+  const message = err instanceof Error ? err.message : String(err);
+  writeErr(`mixwise: internal error: ${message.split('\n')[0]}\n`);
+  return EXIT_CODES.internal;
+}

@@ -1,5 +1,5 @@
 /**
- * Reading a scenario file and writing an output file, with one-line messages on failure.
+ * Reading a scenario file and writing an output file (text or bytes), with one-line messages on failure.
  * Output is written atomically: to a temporary file beside the target, then renamed over it,
  * so a failed or interrupted run never leaves a half-written file (or destroys the old one).
  */
@@ -37,10 +37,11 @@ export function readTextFile(path: string): string {
   }
 }
 
-export function writeTextFileAtomically(path: string, text: string): void {
+/** Writes `content` (text as UTF-8, or bytes such as a PDF) to `path` atomically. */
+export function writeFileAtomically(path: string, content: string | Uint8Array): void {
   const temporary = join(dirname(path), `.${basename(path)}.${process.pid}.${Date.now()}.tmp`);
   try {
-    writeFileSync(temporary, text, { flag: 'wx' });
+    writeFileSync(temporary, content, { flag: 'wx' });
     renameSync(temporary, path);
   } catch (err) {
     rmSync(temporary, { force: true });

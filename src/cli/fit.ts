@@ -4,11 +4,10 @@
  * rate r, doubling time and R0 (for the scenario's periods) with 95% intervals, from daily case
  * counts. --measures-option takes the ratio from the phase that option has in force on the
  * window's first day (measuresRatioForOption).
- * D is a date (YYYY-MM-DD, when the file has dates) or a day number. The arguments are parsed here,
- * in the same style as args.ts (long options, `--name value` or `--name=value`).
+ * D is a date (YYYY-MM-DD, when the file has dates) or a day number. The words are split by
+ * words.ts, as for every command.
  */
 import { periodsOf } from '../engine/index.ts';
-import { formatProblem, parseScenarioText } from '../engine/validation.ts';
 import {
   dailyTotals,
   fitGrowth,
@@ -24,10 +23,11 @@ import {
   type R0FromFit,
 } from '../engine/fitting/index.ts';
 import { CAUTION } from './caution.ts';
-import type { Output } from './commands.ts';
-import { CliError, EXIT_CODES, type ExitCode } from './errors.ts';
+import { loadScenarioOrComplain, type Output } from './commands.ts';
+import { EXIT_CODES, type ExitCode } from './errors.ts';
 import { readTextFile } from './files.ts';
 import { HELP_TEXT } from './help.ts';
+import { splitWords, usageError } from './words.ts';
 
 interface FitArgs {
   casesFile: string;
@@ -45,31 +45,8 @@ const VALUE_OPTIONS = ['--scenario', '--from', '--to', '--family', '--measures-r
 const FLAG_OPTIONS = ['--day-of-week'];
 const FAMILIES: Record<string, CountModel> = { poisson: 'poisson', 'negative-binomial': 'negativeBinomial' };
 
-function usageError(message: string): CliError {
-  return new CliError(`${message} (see mixwise --help)`, EXIT_CODES.usage);
-}
-
 function parseFitArgs(words: readonly string[]): FitArgs {
-  const positional: string[] = [];
-  const options = new Map<string, string>();
-  for (let k = 0; k < words.length; k++) {
-    const word = words[k];
-    if (!word.startsWith('-') || word === '-') {
-      positional.push(word);
-      continue;
-    }
-    const eq = word.indexOf('=');
-    const name = eq >= 0 ? word.slice(0, eq) : word;
-    if (options.has(name)) throw usageError(`option ${name} given twice`);
-    if (FLAG_OPTIONS.includes(name) && eq < 0) {
-      options.set(name, 'yes');
-      continue;
-    }
-    if (!VALUE_OPTIONS.includes(name)) throw usageError(`unknown option ${name} for 'fit'`);
-    const value = eq >= 0 ? word.slice(eq + 1) : words[++k];
-    if (value === undefined || value === '') throw usageError(`option ${name} needs a value`);
-    options.set(name, value);
-  }
+  const { positional, values: options, flags } = splitWords('fit', words, { values: VALUE_OPTIONS, flags: FLAG_OPTIONS });
   if (positional.length !== 1) throw usageError(`'fit' takes one CASES file, got ${positional.length}`);
   const scenarioFile = options.get('--scenario');
   if (scenarioFile === undefined) throw usageError(`'fit' needs --scenario FILE (its periods turn r into R0)`);
@@ -90,7 +67,7 @@ function parseFitArgs(words: readonly string[]): FitArgs {
     from: options.get('--from') ?? null,
     to: options.get('--to') ?? null,
     family,
-    dayOfWeek: options.has('--day-of-week'),
+    dayOfWeek: flags.has('--day-of-week'),
     measuresRatio,
     measuresOption,
     format,
@@ -136,11 +113,8 @@ export function fitCommand(io: Output, words: readonly string[]): ExitCode {
     return EXIT_CODES.ok;
   }
   const args = parseFitArgs(words);
-  const scenario = parseScenarioText(readTextFile(args.scenarioFile));
-  if (!scenario.ok) {
-    for (const p of scenario.problems) io.err(`mixwise: ${args.scenarioFile}: ${formatProblem(p)}\n`);
-    return EXIT_CODES.invalidScenario;
-  }
+  const scenario = loadScenarioOrComplain(io, args.scenarioFile);
+  if (scenario === null) return EXIT_CODES.invalidScenario;
   const cases = parseCaseCountsCsv(readTextFile(args.casesFile));
   if (!cases.ok) {
     for (const p of cases.problems) io.err(`mixwise: ${args.casesFile}: ${formatCsvProblem(p)}\n`);
@@ -158,11 +132,11 @@ export function fitCommand(io: Output, words: readonly string[]): ExitCode {
   }
   let measures: MeasuresRatio | undefined;
   if (args.measuresOption !== null) {
-    const found = measuresRatioForOption(scenario.scenario, args.measuresOption, result.fit.fromDay);
+    const found = measuresRatioForOption(scenario, args.measuresOption, result.fit.fromDay);
     if (!found.ok) throw usageError(found.problems.map((p) => `--measures-option ${p.rule}, got ${JSON.stringify(p.value)}`).join('; '));
     measures = found.value;
   }
-  const r0 = r0FromFit(result.fit, periodsOf(scenario.scenario), measures === undefined ? args.measuresRatio : measures.phase === null ? undefined : measures.ratio);
+  const r0 = r0FromFit(result.fit, periodsOf(scenario), measures === undefined ? args.measuresRatio : measures.phase === null ? undefined : measures.ratio);
   if (!r0.ok) throw usageError(r0.problems.map((p) => `${p.field} ${p.rule}`).join('; '));
   const fit = result.fit;
   if (args.format === 'json') {
@@ -186,6 +160,6 @@ export function fitCommand(io: Output, words: readonly string[]): ExitCode {
     };
     // JSON has no infinity: an unbounded interval end is written as null.
     io.out(`${JSON.stringify(json, null, 2)}\n`);
-  } else io.out(tableText(args.casesFile, fit, r0.value, scenario.scenario.title, measures));
+  } else io.out(tableText(args.casesFile, fit, r0.value, scenario.title, measures));
   return EXIT_CODES.ok;
 }

@@ -5,7 +5,7 @@
 import packageJson from '../../package.json' with { type: 'json' };
 import { parseArgs } from './args.ts';
 import { checkCommand, runCommand, type Output } from './commands.ts';
-import { CliError, EXIT_CODES, type ExitCode } from './errors.ts';
+import { EXIT_CODES, reportFault, type ExitCode } from './errors.ts';
 import { fitCommand } from './fit.ts';
 import { HELP_TEXT } from './help.ts';
 import { reportCommand } from './report.ts';
@@ -33,13 +33,7 @@ export function main(argv: readonly string[], io: Output): ExitCode {
   try {
     return execute(argv, io);
   } catch (err) {
-    if (err instanceof CliError) {
-      io.err(`mixwise: ${err.message}\n`);
-      return err.exitCode;
-    }
-    const message = err instanceof Error ? err.message : String(err);
-    io.err(`mixwise: internal error: ${message.split('\n')[0]}\n`);
-    return EXIT_CODES.internal;
+    return reportFault(err, (text) => io.err(text));
   }
 }
 

@@ -6,29 +6,28 @@
  * Units: rates per day, times in days, prevalence and attack rates as fractions 0-1,
  * infections and deaths in persons.
  */
-import type { ScenarioResults } from '../engine/results.ts';
+import type { OptionResults, ScenarioResults } from '../engine/results.ts';
 import { CAUTION } from './caution.ts';
 import { reciprocityRows, type ReciprocityRow } from './reciprocity-notes.ts';
 
-export interface OptionRow {
-  name: string;
-  /** NGM dominant eigenvalue on day 0 under the option's measures. */
-  rStart: number;
-  growthRatePerDay: number;
-  /** null when not growing. */
-  doublingTimeDays: number | null;
-  /** null when not shrinking. */
-  halvingTimeDays: number | null;
-  peakDay: number;
-  /** Fraction of the population infected (E+I) on the peak day. */
-  peakPrevalence: number;
-  peakInfectedPersons: number;
-  infections: number;
-  infectionsByBand: number[];
-  attackRate: number;
-  attackRateByBand: number[];
-  deaths: number;
-  deathsByBand: number[];
+/** The engine's headline numbers kept as they are (units and meaning in `OptionResults`). */
+type EngineFields =
+  | 'name'
+  | 'rStart'
+  | 'growthRatePerDay'
+  | 'doublingTimeDays'
+  | 'halvingTimeDays'
+  | 'peakDay'
+  | 'peakPrevalence'
+  | 'peakInfectedPersons'
+  | 'infections'
+  | 'infectionsByBand'
+  | 'attackRate'
+  | 'attackRateByBand'
+  | 'deaths'
+  | 'deathsByBand';
+
+export interface OptionRow extends Pick<OptionResults, EngineFields> {
   /** Multi-group final-size attack rate, when the option's measures are constant; else null. */
   finalSizeAttackRate: number | null;
   /** Hospital demand (persons, days); null when the scenario has no `healthcare` section. */

@@ -6,13 +6,11 @@
  */
 import packageJson from '../../package.json' with { type: 'json' };
 import { runScenario } from '../engine/index.ts';
-import { formatProblem, parseScenarioText } from '../engine/validation.ts';
 import { buildReportHtml, dailySeriesCsv, optionsTableCsv, scenarioFingerprint } from '../report/index.ts';
-import type { Output } from './commands.ts';
-import { CliError, EXIT_CODES, type ExitCode } from './errors.ts';
-import { readTextFile, writeTextFileAtomically } from './files.ts';
+import { loadScenarioOrComplain, type Output } from './commands.ts';
+import { EXIT_CODES, reportFault, type ExitCode } from './errors.ts';
+import { writeFileAtomically } from './files.ts';
 import { parseReportArgs, type ReportArgs } from './report-args.ts';
-import { writeBytesAtomically } from './report-files.ts';
 import { findChromium, printHtmlToPdf } from './report-pdf.ts';
 
 export interface ReportContext {
@@ -27,17 +25,14 @@ const processContext: ReportContext = { env: process.env, now: () => new Date() 
 async function report(io: Output, args: ReportArgs, context: ReportContext): Promise<ExitCode> {
   // Look for Chromium before the model runs, so a missing browser is reported at once.
   const chromium = args.format === 'pdf' ? findChromium(context.env) : null;
-  const loaded = parseScenarioText(readTextFile(args.file));
-  if (!loaded.ok) {
-    for (const p of loaded.problems) io.err(`mixwise: ${args.file}: ${formatProblem(p)}\n`);
-    return EXIT_CODES.invalidScenario;
-  }
-  const results = runScenario(loaded.scenario);
+  const scenario = loadScenarioOrComplain(io, args.file);
+  if (scenario === null) return EXIT_CODES.invalidScenario;
+  const results = runScenario(scenario);
   let text: string;
   if (args.format === 'csv') text = args.series ? dailySeriesCsv(results) : optionsTableCsv(results);
   else {
-    const fingerprint = await scenarioFingerprint(loaded.scenario, packageJson.version);
-    text = buildReportHtml(loaded.scenario, results, {
+    const fingerprint = await scenarioFingerprint(scenario, packageJson.version);
+    text = buildReportHtml(scenario, results, {
       appVersion: packageJson.version,
       generatedAt: context.now(),
       fingerprint,
@@ -45,10 +40,8 @@ async function report(io: Output, args: ReportArgs, context: ReportContext): Pro
       orientation: args.orientation,
     });
   }
-  if (chromium !== null && args.out !== null) {
-    writeBytesAtomically(args.out, await printHtmlToPdf(text, chromium));
-  } else if (args.out !== null) writeTextFileAtomically(args.out, text);
-  else io.out(text);
+  if (args.out === null) io.out(text);
+  else writeFileAtomically(args.out, chromium === null ? text : await printHtmlToPdf(text, chromium));
   return EXIT_CODES.ok;
 }
 
@@ -57,12 +50,6 @@ export async function reportCommand(io: Output, words: readonly string[], contex
   try {
     return await report(io, parseReportArgs(words), context);
   } catch (err) {
-    if (err instanceof CliError) {
-      io.err(`mixwise: ${err.message}\n`);
-      return err.exitCode;
-    }
-    const message = err instanceof Error ? err.message : String(err);
-    io.err(`mixwise: internal error: ${message.split('\n')[0]}\n`);
-    return EXIT_CODES.internal;
+    return reportFault(err, (text) => io.err(text));
   }
 }

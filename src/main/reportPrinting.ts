@@ -12,6 +12,7 @@ import type { BrowserWindowConstructorOptions, PrintToPDFOptions, WebContentsPri
 import { randomBytes } from 'node:crypto';
 import type { ReportDocument } from '../preload/api.ts';
 import { APP_SCHEME } from './appProtocol.ts';
+import { LOCKED_DOWN_WEB_PREFERENCES } from './windowOptions.ts';
 
 /** Host of the report pages under the app's scheme; the app itself is served from `app`. */
 export const REPORT_HOST = 'report';
@@ -34,18 +35,7 @@ export function reportWindowOptions(): BrowserWindowConstructorOptions {
     width: 900,
     height: 1200,
     title: 'Mixwise report',
-    webPreferences: {
-      javascript: false,
-      contextIsolation: true,
-      sandbox: true,
-      nodeIntegration: false,
-      nodeIntegrationInWorker: false,
-      nodeIntegrationInSubFrames: false,
-      webSecurity: true,
-      allowRunningInsecureContent: false,
-      webviewTag: false,
-      spellcheck: false,
-    },
+    webPreferences: { ...LOCKED_DOWN_WEB_PREFERENCES, javascript: false },
   };
 }
 

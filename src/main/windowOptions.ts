@@ -4,7 +4,20 @@
  * context isolation on, renderer sandboxed, no Node integration, web security on,
  * no webview tag, no insecure content.
  */
-import type { BrowserWindowConstructorOptions } from 'electron';
+import type { BrowserWindowConstructorOptions, WebPreferences } from 'electron';
+
+/** The checklist's web preferences, shared by every window the app opens (main and report). */
+export const LOCKED_DOWN_WEB_PREFERENCES: Readonly<WebPreferences> = {
+  contextIsolation: true,
+  sandbox: true,
+  nodeIntegration: false,
+  nodeIntegrationInWorker: false,
+  nodeIntegrationInSubFrames: false,
+  webSecurity: true,
+  allowRunningInsecureContent: false,
+  webviewTag: false,
+  spellcheck: false,
+};
 
 export function mainWindowOptions(preloadPath: string): BrowserWindowConstructorOptions {
   return {
@@ -15,17 +28,6 @@ export function mainWindowOptions(preloadPath: string): BrowserWindowConstructor
     show: false,
     title: 'Mixwise',
     backgroundColor: '#f7f6f2',
-    webPreferences: {
-      preload: preloadPath,
-      contextIsolation: true,
-      sandbox: true,
-      nodeIntegration: false,
-      nodeIntegrationInWorker: false,
-      nodeIntegrationInSubFrames: false,
-      webSecurity: true,
-      allowRunningInsecureContent: false,
-      webviewTag: false,
-      spellcheck: false,
-    },
+    webPreferences: { ...LOCKED_DOWN_WEB_PREFERENCES, preload: preloadPath },
   };
 }

@@ -14,6 +14,7 @@ import {
 } from '../engine/healthcare/defaults.ts';
 import type { ScenarioResults } from '../engine/results.ts';
 import type { Delay, Scenario } from '../engine/scenario.ts';
+import { fitRecordRows } from './fitRecord.ts';
 import { formatDecimal, formatPercent, formatPersons } from './numbers.ts';
 
 export interface ParameterRow {
@@ -21,6 +22,8 @@ export interface ParameterRow {
   value: string;
   unit: string;
   source: string;
+  /** A note printed in small type under the value (e.g. a fit's dispersion). */
+  smallPrint?: string;
 }
 
 export interface BandTable {
@@ -29,9 +32,9 @@ export interface BandTable {
 }
 
 const FROM_FILE = 'Scenario file';
-const HOSPITAL_DEFAULT_SOURCE =
+export const HOSPITAL_DEFAULT_SOURCE =
   'Program default: Ferguson et al. 2020, Imperial College COVID-19 Response Team Report 9, Table 1 (per symptomatic case x 0.8 symptomatic share, Buitrago-Garcia et al. 2020, PLoS Med 17:e1003346)';
-const DELAY_DEFAULT_SOURCE = 'Program default (src/engine/healthcare/defaults.ts: Ferguson et al. 2020 Report 9; Rees et al. 2020, BMC Med 18:270; Lauer et al. 2020, Ann Intern Med 172:577)';
+export const DELAY_DEFAULT_SOURCE = 'Program default (src/engine/healthcare/defaults.ts: Ferguson et al. 2020 Report 9; Rees et al. 2020, BMC Med 18:270; Lauer et al. 2020, Ann Intern Med 172:577)';
 
 const orFile = (source: string): string => (source.trim() === '' ? FROM_FILE : source);
 const sameDelay = (a: Delay, b: Delay): boolean => a.meanDays === b.meanDays && a.shape === b.shape;
@@ -60,6 +63,7 @@ export function parameterRows(scenario: Scenario, results: ScenarioResults): Par
   add('Horizon', String(scenario.horizonDays), 'days', FROM_FILE);
   if (d.transmission.kind === 'r0') add('Basic reproduction number R0 (target)', formatDecimal(d.transmission.r0, 2), 'per case', diseaseSource);
   else add('Doubling time before measures (target)', formatDecimal(d.transmission.doublingTimeDays, 2), 'days', diseaseSource);
+  rows.push(...fitRecordRows(scenario));
   add('R0 from the next-generation matrix', formatDecimal(results.r0, 3), 'per case', 'Computed by Mixwise (dominant eigenvalue, all susceptible, no measures)');
   add('Transmission rate beta', results.beta.toPrecision(4), 'per contact', 'Calibrated by Mixwise to the target above');
   add('Latent period (mean)', formatDecimal(d.latentPeriodDays, 2), 'days', diseaseSource);
@@ -124,7 +128,8 @@ export function bandTable(scenario: Scenario): BandTable {
   const h = scenario.healthcare;
   const ihr = h === undefined ? null : (h.infectionHospitalisationRatio ?? defaultInfectionHospitalisationRatio(scenario));
   const icu = h === undefined ? null : (h.icuShareOfAdmissions ?? defaultIcuShareOfAdmissions(scenario));
-  const header = ['Age band', 'Population, persons', 'IFR, %', 'Rel. susceptibility', 'Rel. infectiousness', 'Infected on day 0', 'Prior immunity, %'];
+  // Soft hyphens (U+00AD) let the long words break, so the table fits a portrait page.
+  const header = ['Age band', 'Population, persons', 'IFR, %', 'Rel. suscep\u00adtibility u', 'Rel. infec\u00adtious\u00adness h', 'Infected on day 0', 'Prior immunity, %'];
   if (ihr !== null) header.push('IHR, %', 'ICU share of admissions, %');
   for (const campaign of scenario.vaccinationCampaigns) header.push(`Uptake ceiling, % (${campaign.name})`);
   const rows = scenario.ageBands.map((band, i) => {

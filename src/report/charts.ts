@@ -5,7 +5,7 @@
  */
 import type { OptionResults, ScenarioResults } from '../engine/results.ts';
 import { formatAxisValue, formatPersons } from './numbers.ts';
-import { optionStyle } from './palette.ts';
+import { optionStyle, type OptionStyle } from './palette.ts';
 import { lineChartSvg, type ChartSeries } from './svgLineChart.ts';
 
 export interface ReportChart {
@@ -24,11 +24,14 @@ function totalOverBands(values: Float64Array, bands: number): Float64Array {
   return total;
 }
 
-function seriesOf(results: ScenarioResults, values: (o: OptionResults) => ArrayLike<number>): ChartSeries[] {
-  return results.options.map((o, k) => ({ name: o.name, style: optionStyle(k), values: values(o) }));
+/** How option k is drawn; by position unless the caller keeps colours per option. */
+export type StyleOf = (k: number) => OptionStyle;
+
+function seriesOf(results: ScenarioResults, values: (o: OptionResults) => ArrayLike<number>, styleOf: StyleOf): ChartSeries[] {
+  return results.options.map((o, k) => ({ name: o.name, style: styleOf(k), values: values(o) }));
 }
 
-export function curveCharts(results: ScenarioResults): ReportChart[] {
+export function curveCharts(results: ScenarioResults, styleOf: StyleOf = optionStyle): ReportChart[] {
   const charts: ReportChart[] = [
     {
       id: 'prevalence',
@@ -38,7 +41,7 @@ export function curveCharts(results: ScenarioResults): ReportChart[] {
         title: 'People infected by day, each option',
         xLabel: 'Day',
         yLabel: 'Persons infected',
-        series: seriesOf(results, (o) => totalOverBands(o.series.prevalence, o.series.bands)),
+        series: seriesOf(results, (o) => totalOverBands(o.series.prevalence, o.series.bands), styleOf),
         yFormat: formatAxisValue,
       }),
     },
@@ -50,7 +53,7 @@ export function curveCharts(results: ScenarioResults): ReportChart[] {
         title: 'Deaths per day, each option',
         xLabel: 'Day',
         yLabel: 'Deaths per day',
-        series: seriesOf(results, (o) => o.series.deaths),
+        series: seriesOf(results, (o) => o.series.deaths, styleOf),
         yFormat: formatAxisValue,
       }),
     },
@@ -67,7 +70,7 @@ export function curveCharts(results: ScenarioResults): ReportChart[] {
         title: 'ICU beds in use by day, each option, with capacity',
         xLabel: 'Day',
         yLabel: 'ICU beds in use',
-        series: seriesOf(results, (o) => o.healthcare?.series.icuOccupancy ?? new Float64Array(0)),
+        series: seriesOf(results, (o) => o.healthcare?.series.icuOccupancy ?? new Float64Array(0), styleOf),
         referenceLines: lines,
         yFormat: formatAxisValue,
       }),
@@ -76,7 +79,7 @@ export function curveCharts(results: ScenarioResults): ReportChart[] {
   return charts;
 }
 
-export function byAgeCharts(results: ScenarioResults): ReportChart[] {
+export function byAgeCharts(results: ScenarioResults, styleOf: StyleOf = optionStyle): ReportChart[] {
   return [
     {
       id: 'attack-rate-by-age',
@@ -87,7 +90,7 @@ export function byAgeCharts(results: ScenarioResults): ReportChart[] {
         xLabel: 'Age band (years)',
         yLabel: 'Attack rate, %',
         categories: results.ageBands,
-        series: seriesOf(results, (o) => o.attackRateByBand.map((a) => 100 * a)),
+        series: seriesOf(results, (o) => o.attackRateByBand.map((a) => 100 * a), styleOf),
         yFormat: (v) => `${formatAxisValue(v)}%`,
       }),
     },
@@ -100,7 +103,7 @@ export function byAgeCharts(results: ScenarioResults): ReportChart[] {
         xLabel: 'Age band (years)',
         yLabel: 'Deaths',
         categories: results.ageBands,
-        series: seriesOf(results, (o) => o.deathsByBand),
+        series: seriesOf(results, (o) => o.deathsByBand, styleOf),
         yFormat: formatAxisValue,
       }),
     },

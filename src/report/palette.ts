@@ -28,3 +28,8 @@ export function optionStyle(index: number): OptionStyle {
     marker: MARKERS[index % MARKERS.length],
   };
 }
+
+/** Style of option `index`: by its colour slot when `colourSlots` gives one, else by position. */
+export function optionStyleOf(index: number, colourSlots?: readonly number[]): OptionStyle {
+  return optionStyle(colourSlots?.[index] ?? index);
+}

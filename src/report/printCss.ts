@@ -44,10 +44,13 @@ thead { display: table-header-group; }
 tr { break-inside: avoid; page-break-inside: avoid; }
 th, td { border-bottom: 0.6pt solid #999; padding: 2.5pt 4pt; vertical-align: top; }
 th { text-align: left; border-bottom: 1.2pt solid #111; }
+tbody th { border-bottom: 0.6pt solid #999; }
 td.num, th.num { text-align: right; font-variant-numeric: tabular-nums; }
 th.reference { text-decoration: underline; }
 caption { caption-side: top; text-align: left; font-weight: bold; padding: 2pt 0; }
 .options-table th.outcome { width: 30%; }
+/* Outcome labels stay on one line, so a row never prints its label apart from its values. */
+.options-table tbody th { white-space: nowrap; }
 .options-table th.option { overflow-wrap: anywhere; }
 .options-table .swatch { display: block; margin: 0 0 1pt auto; }
 .notes { font-size: 8.5pt; color: #222; }
@@ -60,6 +63,12 @@ caption { caption-side: top; text-align: left; font-weight: bold; padding: 2pt 0
 .params th:nth-child(2) { width: 21%; }
 .params th:nth-child(3) { width: 14%; }
 .params td:nth-child(3), .params td:nth-child(4) { font-size: 8pt; }
+.params .small-print { font-size: 7.5pt; color: #333; margin-top: 1pt; }
+.params tr.fit td:first-child { padding-left: 10pt; }
+.params tr.changed td:nth-child(-n+2) { font-weight: bold; }
+.bands tbody th, .bands td { white-space: nowrap; }
+.bands { font-size: 8pt; }
+.bands th, .bands td { padding: 2pt 3pt; }
 .limits li { margin-bottom: 3pt; }
 .page-break { break-before: page; }
 `;

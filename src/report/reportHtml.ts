@@ -6,14 +6,15 @@
  */
 import type { ScenarioResults } from '../engine/results.ts';
 import type { Scenario } from '../engine/scenario.ts';
-import { bandTable, parameterRows } from './assumptions.ts';
+import { bandTable, parameterRows, type ParameterRow } from './assumptions.ts';
 import { CAUTION, CAUTION_PARAGRAPHS, MODEL_LIMITS } from './cautions.ts';
-import { byAgeCharts, curveCharts, type ReportChart } from './charts.ts';
+import { byAgeCharts, curveCharts, type ReportChart, type StyleOf } from './charts.ts';
 import { escapeMarkup as esc } from './escape.ts';
+import { FIT_SOURCE, R0_CHANGED_AFTER_FIT } from './fitRecord.ts';
 import { shortFingerprint } from './fingerprint.ts';
 import { optionSummaries, type OptionSummary } from './measures.ts';
 import { columnGroups, optionsTable, type OptionsTable } from './optionsTable.ts';
-import { optionStyle } from './palette.ts';
+import { optionStyleOf } from './palette.ts';
 import { printCss } from './printCss.ts';
 import { OPTION_COLUMNS_PER_TABLE, type ReportMeta } from './reportTypes.ts';
 import { legendSwatchSvg } from './svgLineChart.ts';
@@ -31,7 +32,7 @@ export function formatReportTime(at: Date): string {
   );
 }
 
-function summaryHtml(summary: OptionSummary, index: number): string {
+function summaryHtml(summary: OptionSummary, index: number, styleOf: StyleOf): string {
   const tag = summary.isReference ? '<span class="tag">reference</span>' : '';
   const description = summary.description.trim() === '' ? '' : `<p class="description">${esc(summary.description)}</p>`;
   const measures =
@@ -39,10 +40,10 @@ function summaryHtml(summary: OptionSummary, index: number): string {
       ? `<p>${esc(summary.noMeasures)}</p>`
       : `<ul>${summary.phases.map((p) => `<li><strong>${esc(p.when)}:</strong> ${esc(p.what)}.</li>`).join('')}</ul>`;
   const vaccination = summary.vaccination === null ? '' : `<p><strong>Vaccination:</strong> ${esc(summary.vaccination)}.</p>`;
-  return `<section class="option-summary"><h3>${legendSwatchSvg(optionStyle(index))} ${esc(summary.name)}${tag}</h3>${description}${measures}${vaccination}</section>`;
+  return `<section class="option-summary"><h3>${legendSwatchSvg(styleOf(index))} ${esc(summary.name)}${tag}</h3>${description}${measures}${vaccination}</section>`;
 }
 
-function optionsTableHtml(table: OptionsTable, perTable: number): string {
+function optionsTableHtml(table: OptionsTable, perTable: number, styleOf: StyleOf): string {
   const groups = columnGroups(table.optionNames.length, perTable);
   return groups
     .map((group) => {
@@ -52,7 +53,7 @@ function optionsTableHtml(table: OptionsTable, perTable: number): string {
         .map((k) => {
           const reference = k === table.referenceIndex ? ' reference' : '';
           const mark = k === table.referenceIndex ? ' (reference)' : '';
-          return `<th class="num option${reference}" scope="col">${legendSwatchSvg(optionStyle(k))}${esc(table.optionNames[k])}${mark}</th>`;
+          return `<th class="num option${reference}" scope="col">${legendSwatchSvg(styleOf(k))}${esc(table.optionNames[k])}${mark}</th>`;
         })
         .join('');
       const body = table.rows
@@ -63,17 +64,23 @@ function optionsTableHtml(table: OptionsTable, perTable: number): string {
     .join('');
 }
 
-function legendHtml(results: ScenarioResults): string {
-  return `<ul class="legend">${results.options.map((o, k) => `<li>${legendSwatchSvg(optionStyle(k))}${esc(o.name)}</li>`).join('')}</ul>`;
+function legendHtml(results: ScenarioResults, styleOf: StyleOf): string {
+  return `<ul class="legend">${results.options.map((o, k) => `<li>${legendSwatchSvg(styleOf(k))}${esc(o.name)}</li>`).join('')}</ul>`;
 }
 
 function chartHtml(chart: ReportChart, legend: string): string {
   return `<figure class="chart-block" id="chart-${esc(chart.id)}"><h3>${esc(chart.heading)}</h3>${chart.svg}${legend}<figcaption class="notes">${esc(chart.caption)}</figcaption></figure>`;
 }
 
+/** Fit rows are indented under the R0 assumption; "R0 was changed after the fit" stands out. */
+function rowClass(row: ParameterRow): string {
+  if (row.parameter === R0_CHANGED_AFTER_FIT) return ' class="fit changed"';
+  return row.source === FIT_SOURCE ? ' class="fit"' : '';
+}
+
 function assumptionsHtml(scenario: Scenario, results: ScenarioResults): string {
   const params = parameterRows(scenario, results)
-    .map((r) => `<tr><td>${esc(r.parameter)}</td><td>${esc(r.value)}</td><td>${esc(r.unit)}</td><td>${esc(r.source)}</td></tr>`)
+    .map((r) => `<tr${rowClass(r)}><td>${esc(r.parameter)}</td><td>${esc(r.value)}${r.smallPrint ? `<div class="small-print">${esc(r.smallPrint)}</div>` : ''}</td><td>${esc(r.unit)}</td><td>${esc(r.source)}</td></tr>`)
     .join('');
   const bands = bandTable(scenario);
   const bandHead = bands.header.map((h, k) => `<th scope="col"${k > 0 ? ' class="num"' : ''}>${esc(h)}</th>`).join('');
@@ -91,10 +98,11 @@ export function buildReportHtml(scenario: Scenario, results: ScenarioResults, me
   const short = shortFingerprint(meta.fingerprint);
   const when = formatReportTime(meta.generatedAt);
   const footer = `Mixwise ${meta.appVersion} - scenario ${short} - ${when}`;
+  const styleOf: StyleOf = (k) => optionStyleOf(k, meta.colourSlots);
   const table = optionsTable(results);
-  const legend = legendHtml(results);
+  const legend = legendHtml(results, styleOf);
   const charts = (list: ReportChart[]) => list.map((c) => chartHtml(c, legend)).join('');
-  const summaries = optionSummaries(scenario, results.referenceIndex).map(summaryHtml).join('');
+  const summaries = optionSummaries(scenario, results.referenceIndex).map((summary, k) => summaryHtml(summary, k, styleOf)).join('');
   return `<!DOCTYPE html>
 <html lang="en">
 <head>
@@ -125,16 +133,16 @@ ${summaries}
 </section>
 <section id="table">
 <h2>2. Policy options table</h2>
-${optionsTableHtml(table, OPTION_COLUMNS_PER_TABLE[meta.orientation])}
+${optionsTableHtml(table, OPTION_COLUMNS_PER_TABLE[meta.orientation], styleOf)}
 <div class="notes">${table.notes.map((n) => `<p>${esc(n)}</p>`).join('')}</div>
 </section>
 <section id="curves">
 <h2>3. Curves over time</h2>
-${charts(curveCharts(results))}
+${charts(curveCharts(results, styleOf))}
 </section>
 <section id="by-age">
 <h2>4. By age</h2>
-${charts(byAgeCharts(results))}
+${charts(byAgeCharts(results, styleOf))}
 </section>
 <section id="assumptions" class="page-break">
 <h2>5. Assumptions</h2>

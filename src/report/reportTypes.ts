@@ -12,6 +12,11 @@ export interface ReportMeta {
   fingerprint: string;
   paper: Paper;
   orientation: Orientation;
+  /**
+   * Optional colour slot of each option (palette.ts), so the printout draws every option as the
+   * app does, where an option keeps its colour for life. Absent: options are styled by position.
+   */
+  colourSlots?: readonly number[];
 }
 
 /**

@@ -6,15 +6,7 @@ import { OPTION_COLOURS } from '../../src/renderer/lib/palette.ts';
 import { OPTION_COLOURS as REPORT_COLOURS } from '../../src/report/index.ts';
 import { runScenario } from '../../src/engine/index.ts';
 import { demoScenario } from '../helpers/demo.ts';
-
-const key = (k: string, mods: Partial<{ ctrlKey: boolean; metaKey: boolean; shiftKey: boolean; altKey: boolean }> = {}) => ({
-  key: k,
-  ctrlKey: false,
-  metaKey: false,
-  shiftKey: false,
-  altKey: false,
-  ...mods,
-});
+import { key } from '../helpers/keys.ts';
 
 describe('exportFileName', () => {
   it('names exports after the document', () => {

@@ -3,15 +3,7 @@ import { formatGrowthRate, formatPercent, formatPersons, formatR, formatSignedPe
 import { changeShade, freeColourSlot, optionColour, optionDash, OPTION_COLOURS } from '../../src/renderer/lib/palette.ts';
 import { commandForKey, keepsNativeUndo } from '../../src/renderer/lib/shortcuts.ts';
 import { totalOverBands } from '../../src/renderer/lib/seriesTotals.ts';
-
-const key = (k: string, mods: Partial<{ ctrlKey: boolean; metaKey: boolean; shiftKey: boolean; altKey: boolean }> = {}) => ({
-  key: k,
-  ctrlKey: false,
-  metaKey: false,
-  shiftKey: false,
-  altKey: false,
-  ...mods,
-});
+import { key } from '../helpers/keys.ts';
 
 describe('format', () => {
   it('formats with units and sensible precision', () => {

@@ -21,10 +21,20 @@ export interface BuiltReport extends ReportDocument {
   generatedAt: Date;
 }
 
-/** The report for `scenario` and its `results` (results must be the engine's for exactly this scenario). */
-export async function buildReport(scenario: Scenario, results: ScenarioResults, settings: ReportSettings, generatedAt: Date): Promise<BuiltReport> {
+/**
+ * The report for `scenario` and its `results` (results must be the engine's for exactly this scenario).
+ * `colourSlots` (the working document's, one per option) makes the printout draw each option in the
+ * colour it has in the app; without them options are coloured by position.
+ */
+export async function buildReport(
+  scenario: Scenario,
+  results: ScenarioResults,
+  settings: ReportSettings,
+  generatedAt: Date,
+  colourSlots?: readonly number[],
+): Promise<BuiltReport> {
   const fingerprint = await scenarioFingerprint(scenario, APP_VERSION);
-  const html = buildReportHtml(scenario, results, { appVersion: APP_VERSION, generatedAt, fingerprint, ...settings });
+  const html = buildReportHtml(scenario, results, { appVersion: APP_VERSION, generatedAt, fingerprint, ...settings, ...(colourSlots ? { colourSlots } : {}) });
   return { html, paper: settings.paper, orientation: settings.orientation, fingerprint, shortFingerprint: shortFingerprint(fingerprint), generatedAt };
 }
 

@@ -40,7 +40,7 @@ class ReportCommands {
       }
       await new Promise((resolve) => setTimeout(resolve, POLL_MS));
     }
-    return { scenario: workspace.scenario, results: workspace.results };
+    return { scenario: workspace.scenario, results: workspace.results, colourSlots: workspace.doc.colourSlots };
   }
 
   private tell(outcome: SaveOutcome): void {
@@ -51,7 +51,7 @@ class ReportCommands {
 
   private async report() {
     const inputs = await this.freshInputs();
-    return inputs === null ? null : buildReport(inputs.scenario, inputs.results, reportSettings.current, new Date());
+    return inputs === null ? null : buildReport(inputs.scenario, inputs.results, reportSettings.current, new Date(), inputs.colourSlots);
   }
 
   private async csv(kind: CsvExport): Promise<void> {
