@@ -4,11 +4,14 @@
 import { Dopri5Workspace, integrate } from './dopri5.ts';
 import { initialStateOf } from './prepare.ts';
 import type { PreparedScenario } from './prepare.ts';
-import { effectiveSusceptibleIn, infectedIn, protectedRisk, seirRightHandSide, stateLayout } from './seir.ts';
+import { protectedRisk, seirRightHandSide, stateLayout } from './seir.ts';
 import type { Segment } from './segments.ts';
 import type { PreparedCampaign } from './vaccination/prepare.ts';
 
-/** Daily state on days 0..H by band (band-major rows), negative rounding noise clipped to 0. */
+/**
+ * Daily state on days 0..H by band (band-major rows), negative rounding noise clipped to 0.
+ * E and I stages sit next to each other in the state, so E + I is one run of blocks.
+ */
 export interface DailyState {
   susceptible: Float64Array;
   /** S + W + s P: susceptibles weighted by risk, for R(t) (equals S without vaccination). */
@@ -37,14 +40,27 @@ export function integrateOption(p: PreparedScenario, segments: readonly Segment[
     protectedCumulative: new Float64Array(rows),
     dosesToNonSusceptible: new Float64Array(n),
   };
+  const { susceptible, effectiveSusceptible, prevalence, cumulative, protectedCumulative } = daily;
+  const { susceptible: oS, latent: oE, cumulative: oX, waiting: oW, protectedSusceptible: oP, protectedInfections: oXp } = L;
+  const infectedBlocks = L.latentStages + L.infectiousStages;
   const record = (day: number, y: Float64Array): void => {
+    const base = day * n;
     for (let i = 0; i < n; i++) {
-      const at = day * n + i;
-      daily.susceptible[at] = Math.max(0, y[L.susceptible + i]);
-      daily.effectiveSusceptible[at] = Math.max(0, effectiveSusceptibleIn(y, L, i, risk));
-      daily.prevalence[at] = Math.max(0, infectedIn(y, L, i));
-      daily.cumulative[at] = Math.max(0, y[L.cumulative + i]);
-      if (L.protectedInfections >= 0) daily.protectedCumulative[at] = Math.max(0, y[L.protectedInfections + i]);
+      const s = y[oS + i];
+      let infected = 0;
+      for (let k = 0; k < infectedBlocks; k++) infected += y[oE + k * n + i];
+      susceptible[base + i] = s > 0 ? s : 0;
+      prevalence[base + i] = infected > 0 ? infected : 0;
+      const x = y[oX + i];
+      cumulative[base + i] = x > 0 ? x : 0;
+      if (oW >= 0) {
+        const eff = s + y[oW + i] + risk * y[oP + i];
+        effectiveSusceptible[base + i] = eff > 0 ? eff : 0;
+        const xp = y[oXp + i];
+        protectedCumulative[base + i] = xp > 0 ? xp : 0;
+      } else {
+        effectiveSusceptible[base + i] = s > 0 ? s : 0;
+      }
     }
   };
   const y = campaign === null ? p.initialState.slice() : initialStateOf(p.scenario, L);

@@ -45,10 +45,18 @@ export function dominantEigenvalue(flat: Float64Array, n: number): number {
  * Stops on the Collatz-Wielandt bracket: for x > 0, min_i (Kx)_i / x_i <= rho <= max_i (Kx)_i / x_i
  * (Horn & Johnson 2013, Matrix Analysis, 2nd ed., Thm 8.1.26), once it is narrower than
  * `relativeTolerance` (default 1e-7, ample for a daily R(t)); rows with x_i = 0 (no susceptibles or no susceptibility) have no say. Used for R(t)
- * day by day, where the previous day's vector is an excellent start. Falls back to
+ * day by day, where the previous day's vector is an excellent start; there K = diag(rowScale) M is
+ * applied without being formed (rowScale_i = D S_i). Falls back to
  * `dominantEigenvalue` (ml-matrix) when the bracket does not close (a periodic or reducible K).
  */
-export function spectralRadius(flat: Float64Array, n: number, vector: Float64Array, scratch: Float64Array, relativeTolerance = 1e-7): number {
+export function spectralRadius(
+  flat: Float64Array,
+  n: number,
+  vector: Float64Array,
+  scratch: Float64Array,
+  relativeTolerance = 1e-7,
+  rowScale: Float64Array | null = null,
+): number {
   let sum = 0;
   for (let i = 0; i < n; i++) sum += vector[i];
   if (!(sum > 0)) {
@@ -64,6 +72,7 @@ export function spectralRadius(flat: Float64Array, n: number, vector: Float64Arr
       let acc = 0;
       const row = i * n;
       for (let j = 0; j < n; j++) acc += flat[row + j] * vector[j];
+      if (rowScale !== null) acc *= rowScale[i];
       scratch[i] = acc;
       total += acc;
       if (vector[i] > 0) {
@@ -77,5 +86,8 @@ export function spectralRadius(flat: Float64Array, n: number, vector: Float64Arr
     if (high - low <= relativeTolerance * high) return 0.5 * (low + high);
   }
   vector.fill(1 / n);
-  return dominantEigenvalue(flat, n);
+  if (rowScale === null) return dominantEigenvalue(flat, n);
+  const scaled = new Float64Array(n * n);
+  for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) scaled[i * n + j] = rowScale[i] * flat[i * n + j];
+  return dominantEigenvalue(scaled, n);
 }

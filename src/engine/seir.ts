@@ -96,27 +96,6 @@ export function protectedRisk(v: VaccineEffect): number {
   return v.protection === 'leaky' ? 1 - v.efficacyAgainstInfection : 1;
 }
 
-/** Persons susceptible, weighted by their risk: S + W + s P (band i). */
-export function effectiveSusceptibleIn(y: Float64Array, L: StateLayout, i: number, risk: number): number {
-  const s = y[L.susceptible + i];
-  if (L.waiting < 0) return s;
-  return s + y[L.waiting + i] + risk * y[L.protectedSusceptible + i];
-}
-
-/** Persons infectious (all stages) in band i. */
-export function infectiousIn(y: Float64Array, L: StateLayout, i: number): number {
-  let sum = 0;
-  for (let k = 0; k < L.infectiousStages; k++) sum += y[L.infectious + k * L.bands + i];
-  return sum;
-}
-
-/** Persons infected, latent or infectious (E + I), in band i. */
-export function infectedIn(y: Float64Array, L: StateLayout, i: number): number {
-  let sum = 0;
-  for (let k = 0; k < L.latentStages; k++) sum += y[L.latent + k * L.bands + i];
-  return sum + infectiousIn(y, L, i);
-}
-
 /**
  * Builds the right-hand side for a layout and periods. `transmission` (n x n, per day) and
  * `doseRates` (n, doses per day; only read with vaccination) are read at every call, so the caller
@@ -141,46 +120,53 @@ export function seirRightHandSide(
   const protect = vaccine === null ? 0 : 1 / vaccine.delayToProtectionDays;
   const leaky = vaccine?.protection !== 'allOrNothing';
   const efficacy = vaccine?.efficacyAgainstInfection ?? 0;
+  // Offsets as locals: the right-hand side is the innermost loop of every run.
+  const { susceptible: oS, latent: oE, infectious: oI, recovered: oR, cumulative: oX, latentStages: kE, infectiousStages: kI } = L;
+  const { waiting: oW, protectedSusceptible: oP, vaccineImmune: oV, unvaccinated: oU, protectedInfections: oXp, dosesToNonSusceptible: oQ } = L;
   return (_t: number, y: Float64Array, dydt: Float64Array): void => {
-    for (let j = 0; j < n; j++) infectious[j] = infectiousIn(y, L, j);
+    for (let j = 0; j < n; j++) {
+      let sum = 0;
+      for (let k = 0; k < kI; k++) sum += y[oI + k * n + j];
+      infectious[j] = sum;
+    }
     for (let i = 0; i < n; i++) {
       let lambda = 0;
       const row = i * n;
       for (let j = 0; j < n; j++) lambda += transmission[row + j] * infectious[j];
-      const susceptible = y[L.susceptible + i];
+      const susceptible = y[oS + i];
       let flow = lambda * susceptible;
       if (vaccinated) {
-        const w = y[L.waiting + i];
-        const p = y[L.protectedSusceptible + i];
-        const u = y[L.unvaccinated + i];
+        const w = y[oW + i];
+        const p = y[oP + i];
+        const u = y[oU + i];
         const v = u > 0 ? doseRates[i] : 0;
         const share = u > 0 ? Math.min(1, susceptible / u) : 0;
         const toWaiting = v * share;
         const protecting = protect * w;
         const protectedFlow = risk * lambda * p;
-        dydt[L.susceptible + i] = -flow - toWaiting;
-        dydt[L.waiting + i] = toWaiting - lambda * w - protecting;
-        dydt[L.protectedSusceptible + i] = (leaky ? protecting : (1 - efficacy) * protecting) - protectedFlow;
-        dydt[L.vaccineImmune + i] = leaky ? 0 : efficacy * protecting;
-        dydt[L.unvaccinated + i] = -v;
-        dydt[L.protectedInfections + i] = protectedFlow;
-        dydt[L.dosesToNonSusceptible + i] = v - toWaiting;
+        dydt[oS + i] = -flow - toWaiting;
+        dydt[oW + i] = toWaiting - lambda * w - protecting;
+        dydt[oP + i] = (leaky ? protecting : (1 - efficacy) * protecting) - protectedFlow;
+        dydt[oV + i] = leaky ? 0 : efficacy * protecting;
+        dydt[oU + i] = -v;
+        dydt[oXp + i] = protectedFlow;
+        dydt[oQ + i] = v - toWaiting;
         flow += lambda * w + protectedFlow;
       } else {
-        dydt[L.susceptible + i] = -flow;
+        dydt[oS + i] = -flow;
       }
-      dydt[L.latent + i] = flow - aE * y[L.latent + i];
-      for (let k = 1; k < L.latentStages; k++) {
-        const at = L.latent + k * n + i;
+      dydt[oE + i] = flow - aE * y[oE + i];
+      for (let k = 1; k < kE; k++) {
+        const at = oE + k * n + i;
         dydt[at] = aE * (y[at - n] - y[at]);
       }
-      dydt[L.infectious + i] = aE * y[lastE + i] - aI * y[L.infectious + i];
-      for (let k = 1; k < L.infectiousStages; k++) {
-        const at = L.infectious + k * n + i;
+      dydt[oI + i] = aE * y[lastE + i] - aI * y[oI + i];
+      for (let k = 1; k < kI; k++) {
+        const at = oI + k * n + i;
         dydt[at] = aI * (y[at - n] - y[at]);
       }
-      dydt[L.recovered + i] = aI * y[lastI + i];
-      dydt[L.cumulative + i] = flow;
+      dydt[oR + i] = aI * y[lastI + i];
+      dydt[oX + i] = flow;
     }
   };
 }
