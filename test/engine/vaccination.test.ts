@@ -108,6 +108,19 @@ describe('protection types', () => {
   });
 });
 
+describe('efficacy against admission', () => {
+  it('cuts admissions of infected protected people by (1 - e_H) / (1 - e_I), not their infections', () => {
+    const withBeds = (s: ReturnType<typeof twoBandVaccinated>) =>
+      valid({ ...s, healthcare: { infectionHospitalisationRatio: [0.01, 0.05], capacity: { wardBeds: 10, icuBeds: 2 } } } as ScenarioInput);
+    const r = runScenario(withBeds(twoBandVaccinated([1, 1], 0, 'leaky', { efficacyAgainstDeath: 0, efficacyAgainstAdmission: 0.6 })));
+    const [none, vaccinated] = r.options;
+    expect(Math.abs(vaccinated.infections - none.infections) / none.infections).toBeLessThan(1e-8);
+    // Everyone is protected long before the epidemic: admissions fall to 40% (f_H = 0.4 / 1).
+    expect(vaccinated.healthcare!.admissions).toBeCloseTo(0.4 * none.healthcare!.admissions, 3);
+    expect(vaccinated.comparison!.admissionsAverted).toBeCloseTo(0.6 * none.healthcare!.admissions, 3);
+  });
+});
+
 describe('dose plan', () => {
   const s = demoScenario();
   const population = s.populationPersons;
