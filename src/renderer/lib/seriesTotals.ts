@@ -9,7 +9,7 @@ export type CurveMetric = 'prevalence' | 'incidence' | 'deaths' | 'rt' | 'wardOc
 /** Metrics read from the engine's hospital series (only when the scenario has a hospital section). */
 export const OCCUPANCY_METRICS: readonly CurveMetric[] = ['wardOccupancy', 'icuOccupancy'];
 
-/** Total over bands for each day: a series of length days+1 (prevalence) or days (incidence, deaths). */
+/** Total over bands for each day: a series of length days+1 (prevalence) or days (incidence). */
 export function totalOverBands(values: Float64Array, bands: number): number[] {
   const days = values.length / bands;
   const out = new Array<number>(days);
@@ -21,9 +21,12 @@ export function totalOverBands(values: Float64Array, bands: number): number[] {
   return out;
 }
 
-/** The curve of one option for a metric: persons (prevalence), persons per day (incidence, deaths) or R(t). */
+/**
+ * The curve of one option for a metric: persons (prevalence), persons per day (incidence, deaths) or R(t).
+ * R(t) and deaths are already one value per day in the engine's series (deaths: all bands together).
+ */
 export function curveOf(series: DailySeries, metric: Exclude<CurveMetric, 'wardOccupancy' | 'icuOccupancy'>): number[] {
-  if (metric === 'rt') return Array.from(series.rt);
+  if (metric === 'rt' || metric === 'deaths') return Array.from(series[metric]);
   return totalOverBands(series[metric], series.bands);
 }
 
