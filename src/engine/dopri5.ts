@@ -18,6 +18,9 @@ export interface Tolerances {
   maxStep: number;
 }
 
+/** A safety net: no realistic scenario needs more steps in one segment (the demo takes about 100). */
+const MAX_STEPS = 1_000_000;
+
 export const DEFAULT_TOLERANCES: Tolerances = { relative: 1e-5, absolute: 1e-6, maxStep: 10 };
 
 const C2 = 1 / 5, C3 = 3 / 10, C4 = 4 / 5, C5 = 8 / 9;
@@ -104,10 +107,11 @@ export function integrate(
     if (!(err <= 1)) {
       ws.rejected++;
       h *= Number.isFinite(err) ? Math.max(0.2, 0.9 * Math.pow(err, -0.2)) : 0.2;
-      if (h < 1e-12) throw new Error(`step size underflow at t = ${t}`);
+      if (h < 1e-12) throw new Error(`the model could not be solved near day ${t.toFixed(2)}: its rates are too extreme`);
       continue;
     }
     ws.steps++;
+    if (ws.steps > MAX_STEPS) throw new Error(`the model could not be solved near day ${t.toFixed(2)}: its rates are too extreme`);
     const tNew = last ? t1 : t + h;
     if (out < outputTimes.length && outputTimes[out] <= tNew) {
       for (let i = 0; i < n; i++) {

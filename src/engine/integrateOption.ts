@@ -1,7 +1,7 @@
 /**
  * Integrates one option segment by segment and keeps the daily state the outcomes need.
  */
-import { Dopri5Workspace, integrate } from './dopri5.ts';
+import { DEFAULT_TOLERANCES, Dopri5Workspace, integrate } from './dopri5.ts';
 import { initialStateOf } from './prepare.ts';
 import type { PreparedScenario } from './prepare.ts';
 import { protectedRisk, seirRightHandSide, stateLayout } from './seir.ts';
@@ -24,6 +24,19 @@ export interface DailyState {
   protectedCumulative: Float64Array;
   /** Doses given by the end of the horizon to people no longer susceptible, by band (zeros without vaccination). */
   dosesToNonSusceptible: Float64Array;
+}
+
+/**
+ * The largest step that keeps the explicit method stable on the model's fastest decay: stage
+ * exits at rate k_E / T_E, k_I / T_I and protection at 1 / delay. Dormand-Prince 5(4) is stable
+ * for h * rate up to about 3.3 on the negative real axis (Hairer & Wanner 1996, Solving ODEs II,
+ * section IV.2); 2.5 leaves a margin. Without this cap a nearly empty compartment lets the error
+ * controller take steps far beyond that limit, and the decaying mode then grows instead.
+ */
+function largestStableStep(p: PreparedScenario, campaign: PreparedCampaign | null): number {
+  const rates = [p.periods.latentStages / p.periods.latentPeriodDays, p.periods.infectiousStages / p.periods.infectiousPeriodDays];
+  if (campaign !== null) rates.push(1 / campaign.vaccine.delayToProtectionDays);
+  return Math.min(DEFAULT_TOLERANCES.maxStep, 2.5 / Math.max(...rates));
 }
 
 export function integrateOption(p: PreparedScenario, segments: readonly Segment[], campaign: PreparedCampaign | null): DailyState {
@@ -69,13 +82,14 @@ export function integrateOption(p: PreparedScenario, segments: readonly Segment[
   const doseRates = new Float64Array(n);
   const rhs = seirRightHandSide(L, p.periods.latentPeriodDays, p.periods.infectiousPeriodDays, transmission, campaign?.vaccine ?? null, doseRates);
   const ws = new Dopri5Workspace(L.size);
+  const tolerances = { ...DEFAULT_TOLERANCES, maxStep: largestStableStep(p, campaign) };
   let step = 0.25;
   for (const seg of segments) {
     transmission.set(seg.transmission);
     doseRates.set(seg.doseRates);
     const days: number[] = [];
     for (let d = Math.floor(seg.fromDay) + 1; d <= seg.toDay; d++) days.push(d);
-    step = integrate(rhs, y, seg.fromDay, seg.toDay, days, (t, state) => record(Math.round(t), state), ws, undefined, Math.max(step, 0.05));
+    step = integrate(rhs, y, seg.fromDay, seg.toDay, days, (t, state) => record(Math.round(t), state), ws, tolerances, Math.min(tolerances.maxStep, Math.max(step, 0.05)));
   }
   if (L.dosesToNonSusceptible >= 0) for (let i = 0; i < n; i++) daily.dosesToNonSusceptible[i] = Math.max(0, y[L.dosesToNonSusceptible + i]);
   return daily;

@@ -32,11 +32,22 @@ export function nextGenerationMatrix(transmission: Float64Array, susceptible: Ar
  * EigenvalueDecomposition. For a non-negative K this is its spectral radius (Perron-Frobenius).
  */
 export function dominantEigenvalue(flat: Float64Array, n: number): number {
-  const rows = Array.from({ length: n }, (_, i) => Array.from(flat.subarray(i * n, (i + 1) * n)));
+  // A non-finite entry would make the QR iteration run forever; validated scenarios never give one.
+  let largest = 0;
+  for (let k = 0; k < flat.length; k++) {
+    if (!Number.isFinite(flat[k])) throw new Error('next-generation matrix has a non-finite entry');
+    largest = Math.max(largest, Math.abs(flat[k]));
+  }
+  if (largest === 0) return 0;
+  // Scaled to a largest entry of 1, with entries below 1e-200 of it set to 0: they change no
+  // eigenvalue in double precision, and subnormal numbers can stall the QR iteration.
+  const rows = Array.from({ length: n }, (_, i) =>
+    Array.from(flat.subarray(i * n, (i + 1) * n), (x) => (Math.abs(x) < 1e-200 * largest ? 0 : x / largest)),
+  );
   const eig = new EigenvalueDecomposition(new Matrix(rows), { assumeSymmetric: false });
   let best = -Infinity;
   for (const v of eig.realEigenvalues) if (v > best) best = v;
-  return Math.max(0, best);
+  return Math.max(0, best) * largest;
 }
 
 /**

@@ -13,6 +13,7 @@ import { type PreparedHealthcare, prepareHealthcare } from './healthcare/prepare
 import { type PreparedCampaign, prepareCampaign } from './vaccination/prepare.ts';
 import { dominantEigenvalue, nextGenerationMatrixInto } from './ngm.ts';
 import type { Scenario } from './scenario.ts';
+import type { Problem } from './validation.ts';
 import { type StateLayout, stateLayout } from './seir.ts';
 import { type BandParameters, bandParameters, transmissionMatrixInto } from './transmission.ts';
 
@@ -77,29 +78,71 @@ function reproductionPerUnitBeta(s: Scenario, bp: BandParameters, susceptible: F
   return dominantEigenvalue(nextGenerationMatrixInto(new Float64Array(n * n), m, susceptible, s.disease.infectiousPeriodDays), n);
 }
 
+/** beta and R0 of a scenario; beta is not finite when the target R cannot be reached (see `calibrationProblem`). */
+export function calibrateTransmission(s: Scenario, bp: BandParameters, periods: Periods, initialSusceptible: Float64Array): { beta: number; r0: number } {
+  const perBetaFull = reproductionPerUnitBeta(s, bp, bp.population);
+  const t = s.disease.transmission;
+  let beta: number;
+  if (t.kind === 'r0') {
+    beta = t.r0 / perBetaFull;
+  } else {
+    const rTarget = reproductionNumberFromGrowthRate(Math.LN2 / t.doublingTimeDays, periods);
+    beta = rTarget / reproductionPerUnitBeta(s, bp, initialSusceptible);
+  }
+  return { beta, r0: beta * perBetaFull };
+}
+
+/** Above this many infections per day caused by one infectious person, rates are out of any real range. */
+export const LARGEST_TRANSMISSION_RATE_PER_DAY = 1e4;
+
+/**
+ * A target R0 (or doubling time) needs some transmission to scale. When the contacts,
+ * susceptibilities, infectiousness and populations allow none, beta cannot be found; when they
+ * allow only vanishing transmission in one place and ordinary contacts elsewhere, the calibrated
+ * beta makes some rate absurdly large (one infectious person infecting more than
+ * LARGEST_TRANSMISSION_RATE_PER_DAY people a day), which no integrator can follow. Both are
+ * input mistakes: returns the problem, or null.
+ */
+export function calibrationProblem(s: Scenario): Problem | null {
+  const bp = bandParameters(s);
+  const periods = periodsOf(s);
+  const layout = stateLayout(bp.bands, periods.latentStages, periods.infectiousStages);
+  const initialSusceptible = initialStateOf(s, layout).slice(layout.susceptible, layout.susceptible + bp.bands);
+  const { beta } = calibrateTransmission(s, bp, periods, initialSusceptible);
+  const t = s.disease.transmission;
+  const path = t.kind === 'r0' ? 'disease.transmission.r0' : 'disease.transmission.doublingTimeDays';
+  const value = String(t.kind === 'r0' ? t.r0 : t.doublingTimeDays);
+  if (!(Number.isFinite(beta) && beta > 0)) {
+    return { path, rule: 'cannot be reached: the contact matrices, populations and susceptibilities allow (almost) no transmission', value };
+  }
+  const n = bp.bands;
+  const m = transmissionMatrixInto(new Float64Array(n * n), s, bp, beta, null);
+  let largest = 0;
+  for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) largest = Math.max(largest, m[i * n + j] * bp.population[i]);
+  if (!(largest <= LARGEST_TRANSMISSION_RATE_PER_DAY)) {
+    return {
+      path,
+      rule: `cannot be reached with these contacts: it would make one infectious person infect over ${LARGEST_TRANSMISSION_RATE_PER_DAY.toLocaleString('en')} people a day somewhere (check contact matrices and susceptibilities for values far out of range)`,
+      value,
+    };
+  }
+  return null;
+}
+
 export function prepareScenario(s: Scenario): PreparedScenario {
   const bp = bandParameters(s);
   const periods = periodsOf(s);
   const layout = stateLayout(bp.bands, periods.latentStages, periods.infectiousStages);
   const initialState = initialStateOf(s, layout);
   const initialSusceptible = initialState.slice(layout.susceptible, layout.susceptible + bp.bands);
-  const perBetaFull = reproductionPerUnitBeta(s, bp, bp.population);
-  const t = s.disease.transmission;
-  let beta: number;
-  if (t.kind === 'r0') {
-    beta = perBetaFull > 0 ? t.r0 / perBetaFull : 0;
-  } else {
-    const rTarget = reproductionNumberFromGrowthRate(Math.LN2 / t.doublingTimeDays, periods);
-    const perBetaStart = reproductionPerUnitBeta(s, bp, initialSusceptible);
-    beta = perBetaStart > 0 ? rTarget / perBetaStart : 0;
-  }
+  const { beta, r0 } = calibrateTransmission(s, bp, periods, initialSusceptible);
   return {
     scenario: s,
     bands: bp,
     periods,
     layout,
     beta,
-    r0: beta * perBetaFull,
+    r0,
     initialState,
     initialSusceptible,
     seeds: Float64Array.from(s.initialState.infectedPersons),

@@ -149,7 +149,8 @@ export const scenarioSchema = z.object({
   title: z.string().min(1, { message: 'must not be empty' }),
   notes: z.string().default(''),
   ageBands: z.array(ageBandSchema).min(1, { message: 'must list at least one age band' }),
-  populationPersons: z.array(nonNegative),
+  /** Persons by band: 0 (an empty band) or at least 1 (smaller counts make 1/N overflow). */
+  populationPersons: z.array(nonNegative.refine((x) => x <= 0 || x >= 1, { message: 'must be 0 or at least 1 person' })),
   settings: z.array(settingSchema).min(1, { message: 'must list at least one setting' }),
   disease: diseaseSchema,
   severity: severitySchema,

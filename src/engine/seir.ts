@@ -29,6 +29,10 @@
  *   dU_i/dt = -v_i,  dXp_i/dt = s lambda_i P_i,  dQ_i/dt = v_i (1 - S_i / U_i)
  *
  * Persons in S + W + P + V + E + I + R are conserved: the flows cancel exactly.
+ * Infection flows use max(0, .) of S, W, P and I: the integrator's error control lets an empty
+ * compartment dip below zero by about its absolute tolerance, and with R > 1 such a dip would
+ * otherwise seed an exponentially growing "negative epidemic". Stage exits use the values as
+ * they are, so a dip decays back to zero; conservation is untouched.
  * Units: persons, days. The state vector is compartment-major: block c holds band 0..n-1.
  */
 
@@ -127,17 +131,18 @@ export function seirRightHandSide(
     for (let j = 0; j < n; j++) {
       let sum = 0;
       for (let k = 0; k < kI; k++) sum += y[oI + k * n + j];
-      infectious[j] = sum;
+      infectious[j] = sum > 0 ? sum : 0;
     }
     for (let i = 0; i < n; i++) {
       let lambda = 0;
       const row = i * n;
       for (let j = 0; j < n; j++) lambda += transmission[row + j] * infectious[j];
-      const susceptible = y[oS + i];
+      const s = y[oS + i];
+      const susceptible = s > 0 ? s : 0;
       let flow = lambda * susceptible;
       if (vaccinated) {
-        const w = y[oW + i];
-        const p = y[oP + i];
+        const w = Math.max(0, y[oW + i]);
+        const p = Math.max(0, y[oP + i]);
         const u = y[oU + i];
         const v = u > 0 ? doseRates[i] : 0;
         const share = u > 0 ? Math.min(1, susceptible / u) : 0;

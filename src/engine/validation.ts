@@ -7,6 +7,7 @@
  */
 import type { z } from 'zod';
 import { healthcareProblems } from './healthcare/validation.ts';
+import { calibrationProblem } from './prepare.ts';
 import { vaccinationProblems } from './vaccination/validation.ts';
 import { scenarioSchema, type Scenario } from './scenario.ts';
 
@@ -182,7 +183,9 @@ export function validateScenario(input: unknown): ValidationResult {
   const parsed = scenarioSchema.safeParse(input);
   if (!parsed.success) return { ok: false, problems: structuralProblems(input, parsed.error.issues) };
   const problems = crossFieldProblems(parsed.data);
-  return problems.length > 0 ? { ok: false, problems } : { ok: true, scenario: parsed.data };
+  if (problems.length > 0) return { ok: false, problems };
+  const calibration = calibrationProblem(parsed.data);
+  return calibration !== null ? { ok: false, problems: [calibration] } : { ok: true, scenario: parsed.data };
 }
 
 /** Parses JSON text and validates it; a JSON syntax error is reported as one problem. */

