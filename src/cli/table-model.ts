@@ -25,7 +25,7 @@ export interface PrintedReport {
 export function printedReport(report: OptionsReport): PrintedReport {
   const optionsTable: TextTable = {
     caption: 'Policy options',
-    header: ['Option', 'R at start', 'Growth per day', 'Doubling time (days)', 'Peak day', 'Peak infected', 'Infections', 'Attack rate', 'Deaths'],
+    header: ['Option', 'R at start', 'Growth per day', 'Doubling time (days)', 'Peak day', 'Peak prevalence', 'Infections', 'Attack rate', 'Deaths'],
     leftColumns: 1,
     rows: report.options.map((o) => [
       o.name,

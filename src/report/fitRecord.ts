@@ -77,7 +77,7 @@ export function fitRecordRows(scenario: Scenario): ParameterRow[] {
   add('Fit: R0', `${formatR(record.r0)} (95% interval ${intervalText(record.r0Interval, formatR)})`, 'per case');
   const m = record.measures;
   if (m !== undefined) {
-    const phase = m.phaseFromDay === null || m.phaseToDay === null ? 'no phase in force' : `phase days ${m.phaseFromDay}-${m.phaseToDay}`;
+    const phase = m.phaseFromDay === null || m.phaseToDay === null ? 'no phase in force' : `days ${m.phaseFromDay} to ${m.phaseToDay - 1}`;
     add(
       'Fit: measures divided out',
       `option "${m.option}" (${phase}): ratio ${m.ratio.toPrecision(3)}, R in window ${formatR(m.reproductionNumberInWindow)}`,

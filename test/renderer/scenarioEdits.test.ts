@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
 import { parseScenarioText, validateScenario } from '../../src/engine/validation.ts';
+import { referenceIndexOf } from '../../src/engine/run.ts';
 import type { Scenario } from '../../src/engine/scenario.ts';
 import {
   addOption,
@@ -10,6 +11,7 @@ import {
   deletePhase,
   documentFor,
   duplicateOption,
+  indexAfterMove,
   moveOption,
   renameOption,
   setReferenceOption,
@@ -51,6 +53,29 @@ describe('option edits', () => {
     expect(names(next.scenario)[2]).toBe(names(doc.scenario)[0]);
     expect(next.colourSlots[2]).toBe(doc.colourSlots[0]);
     expect(moveOption(doc, 0, -1)).toBe(doc);
+  });
+
+  it('the selected option stays selected when another option moves past it', () => {
+    const next = moveOption(doc, 1, 1);
+    const selected = doc.scenario.options[2].name;
+    expect(next.scenario.options[indexAfterMove(2, 1, 2)].name).toBe(selected);
+    expect(next.scenario.options[indexAfterMove(1, 1, 2)].name).toBe(doc.scenario.options[1].name);
+    const far = moveOption(doc, 0, 3);
+    for (let k = 0; k < n; k++) expect(far.scenario.options[indexAfterMove(k, 0, 3)].name).toBe(doc.scenario.options[k].name);
+  });
+
+  it('moving options keeps the reference option when it is the first one by default', () => {
+    const scenario = demo();
+    delete scenario.referenceOption;
+    const implicit = documentFor(scenario);
+    const first = implicit.scenario.options[0].name;
+    const referenceOf = (s: Scenario) => s.options[referenceIndexOf(s)].name;
+    expect(referenceOf(moveOption(implicit, 0, 1).scenario)).toBe(first);
+    expect(referenceOf(moveOption(implicit, 2, -2).scenario)).toBe(first);
+    const middle = moveOption(implicit, 1, 1).scenario;
+    expect(referenceOf(middle)).toBe(first);
+    expect(middle.referenceOption).toBeUndefined();
+    expect(valid(moveOption(implicit, 0, 1).scenario)).toBe(true);
   });
 
   it('renames, and the reference follows', () => {

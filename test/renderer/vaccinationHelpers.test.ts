@@ -23,7 +23,7 @@ import { doseGroups, dosesPerDayOfGroup } from '../../src/renderer/lib/doseGroup
 import { boardRowsFor, BOARD_ROWS, NOT_APPLICABLE } from '../../src/renderer/lib/boardRows.ts';
 import { transferablesOf } from '../../src/renderer/lib/engineProtocol.ts';
 import { curveOfOption } from '../../src/renderer/lib/seriesTotals.ts';
-import { formatBedsAgainstCapacity, formatPer1000Doses } from '../../src/renderer/lib/format.ts';
+import { formatBedsAgainstCapacity, formatPer1000Doses, formatPersons } from '../../src/renderer/lib/format.ts';
 
 function demo(): Scenario {
   const r = parseScenarioText(readFileSync('resources/demo-scenario.json', 'utf8'));
@@ -199,6 +199,14 @@ describe('board rows, series and transfer with hospital and vaccination results'
     expect(formatBedsAgainstCapacity(142.4, 110)).toBe('142 / 110 beds');
     expect(formatPer1000Doses(4.105)).toBe('4.1 per 1,000 doses');
     expect(formatPer1000Doses(null)).toBe('—');
+  });
+
+  it('ICU days over capacity: the detail gives patient-days over capacity and days (not patient-days) over surge', () => {
+    const icu = results.options[0].healthcare!.icu;
+    expect(icu.daysOverSurgeCapacity).not.toBeNull();
+    expect(row('icuDaysOver').detail!(results.options[0], ref)).toBe(
+      `${formatPersons(icu.patientDaysOverCapacity)} patient-days over · ${icu.daysOverSurgeCapacity} days over surge`,
+    );
   });
 
   it('reads bed curves from the hospital series', () => {

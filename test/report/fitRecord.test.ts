@@ -69,7 +69,7 @@ describe('fit record rows', () => {
     expect(byName['Fit: growth rate r'].unit).toBe('per day');
     expect(byName['Fit: doubling time'].value).toBe('5.6 (95% interval no bound to 6.3)');
     expect(byName['Fit: R0'].value).toBe('2.50 (95% interval 2.20 to 2.90)');
-    expect(byName['Fit: measures divided out'].value).toBe('option "Work contacts halved" (phase days 0-60): ratio 0.920, R in window 2.30');
+    expect(byName['Fit: measures divided out'].value).toBe('option "Work contacts halved" (days 0 to 59): ratio 0.920, R in window 2.30');
     expect(byName['Fit: measures divided out'].smallPrint).toBe('Measures of option "Work contacts halved" were in force.');
     expect(rows.every((r) => r.source === FIT_SOURCE)).toBe(true);
   });

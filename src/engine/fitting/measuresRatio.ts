@@ -67,7 +67,7 @@ export function measuresRatioForOption(scenario: Scenario, optionName: string, d
       option: option.name,
       day,
       phase: { fromDay: phase.fromDay, toDay: phase.toDay },
-      note: `Measures of option "${option.name}" (phase days ${phase.fromDay}-${phase.toDay}) were in force on day ${day}; they scale the dominant next-generation-matrix eigenvalue by ${ratio.toPrecision(4)}, so R0 = R in the window / ${ratio.toPrecision(4)}.`,
+      note: `Measures of option "${option.name}" (days ${phase.fromDay} to ${phase.toDay - 1}) were in force on day ${day}; they scale the dominant next-generation-matrix eigenvalue by ${ratio.toPrecision(4)}, so R0 = R in the window / ${ratio.toPrecision(4)}.`,
     },
   };
 }

@@ -188,7 +188,7 @@ export const BOARD_ROWS: BoardRow[] = [
     detail: (o) => {
       const icu = o.healthcare?.icu;
       if (icu === undefined) return '';
-      const surge = icu.daysOverSurgeCapacity === null ? '' : ` · ${icu.daysOverSurgeCapacity} over surge`;
+      const surge = icu.daysOverSurgeCapacity === null ? '' : ` · ${icu.daysOverSurgeCapacity} ${icu.daysOverSurgeCapacity === 1 ? 'day' : 'days'} over surge`;
       return `${formatPersons(icu.patientDaysOverCapacity)} patient-days over${surge}`;
     },
     lowerIsBetter: true,

@@ -69,17 +69,31 @@ export function renameOption(doc: WorkingDocument, index: number, name: string):
   return withOptions(doc, options, doc.colourSlots, reference);
 }
 
-/** Moves option `index` by `delta` places (clamped to the ends). */
+/**
+ * Moves option `index` by `delta` places (clamped to the ends). The reference option stays the
+ * same: when it is the first option by default (no `referenceOption`) and the first place
+ * changes hands, it is kept by name.
+ */
 export function moveOption(doc: WorkingDocument, index: number, delta: number): WorkingDocument {
   const target = Math.max(0, Math.min(doc.scenario.options.length - 1, index + delta));
   if (target === index) return doc;
+  const firstChanges = index === 0 || target === 0;
+  const reference = doc.scenario.referenceOption ?? (firstChanges ? doc.scenario.options[0].name : undefined);
   const options = [...doc.scenario.options];
   const slots = [...doc.colourSlots];
   const [option] = options.splice(index, 1);
   const [slot] = slots.splice(index, 1);
   options.splice(target, 0, option);
   slots.splice(target, 0, slot);
-  return withOptions(doc, options, slots, doc.scenario.referenceOption);
+  return withOptions(doc, options, slots, reference);
+}
+
+/** Where option `selected` sits after option `index` moved to `target` (the selection follows its option). */
+export function indexAfterMove(selected: number, index: number, target: number): number {
+  if (selected === index) return target;
+  if (index < selected && selected <= target) return selected - 1;
+  if (target <= selected && selected < index) return selected + 1;
+  return selected;
 }
 
 /** Deletes option `index`; the last option cannot be deleted. Deleting the reference makes the first option the reference. */

@@ -49,7 +49,7 @@ describe('mixwise fit --measures-option', () => {
     if (dayZero === undefined) throw new Error('demo has no day-0 measures');
     const { code, stdout } = runCli('fit', CASES, '--scenario', DEMO, '--measures-option', dayZero.name);
     expect(code).toBe(0);
-    expect(stdout).toMatch(new RegExp(`^note: Measures of option "${dayZero.name}" \\(phase days 0-\\d+\\) were in force on day 0`, 'm'));
+    expect(stdout).toMatch(new RegExp(`^note: Measures of option "${dayZero.name}" \\(days 0 to \\d+\\) were in force on day 0`, 'm'));
   });
 
   it('rejects an unknown option (listing the options) and giving both measures flags, exit code 1', () => {
