@@ -101,15 +101,3 @@ export function convolve(series: Float64Array, weights: Float64Array): Float64Ar
   }
   return out;
 }
-
-/** Sum over bands of scale_i x series[d][i] for each day d (band-major rows of width `bands`). */
-export function weightedBandSum(series: Float64Array, bands: number, scale: ArrayLike<number>): Float64Array {
-  const days = series.length / bands;
-  const out = new Float64Array(days);
-  for (let d = 0; d < days; d++) {
-    let acc = 0;
-    for (let i = 0; i < bands; i++) acc += series[d * bands + i] * scale[i];
-    out[d] = acc;
-  }
-  return out;
-}

@@ -19,3 +19,4 @@ export { finalSizeByBand } from './finalSize.ts';
 export { nextGenerationMatrix, dominantEigenvalue } from './ngm.ts';
 export * from './healthcare/index.ts';
 export * from './vaccination/index.ts';
+export { totalOverBands, weightedBandSum } from './bandTotals.ts';

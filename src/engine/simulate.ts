@@ -7,7 +7,8 @@
  * infections. The daily death series convolves the same weighted daily infections with the
  * infection-to-death delay. Hospital demand gets the daily infections weighted by f_H the same way.
  */
-import { convolve, weightedBandSum } from './distributions.ts';
+import { weightedBandSum } from './bandTotals.ts';
+import { convolve } from './distributions.ts';
 import { finalSizeByBand } from './finalSize.ts';
 import { doublingTimeDays, growthRateFromR, halvingTimeDays } from './growth.ts';
 import { healthcareDemand } from './healthcare/demand.ts';

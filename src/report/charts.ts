@@ -3,6 +3,7 @@
  * deaths per day, ICU beds in use against capacity when present) and profiles by age band
  * (attack rate, deaths). Totals over bands are plain sums of the engine's by-band series.
  */
+import { totalOverBands } from '../engine/bandTotals.ts';
 import type { OptionResults, ScenarioResults } from '../engine/results.ts';
 import { formatAxisValue, formatPersons } from './numbers.ts';
 import { optionStyle, type OptionStyle } from './palette.ts';
@@ -14,14 +15,6 @@ export interface ReportChart {
   /** One sentence saying what is drawn, with units. */
   caption: string;
   svg: string;
-}
-
-/** Sum over bands of a band-major daily series ([d * bands + i]). */
-function totalOverBands(values: Float64Array, bands: number): Float64Array {
-  const days = Math.floor(values.length / bands);
-  const total = new Float64Array(days);
-  for (let d = 0; d < days; d++) for (let i = 0; i < bands; i++) total[d] += values[d * bands + i];
-  return total;
 }
 
 /** How option k is drawn; by position unless the caller keeps colours per option. */

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { formatGrowthRate, formatPercent, formatPersons, formatR, formatSignedPersons, relativeChange } from '../../src/renderer/lib/format.ts';
 import { changeShade, freeColourSlot, optionColour, optionDash, OPTION_COLOURS } from '../../src/renderer/lib/palette.ts';
 import { commandForKey, keepsNativeUndo } from '../../src/renderer/lib/shortcuts.ts';
-import { totalOverBands } from '../../src/renderer/lib/seriesTotals.ts';
+import { totalOverBands } from '../../src/engine/bandTotals.ts';
 import { key } from '../helpers/keys.ts';
 
 describe('format', () => {
@@ -59,6 +59,6 @@ describe('shortcuts', () => {
 
 describe('totalOverBands', () => {
   it('adds bands per day (band-major layout)', () => {
-    expect(totalOverBands(new Float64Array([1, 2, 3, 4, 5, 6]), 3)).toEqual([6, 15]);
+    expect(Array.from(totalOverBands(new Float64Array([1, 2, 3, 4, 5, 6]), 3))).toEqual([6, 15]);
   });
 });

@@ -2,6 +2,7 @@
  * Daily series summed over age bands, for the Curves view. The engine stores series
  * band-major per day (`[d * bands + i]`, see results.ts); this only adds the bands up.
  */
+import { totalOverBands } from '../../engine/bandTotals.ts';
 import type { DailySeries, OptionResults } from '../../engine/results.ts';
 
 export type CurveMetric = 'prevalence' | 'incidence' | 'deaths' | 'rt' | 'wardOccupancy' | 'icuOccupancy';
@@ -9,25 +10,13 @@ export type CurveMetric = 'prevalence' | 'incidence' | 'deaths' | 'rt' | 'wardOc
 /** Metrics read from the engine's hospital series (only when the scenario has a hospital section). */
 export const OCCUPANCY_METRICS: readonly CurveMetric[] = ['wardOccupancy', 'icuOccupancy'];
 
-/** Total over bands for each day: a series of length days+1 (prevalence) or days (incidence). */
-export function totalOverBands(values: Float64Array, bands: number): number[] {
-  const days = values.length / bands;
-  const out = new Array<number>(days);
-  for (let d = 0; d < days; d++) {
-    let sum = 0;
-    for (let i = 0; i < bands; i++) sum += values[d * bands + i];
-    out[d] = sum;
-  }
-  return out;
-}
-
 /**
  * The curve of one option for a metric: persons (prevalence), persons per day (incidence, deaths) or R(t).
  * R(t) and deaths are already one value per day in the engine's series (deaths: all bands together).
  */
 export function curveOf(series: DailySeries, metric: Exclude<CurveMetric, 'wardOccupancy' | 'icuOccupancy'>): number[] {
   if (metric === 'rt' || metric === 'deaths') return Array.from(series[metric]);
-  return totalOverBands(series[metric], series.bands);
+  return Array.from(totalOverBands(series[metric], series.bands));
 }
 
 /** The curve of one option for any metric; beds in use come from the engine's hospital series (empty without one). */
