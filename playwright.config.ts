@@ -2,7 +2,8 @@ import { defineConfig } from '@playwright/test';
 // Debian's chromium (installed with apt-get), never a downloaded browser, with the same flags as `mixwise report`.
 import { CHROMIUM_ARGS, chromiumPath } from './src/cli/chromium.ts';
 
-const PORT = 4173;
+// MIXWISE_E2E_PORT lets two checkouts run their browser tests at once on one machine.
+const PORT = Number(process.env.MIXWISE_E2E_PORT ?? 4174);
 
 export default defineConfig({
   testDir: 'e2e',
