@@ -1,10 +1,10 @@
 /**
  * Reading a scenario file and writing an output file (text or bytes), with one-line messages on failure.
- * Output is written atomically: to a temporary file beside the target, then renamed over it,
- * so a failed or interrupted run never leaves a half-written file (or destroys the old one).
+ * Output is written atomically by the shared writer (src/shared/atomicWrite.ts), so a failed or
+ * interrupted run never leaves a half-written file, a stray temporary file, or destroys the old one.
  */
-import { readFileSync, renameSync, rmSync, writeFileSync } from 'node:fs';
-import { basename, dirname, join } from 'node:path';
+import { readFileSync } from 'node:fs';
+import { writeFileAtomicSync } from '../shared/atomicWrite.ts';
 import { CliError, EXIT_CODES } from './errors.ts';
 
 /** Plain words for the file-system error codes a user is likely to meet. */
@@ -39,12 +39,9 @@ export function readTextFile(path: string): string {
 
 /** Writes `content` (text as UTF-8, or bytes such as a PDF) to `path` atomically. */
 export function writeFileAtomically(path: string, content: string | Uint8Array): void {
-  const temporary = join(dirname(path), `.${basename(path)}.${process.pid}.${Date.now()}.tmp`);
   try {
-    writeFileSync(temporary, content, { flag: 'wx' });
-    renameSync(temporary, path);
+    writeFileAtomicSync(path, content);
   } catch (err) {
-    rmSync(temporary, { force: true });
     throw new CliError(`cannot write ${path}: ${reason(err)}`, EXIT_CODES.fileError);
   }
 }

@@ -8,7 +8,7 @@ import { basename } from 'node:path';
 import { IPC, type OpenedScenarioFile, type RecentFile, type SaveOutcome } from '../preload/api.ts';
 import { checkIpcMessage, type IpcChannel, type IpcPayload } from './ipcContract.ts';
 import { readScenarioFile, saveScenarioText } from './scenarioFiles.ts';
-import { writeFileAtomic } from './atomicWrite.ts';
+import { writeFileAtomic } from '../shared/atomicWrite.ts';
 import { reportPdfOptions } from './reportPrinting.ts';
 import { printReportContents, withReportWindow } from './reportWindow.ts';
 

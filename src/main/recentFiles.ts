@@ -5,7 +5,7 @@
 import { readFile } from 'node:fs/promises';
 import { basename } from 'node:path';
 import { z } from 'zod';
-import { writeFileAtomic } from './atomicWrite.ts';
+import { writeFileAtomic } from '../shared/atomicWrite.ts';
 import type { RecentFile } from '../preload/api.ts';
 
 export const MAX_RECENT = 8;

@@ -6,7 +6,7 @@ import { readFile, stat } from 'node:fs/promises';
 import { basename } from 'node:path';
 import { parseScenarioText } from '../engine/validation.ts';
 import { formatProblem } from '../engine/validation.ts';
-import { writeFileAtomic } from './atomicWrite.ts';
+import { writeFileAtomic } from '../shared/atomicWrite.ts';
 import type { OpenedScenarioFile } from '../preload/api.ts';
 
 /** Largest scenario file accepted, bytes (a 16-band scenario is ~30 kB; common practice margin). */

@@ -1,8 +1,7 @@
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
-import { mkdtemp, readdir, readFile, rm, writeFile } from 'node:fs/promises';
+import { mkdtemp, readFile, rm, writeFile } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { writeFileAtomic } from '../../src/main/atomicWrite.ts';
 import { readScenarioFile, saveScenarioText, scenarioTextProblems } from '../../src/main/scenarioFiles.ts';
 import { loadRecent, MAX_RECENT, storeRecent, withRecent, withoutRecent } from '../../src/main/recentFiles.ts';
 import { closeDecision } from '../../src/main/unsavedChanges.ts';
@@ -16,29 +15,6 @@ afterEach(async () => {
 });
 
 const demoText = () => readFile('resources/demo-scenario.json', 'utf8');
-
-describe('writeFileAtomic', () => {
-  it('replaces the file and leaves no temporary file behind', async () => {
-    const target = join(dir, 'a.json');
-    await writeFile(target, 'old');
-    await writeFileAtomic(target, 'new');
-    expect(await readFile(target, 'utf8')).toBe('new');
-    expect(await readdir(dir)).toEqual(['a.json']);
-  });
-
-  it('leaves the old file untouched when the write fails', async () => {
-    const target = join(dir, 'missing-folder', 'a.json');
-    await expect(writeFileAtomic(target, 'x')).rejects.toThrow();
-    const good = join(dir, 'good.json');
-    await writeFile(good, 'kept');
-    // A directory in the way of the rename: the write fails, the directory listing keeps only what was there.
-    const blocked = join(dir, 'blocked');
-    await (await import('node:fs/promises')).mkdir(join(blocked, 'inner'), { recursive: true });
-    await expect(writeFileAtomic(blocked, 'x')).rejects.toThrow();
-    expect((await readdir(dir)).sort()).toEqual(['blocked', 'good.json']);
-    expect(await readFile(good, 'utf8')).toBe('kept');
-  });
-});
 
 describe('saveScenarioText', () => {
   it('writes a valid scenario and reads it back', async () => {
