@@ -20,3 +20,12 @@ export { nextGenerationMatrix, dominantEigenvalue } from './ngm.ts';
 export * from './healthcare/index.ts';
 export * from './vaccination/index.ts';
 export { totalOverBands, weightedBandSum } from './bandTotals.ts';
+export {
+  DEFAULT_LIFE_TABLE,
+  lifeTableSchema,
+  remainingLifeExpectancyAt,
+  remainingLifeExpectancyByBand,
+  bandMidAges,
+  yearsOfLifeLostByBand,
+  type LifeTable,
+} from './lifeExpectancy.ts';

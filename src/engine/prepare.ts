@@ -11,6 +11,7 @@ import { dailyDelayWeights } from './distributions.ts';
 import { type Periods, reproductionNumberFromGrowthRate } from './growth.ts';
 import { type PreparedHealthcare, prepareHealthcare } from './healthcare/prepare.ts';
 import { type PreparedCampaign, prepareCampaign } from './vaccination/prepare.ts';
+import { remainingLifeExpectancyByBand } from './lifeExpectancy.ts';
 import { dominantEigenvalue, nextGenerationMatrixInto } from './ngm.ts';
 import type { Scenario } from './scenario.ts';
 import type { Problem } from './validation.ts';
@@ -40,6 +41,8 @@ export interface PreparedScenario {
   healthcare: PreparedHealthcare | null;
   /** Vaccination campaigns by name, with their dose plans. */
   campaigns: Map<string, PreparedCampaign>;
+  /** Remaining life expectancy at each band's mid-age, years (lifeExpectancy.ts). */
+  remainingLifeExpectancy: Float64Array;
 }
 
 export function periodsOf(s: Scenario): Periods {
@@ -150,5 +153,6 @@ export function prepareScenario(s: Scenario): PreparedScenario {
     deathDelayWeights: dailyDelayWeights(s.severity.deathDelay.meanDays, s.severity.deathDelay.shape, s.horizonDays),
     healthcare: prepareHealthcare(s),
     campaigns: new Map(s.vaccinationCampaigns.map((c) => [c.name, prepareCampaign(c, bp.population, s.horizonDays)])),
+    remainingLifeExpectancy: remainingLifeExpectancyByBand(s),
   };
 }

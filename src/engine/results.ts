@@ -59,6 +59,9 @@ export interface OptionResults {
   /** Deaths eventually caused by the horizon's infections: sum_i IFR_i x infections_i, persons. */
   deaths: number;
   deathsByBand: number[];
+  /** Years of life lost: sum_i deaths_i x remaining life expectancy at band i's mid-age (lifeExpectancy.ts), person-years. */
+  yearsOfLifeLost: number;
+  yearsOfLifeLostByBand: number[];
   /**
    * Multi-group final-size solution (Ma & Earn 2006) under this option's measures,
    * only when they are constant over the whole horizon; otherwise null.

@@ -8,6 +8,7 @@
 import { z } from 'zod';
 import { campaignSchema } from './vaccination/schema.ts';
 import { fitRecordSchema } from './fitting/fitRecord.ts';
+import { lifeTableSchema } from './lifeExpectancy.ts';
 import { DEFAULT_ADMISSION_DELAY, DEFAULT_ICU_PATIENT_WARD_STAY, DEFAULT_ICU_STAY, DEFAULT_WARD_STAY } from './healthcare/defaults.ts';
 
 export const SCENARIO_FORMAT = 'mixwise-scenario';
@@ -163,6 +164,8 @@ export const scenarioSchema = z.object({
   healthcare: healthcareSchema.optional(),
   /** Vaccination campaigns that options can refer to by name. */
   vaccinationCampaigns: z.array(campaignSchema).default([]),
+  /** Optional: remaining life expectancy by age for years of life lost; the GBD 2019 reference table if absent (lifeExpectancy.ts). */
+  lifeTable: lifeTableSchema.optional(),
 });
 
 /** A scenario as written in a file (defaults may be missing). */

@@ -13,6 +13,7 @@ import { finalSizeByBand } from './finalSize.ts';
 import { doublingTimeDays, growthRateFromR, halvingTimeDays } from './growth.ts';
 import { healthcareDemand } from './healthcare/demand.ts';
 import { integrateOption } from './integrateOption.ts';
+import { yearsOfLifeLostByBand } from './lifeExpectancy.ts';
 import { nextGenerationMatrixInto, spectralRadius } from './ngm.ts';
 import { measuresConstant } from './phases.ts';
 import type { PreparedScenario } from './prepare.ts';
@@ -110,6 +111,7 @@ export function simulateOption(p: PreparedScenario, option: PolicyOption): Optio
   const deathFactor = campaign?.deathRiskFactor ?? 1;
   const deathsByBand = infectionsByBand.map((x, i) => (x - (1 - deathFactor) * protectedByBand[i]) * p.infectionFatalityRatio[i]);
   const infections = sum(infectionsByBand);
+  const yllByBand = yearsOfLifeLostByBand(deathsByBand, p.remainingLifeExpectancy);
 
   const incidence = dailyIncidence(p, daily.cumulative);
   const protectedIncidence = campaign === null ? null : dailyDifferences(daily.protectedCumulative, n, H);
@@ -146,6 +148,8 @@ export function simulateOption(p: PreparedScenario, option: PolicyOption): Optio
     attackRateByBand,
     deaths: sum(deathsByBand),
     deathsByBand,
+    yearsOfLifeLost: sum(yllByBand),
+    yearsOfLifeLostByBand: yllByBand,
     finalSize,
     series,
     healthcare: p.healthcare === null ? null : healthcareDemand(p.healthcare, weightedIncidence(incidence, protectedIncidence, campaign?.admissionRiskFactor ?? 1)),

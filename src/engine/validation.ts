@@ -7,6 +7,7 @@
  */
 import type { z } from 'zod';
 import { healthcareProblems } from './healthcare/validation.ts';
+import { lifeTableProblems } from './lifeExpectancy.ts';
 import { calibrationProblem } from './prepare.ts';
 import { vaccinationProblems } from './vaccination/validation.ts';
 import { scenarioSchema, type Scenario } from './scenario.ts';
@@ -175,6 +176,7 @@ export function crossFieldProblems(s: Scenario): Problem[] {
   }
   problems.push(...healthcareProblems(s));
   problems.push(...vaccinationProblems(s));
+  problems.push(...lifeTableProblems(s));
   return problems;
 }
 
