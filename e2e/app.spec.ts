@@ -5,7 +5,7 @@ import { expect, test, type Page } from '@playwright/test';
 import { readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { tmpdir } from 'node:os';
-import { formatPercent, formatR } from '../src/renderer/lib/format.ts';
+import { screen } from '../src/report/numberFormat.ts';
 import { parseScenarioText } from '../src/engine/index.ts';
 import { cliDemoResults, demoScenario, engineRStart } from './engineReference.ts';
 import { ARTIFACTS, columns, openApp, settled } from './helpers.ts';
@@ -21,10 +21,10 @@ test('the demo loads computed, with the engine\'s R at start and attack rate on 
   for (const [o, expected] of reference.options.entries()) {
     await expect(page.getByTestId(`option-name-${o}`)).toHaveText(expected.name);
     const r = page.getByTestId(`cell-rStart-${o}`);
-    await expect(r).toContainText(formatR(expected.rStart));
+    await expect(r).toContainText(screen.r(expected.rStart));
     expect(Number(await r.getAttribute('data-value'))).toBeCloseTo(expected.rStart, 9);
     const ar = page.getByTestId(`cell-attackRate-${o}`);
-    await expect(ar).toContainText(formatPercent(expected.attackRate));
+    await expect(ar).toContainText(screen.percent(expected.attackRate));
     expect(Number(await ar.getAttribute('data-value'))).toBeCloseTo(expected.attackRate, 9);
   }
   expect(errors).toEqual([]);
@@ -51,8 +51,8 @@ test('moving an option\'s school multiplier changes its R at start to the engine
   const shown = Number(await cell.getAttribute('data-value'));
   expect(shown).not.toBeCloseTo(before, 6);
   expect(shown).toBeCloseTo(expected, 9);
-  await expect(cell).toContainText(formatR(expected));
-  await expect(page.getByTestId('editor-r-start')).toContainText(formatR(expected));
+  await expect(cell).toContainText(screen.r(expected));
+  await expect(page.getByTestId('editor-r-start')).toContainText(screen.r(expected));
 
   const redraw = await page.evaluate(() => performance.getEntriesByName('mixwise-edit-to-redraw').map((e) => e.duration));
   console.log(`Edit-to-redraw time (school multiplier, demo, all options): ${redraw.at(-1)?.toFixed(1)} ms`);

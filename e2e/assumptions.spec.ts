@@ -7,7 +7,7 @@
 import { expect, test, type Page } from '@playwright/test';
 import { readFileSync } from 'node:fs';
 import { parseScenarioText, runScenario, type Scenario } from '../src/engine/index.ts';
-import { formatBedsAgainstCapacity, formatR } from '../src/renderer/lib/format.ts';
+import { screen } from '../src/report/numberFormat.ts';
 import { ARTIFACTS, DEMO, settled } from './helpers.ts';
 
 function demo(): Scenario {
@@ -62,18 +62,18 @@ test('relative susceptibility, ICU beds, a refused entry and undo', async ({ pag
   await settled(page);
   await open(page, 'Options board');
   const rCell = page.getByTestId(`cell-rStart-${option}`);
-  await expect(rCell).toContainText(formatR(after.rStart));
+  await expect(rCell).toContainText(screen.r(after.rStart));
   expectSameNumber(Number(await rCell.getAttribute('data-value')), after.rStart, 'R at start after the edit');
 
   // ICU beds: the board's ICU capacity follows.
-  const icuCell = page.getByTestId('cell-peakIcu-0');
+  const icuCell = page.getByTestId('cell-peakIcuOccupancy-0');
   await expect(icuCell).toContainText(`/ ${icuBeds} beds`);
   await open(page, 'Assumptions');
   await type(page, 'icu-beds', '150');
   await settled(page);
   await open(page, 'Options board');
   const peakIcu = runScenario({ ...edited, healthcare: { ...edited.healthcare!, capacity: { ...edited.healthcare!.capacity, icuBeds: 150 } } }).options[0].healthcare!.icu;
-  await expect(icuCell).toContainText(formatBedsAgainstCapacity(peakIcu.peakOccupancy, 150));
+  await expect(icuCell).toContainText(screen.bedsAgainstCapacity(peakIcu.peakOccupancy, 150));
 
   // Undo twice: ICU beds, then the susceptibility, are back.
   await page.getByTestId('undo').click();
@@ -81,7 +81,7 @@ test('relative susceptibility, ICU beds, a refused entry and undo', async ({ pag
   await expect(icuCell).toContainText(`/ ${icuBeds} beds`);
   await page.getByTestId('undo').click();
   await settled(page);
-  await expect(rCell).toContainText(formatR(before.rStart));
+  await expect(rCell).toContainText(screen.r(before.rStart));
   expectSameNumber(Number(await rCell.getAttribute('data-value')), before.rStart, 'R at start after undo');
   await expect(page.getByTestId('undo')).toBeDisabled();
   await open(page, 'Assumptions');

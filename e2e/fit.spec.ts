@@ -8,7 +8,7 @@ import { execFileSync } from 'node:child_process';
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { formatR } from '../src/renderer/lib/format.ts';
+import { screen } from '../src/report/numberFormat.ts';
 import { demoScenario, engineRStart } from './engineReference.ts';
 import { ARTIFACTS, openApp, settled } from './helpers.ts';
 
@@ -46,7 +46,7 @@ test('the example counts fit to the same R0 as the CLI, for the whole file and a
   await expect(page.getByTestId('fit-summary')).toContainText('example-cases.csv: 35 days, 2031-03-03 to 2031-04-06');
   const whole = cliFit();
   expect(await shownR0(page)).toBeCloseTo(whole.r0, 9);
-  await expect(page.getByTestId('fit-r0')).toHaveText(formatR(whole.r0));
+  await expect(page.getByTestId('fit-r0')).toHaveText(screen.r(whole.r0));
   await expect(page.getByTestId('fit-dispersion')).toContainText('prefer the negative-binomial model');
 
   await typeDay(page, 'fit-from', 7);

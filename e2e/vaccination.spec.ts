@@ -5,7 +5,7 @@
  */
 import { expect, test, type Page } from '@playwright/test';
 import { coverageNeededForRBelowOne, prepareScenario, priorityFromTemplate, runScenario, type Scenario } from '../src/engine/index.ts';
-import { formatBedsAgainstCapacity, formatR } from '../src/renderer/lib/format.ts';
+import { screen } from '../src/report/numberFormat.ts';
 import { demoScenario } from './engineReference.ts';
 import { ARTIFACTS, columns, openApp, settled } from './helpers.ts';
 
@@ -29,21 +29,21 @@ test('the board shows each option\'s ICU peak against capacity as the engine com
   const engine = runScenario(scenario);
   for (const [o, expected] of engine.options.entries()) {
     const icu = expected.healthcare!.icu;
-    const cell = page.getByTestId(`cell-peakIcu-${o}`);
-    expect(await cellValue(page, `cell-peakIcu-${o}`)).toBeCloseTo(icu.peakOccupancy, 6);
-    await expect(cell).toContainText(formatBedsAgainstCapacity(icu.peakOccupancy, icu.capacityBeds));
+    const cell = page.getByTestId(`cell-peakIcuOccupancy-${o}`);
+    expect(await cellValue(page, `cell-peakIcuOccupancy-${o}`)).toBeCloseTo(icu.peakOccupancy, 6);
+    await expect(cell).toContainText(screen.bedsAgainstCapacity(icu.peakOccupancy, icu.capacityBeds));
     await expect(cell).toHaveAttribute('data-over', String(icu.peakOccupancy > icu.capacityBeds));
-    expect(await cellValue(page, `cell-icuDaysOver-${o}`)).toBe(icu.daysOverCapacity);
+    expect(await cellValue(page, `cell-daysIcuOverCapacity-${o}`)).toBe(icu.daysOverCapacity);
     expect(await cellValue(page, `cell-admissions-${o}`)).toBeCloseTo(expected.healthcare!.admissions, 6);
     // Averted counts are the engine's comparison with the reference option.
     expect(await cellValue(page, `cell-deathsAverted-${o}`)).toBeCloseTo(expected.comparison!.deathsAverted, 6);
     if (expected.vaccination === null) {
       await expect(page.getByTestId(`cell-doses-${o}`)).toContainText('—');
-      await expect(page.getByTestId(`cell-dosesToImmune-${o}`)).toContainText('—');
+      await expect(page.getByTestId(`cell-dosesToNonSusceptibleShare-${o}`)).toContainText('—');
     } else {
       expect(await cellValue(page, `cell-doses-${o}`)).toBeCloseTo(expected.vaccination.doses, 6);
-      expect(await cellValue(page, `cell-deathsAvertedPer1000-${o}`)).toBeCloseTo(expected.comparison!.deathsAvertedPer1000Doses!, 6);
-      expect(await cellValue(page, `cell-dosesToImmune-${o}`)).toBeCloseTo(expected.vaccination.dosesToNonSusceptibleShare, 9);
+      expect(await cellValue(page, `cell-deathsAvertedPer1000Doses-${o}`)).toBeCloseTo(expected.comparison!.deathsAvertedPer1000Doses!, 6);
+      expect(await cellValue(page, `cell-dosesToNonSusceptibleShare-${o}`)).toBeCloseTo(expected.vaccination.dosesToNonSusceptibleShare, 9);
     }
   }
   expect(errors).toEqual([]);
@@ -62,7 +62,7 @@ test('applying an order template changes deaths to the engine\'s value; coverage
   const campaign = scenario.vaccinationCampaigns[0];
   const coverage = coverageNeededForRBelowOne(prepared, scenario.options[o], campaign);
   const coverageText = panel.getByTestId('coverage-needed');
-  if (coverage.doses === null) await expect(coverageText).toContainText(`Not reachable with these uptake ceilings: with every ceiling met, R at start is ${formatR(coverage.reproductionNumberAtCeiling)}`);
+  if (coverage.doses === null) await expect(coverageText).toContainText(`Not reachable with these uptake ceilings: with every ceiling met, R at start is ${screen.r(coverage.reproductionNumberAtCeiling)}`);
   else await expect(coverageText).toContainText('bring R at start below 1');
 
   const before = await cellValue(page, `cell-deaths-${o}`);

@@ -20,10 +20,12 @@ import {
 } from '../../src/renderer/lib/campaignEdits.ts';
 import { appendBand, bandsOutsideOrder, groupLabel, mergeWithNext, moveGroup, removeGroup, sameOrder, splitGroup } from '../../src/renderer/lib/priorityOrder.ts';
 import { doseGroups, dosesPerDayOfGroup } from '../../src/renderer/lib/doseGroups.ts';
-import { boardRowsFor, BOARD_ROWS, NOT_APPLICABLE } from '../../src/renderer/lib/boardRows.ts';
+import { boardCell, boardRowsFor } from '../../src/renderer/lib/boardRows.ts';
+import { formatValue } from '../../src/report/numberFormat.ts';
+import { NOT_APPLICABLE, outcome } from '../../src/report/outcomes.ts';
 import { transferablesOf } from '../../src/renderer/lib/engineProtocol.ts';
 import { curveOfOption } from '../../src/renderer/lib/seriesTotals.ts';
-import { formatBedsAgainstCapacity, formatPer1000Doses, formatPersons } from '../../src/renderer/lib/format.ts';
+import { screen } from '../../src/report/numberFormat.ts';
 
 function demo(): Scenario {
   const r = parseScenarioText(readFileSync('resources/demo-scenario.json', 'utf8'));
@@ -176,13 +178,12 @@ describe('board rows, series and transfer with hospital and vaccination results'
   const s = demo();
   const results = runScenario(s);
   const o = withCampaign(s);
-  const row = (id: string) => BOARD_ROWS.find((r) => r.id === id)!;
-  const ref = results.options[results.referenceIndex];
+  const cell = (key: string, k: number) => boardCell(outcome(key), results.options[k], results);
 
   it('shows hospital and vaccination rows only when some option has them', () => {
-    const ids = boardRowsFor(results).map((r) => r.id);
-    expect(ids).toContain('peakIcu');
-    expect(ids).toContain('deathsAvertedPer1000');
+    const ids = boardRowsFor(results).map((r) => r.key);
+    expect(ids).toContain('peakIcuOccupancy');
+    expect(ids).toContain('deathsAvertedPer1000Doses');
     const plain: OptionResults[] = results.options.map((x) => ({ ...x, healthcare: null, vaccination: null }));
     const spreadOnly = boardRowsFor({ ...results, options: plain }).map((r) => r.group);
     expect(new Set(spreadOnly)).toEqual(new Set(['spread']));
@@ -190,22 +191,21 @@ describe('board rows, series and transfer with hospital and vaccination results'
 
   it('formats beds against capacity and marks over-capacity; averted numbers are the engine\'s comparison', () => {
     const icu = results.options[0].healthcare!.icu;
-    expect(row('peakIcu').text(results.options[0], ref)).toBe(formatBedsAgainstCapacity(icu.peakOccupancy, icu.capacityBeds));
-    expect(row('peakIcu').overCapacity!(results.options[0])).toBe(icu.peakOccupancy > icu.capacityBeds);
-    expect(row('deathsAverted').value(results.options[o])).toBe(results.options[o].comparison!.deathsAverted);
-    expect(row('deathsAvertedPer1000').value(results.options[o])).toBe(results.options[o].comparison!.deathsAvertedPer1000Doses);
-    expect(row('doses').text(results.options[0], ref)).toBe(NOT_APPLICABLE);
-    expect(row('doses').value(results.options[0])).toBeNull();
-    expect(formatBedsAgainstCapacity(142.4, 110)).toBe('142 / 110 beds');
-    expect(formatPer1000Doses(4.105)).toBe('4.1 per 1,000 doses');
-    expect(formatPer1000Doses(null)).toBe('—');
+    expect(cell('peakIcuOccupancy', 0).text).toBe(screen.bedsAgainstCapacity(icu.peakOccupancy, icu.capacityBeds));
+    expect(cell('peakIcuOccupancy', 0).over).toBe(icu.peakOccupancy > icu.capacityBeds);
+    expect(cell('deathsAverted', o).value).toBe(results.options[o].comparison!.deathsAverted);
+    expect(cell('deathsAvertedPer1000Doses', o).value).toBe(results.options[o].comparison!.deathsAvertedPer1000Doses);
+    expect(cell('doses', 0).text).toBe(NOT_APPLICABLE.screen);
+    expect(cell('doses', 0).value).toBeNull();
+    expect(screen.bedsAgainstCapacity(142.4, 110)).toBe('142 / 110 beds');
+    expect(formatValue(outcome('deathsAvertedPer1000Doses'), 4.105, 'screen')).toBe('4.1 per 1,000 doses');
   });
 
   it('ICU days over capacity: the detail gives patient-days over capacity and days (not patient-days) over surge', () => {
     const icu = results.options[0].healthcare!.icu;
     expect(icu.daysOverSurgeCapacity).not.toBeNull();
-    expect(row('icuDaysOver').detail!(results.options[0], ref)).toBe(
-      `${formatPersons(icu.patientDaysOverCapacity)} patient-days over · ${icu.daysOverSurgeCapacity} days over surge`,
+    expect(cell('daysIcuOverCapacity', 0).detail).toBe(
+      `${screen.persons(icu.patientDaysOverCapacity)} patient-days over · ${icu.daysOverSurgeCapacity} days over surge`,
     );
   });
 

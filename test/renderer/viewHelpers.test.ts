@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatGrowthRate, formatPercent, formatPersons, formatR, formatSignedPersons, relativeChange } from '../../src/renderer/lib/format.ts';
+import { relativeChange, screen } from '../../src/report/numberFormat.ts';
 import { changeShade, freeColourSlot, optionColour, optionDash, OPTION_COLOURS } from '../../src/renderer/lib/palette.ts';
 import { commandForKey, keepsNativeUndo } from '../../src/renderer/lib/shortcuts.ts';
 import { totalOverBands } from '../../src/engine/bandTotals.ts';
@@ -7,15 +7,15 @@ import { key } from '../helpers/keys.ts';
 
 describe('format', () => {
   it('formats with units and sensible precision', () => {
-    expect(formatR(2.49997)).toBe('2.50');
-    expect(formatPercent(0.8336)).toBe('83.4 %');
-    expect(formatPercent(0.00042)).toBe('0.042 %');
-    expect(formatPercent(1e-16)).toBe('< 0.001 %');
-    expect(formatPersons(8297.66)).toBe('8,298');
-    expect(formatPersons(1_264_000)).toBe('1.26 M');
-    expect(formatGrowthRate(0.147)).toBe('+14.7 %/day');
-    expect(formatGrowthRate(-0.02)).toBe('−2.0 %/day');
-    expect(formatSignedPersons(-53.2)).toBe('−53');
+    expect(screen.r(2.49997)).toBe('2.50');
+    expect(screen.percent(0.8336)).toBe('83.4 %');
+    expect(screen.percent(0.00042)).toBe('0.042 %');
+    expect(screen.percent(1e-16)).toBe('< 0.001 %');
+    expect(screen.persons(8297.66)).toBe('8,298');
+    expect(screen.persons(1_264_000)).toBe('1.26 M');
+    expect(screen.growthRate(0.147)).toBe('+14.7 %/day');
+    expect(screen.growthRate(-0.02)).toBe('−2.0 %/day');
+    expect(screen.signedPersons(-53.2)).toBe('−53');
     expect(relativeChange(90, 100)).toBeCloseTo(-0.1);
     expect(relativeChange(1, 0)).toBeNull();
   });

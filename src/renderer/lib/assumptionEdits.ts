@@ -15,7 +15,7 @@ import {
   defaultInfectionHospitalisationRatio,
 } from '../../engine/healthcare/defaults.ts';
 import { HOSPITAL_DEFAULT_SOURCE } from '../../report/assumptions.ts';
-import { formatPercent, formatPersons } from './format.ts';
+import { screen } from '../../report/numberFormat.ts';
 import { groupLabel } from './priorityOrder.ts';
 
 /**
@@ -109,10 +109,10 @@ export function campaignSummary(scenario: Scenario, campaign: Campaign): Campaig
   const admission = campaign.efficacyAgainstAdmission ?? campaign.efficacyAgainstDeath;
   return {
     name: campaign.name,
-    schedule: steps.map((s) => `${formatPersons(s.dosesPerDay)} per day from day ${s.fromDay}`).join('; '),
+    schedule: steps.map((s) => `${screen.persons(s.dosesPerDay)} per day from day ${s.fromDay}`).join('; '),
     efficacies:
-      `infection ${formatPercent(campaign.efficacyAgainstInfection)}, admission ${formatPercent(admission)}` +
-      `${campaign.efficacyAgainstAdmission === undefined ? ' (as death)' : ''}, death ${formatPercent(campaign.efficacyAgainstDeath)}`,
+      `infection ${screen.percent(campaign.efficacyAgainstInfection)}, admission ${screen.percent(admission)}` +
+      `${campaign.efficacyAgainstAdmission === undefined ? ' (as death)' : ''}, death ${screen.percent(campaign.efficacyAgainstDeath)}`,
     protection: campaign.protection === 'leaky' ? 'leaky' : 'all-or-nothing',
     delayDays: campaign.delayToProtectionDays,
     order: campaign.priority.map((group) => groupLabel(group, labels)).join(' → '),
