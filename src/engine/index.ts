@@ -29,3 +29,4 @@ export {
   yearsOfLifeLostByBand,
   type LifeTable,
 } from './lifeExpectancy.ts';
+export * from './uncertainty/index.ts';

@@ -9,6 +9,7 @@ import { z } from 'zod';
 import { campaignSchema } from './vaccination/schema.ts';
 import { fitRecordSchema } from './fitting/fitRecord.ts';
 import { lifeTableSchema } from './lifeExpectancy.ts';
+import { uncertaintySchema } from './uncertainty/schema.ts';
 import { DEFAULT_ADMISSION_DELAY, DEFAULT_ICU_PATIENT_WARD_STAY, DEFAULT_ICU_STAY, DEFAULT_WARD_STAY } from './healthcare/defaults.ts';
 
 export const SCENARIO_FORMAT = 'mixwise-scenario';
@@ -166,6 +167,8 @@ export const scenarioSchema = z.object({
   vaccinationCampaigns: z.array(campaignSchema).default([]),
   /** Optional: remaining life expectancy by age for years of life lost; the GBD 2019 reference table if absent (lifeExpectancy.ts). */
   lifeTable: lifeTableSchema.optional(),
+  /** Optional: uncertain inputs and how to draw them (see src/engine/uncertainty). */
+  uncertainty: uncertaintySchema.optional(),
 });
 
 /** A scenario as written in a file (defaults may be missing). */
@@ -179,3 +182,4 @@ export type AgeFactor = z.output<typeof ageFactorSchema>;
 export type Delay = z.output<typeof delaySchema>;
 export type Healthcare = z.output<typeof healthcareSchema>;
 export type { Campaign, CampaignInput } from './vaccination/schema.ts';
+export type { Uncertainty, UncertaintyInput, UncertainParameter, Distribution } from './uncertainty/schema.ts';

@@ -10,6 +10,7 @@ import { healthcareProblems } from './healthcare/validation.ts';
 import { lifeTableProblems } from './lifeExpectancy.ts';
 import { calibrationProblem } from './prepare.ts';
 import { vaccinationProblems } from './vaccination/validation.ts';
+import { uncertaintyProblems } from './uncertainty/validation.ts';
 import { scenarioSchema, type Scenario } from './scenario.ts';
 
 export interface Problem {
@@ -60,6 +61,7 @@ const TYPE_WORDS: Record<string, string> = {
   array: 'a list',
   object: 'an object',
   boolean: 'true or false',
+  int: 'a whole number',
 };
 
 function ruleOf(issue: z.core.$ZodIssue, value: unknown): string {
@@ -71,7 +73,7 @@ function ruleOf(issue: z.core.$ZodIssue, value: unknown): string {
     return `must be ${issue.values.map((v) => JSON.stringify(v)).join(' or ')}`;
   }
   if (issue.code === 'unrecognized_keys') return `has unknown field(s) ${issue.keys.join(', ')}`;
-  if (issue.code === 'invalid_union') return 'does not match any allowed form';
+  if (issue.code === 'invalid_union') return /^must /.test(issue.message) ? issue.message : 'does not match any allowed form';
   const msg = issue.message;
   if (/^must |^is |^has /.test(msg)) return msg;
   if (issue.code === 'too_small') return `must have at least ${String(issue.minimum)}${issue.origin === 'array' ? ' item(s)' : ''}`;
@@ -177,6 +179,7 @@ export function crossFieldProblems(s: Scenario): Problem[] {
   problems.push(...healthcareProblems(s));
   problems.push(...vaccinationProblems(s));
   problems.push(...lifeTableProblems(s));
+  problems.push(...uncertaintyProblems(s));
   return problems;
 }
 

@@ -1,0 +1,31 @@
+/** Uncertainty: Latin hypercube draws of uncertain inputs, intervals, paired comparisons and PRCC (issue 13). */
+export * from './schema.ts';
+export { mix64, splitMix64At, streamSeed, uniformAt } from './splitmix64.ts';
+export { latinHypercube, seededPermutation, hypercubePoint, type LatinHypercube } from './latinHypercube.ts';
+export { normalQuantile, normalCdf } from './normal.ts';
+export { distributionQuantile, distributionMedian, lognormalSigma } from './quantiles.ts';
+export { applyDraw, applyParameter } from './applyDraw.ts';
+export {
+  DRAW_OUTCOMES,
+  DRAW_OUTCOME_KEYS,
+  outcomeVector,
+  prepareDraws,
+  parameterValues,
+  evaluateDraw,
+  evaluateDrawRange,
+  evaluateOptionUnderDraw,
+  type PreparedDraws,
+  type DrawResult,
+} from './drawOutcomes.ts';
+export { sortedQuantile, intervalOf, probabilityLower, probabilityLowest, type Interval } from './summaries.ts';
+export { ranks, partialRankCorrelations } from './prcc.ts';
+export {
+  COMPARED_OUTCOMES,
+  SAMPLING,
+  summariseDraws,
+  withDrawSettings,
+  type UncertaintyRun,
+  type OptionUncertainty,
+  type SensitivityEntry,
+  type UncertaintyResults,
+} from './ensemble.ts';
