@@ -31,6 +31,7 @@ export const DRAW_OUTCOMES: readonly { key: string; read: (o: OptionResults) => 
   { key: 'infections', read: (o) => o.infections },
   { key: 'attackRate', read: (o) => o.attackRate },
   { key: 'deaths', read: (o) => o.deaths },
+  { key: 'yearsOfLifeLost', read: (o) => o.yearsOfLifeLost },
   { key: 'infectionsAverted', read: (o) => o.comparison?.infectionsAverted ?? null },
   { key: 'deathsAverted', read: (o) => o.comparison?.deathsAverted ?? null },
   { key: 'doses', read: (o) => o.vaccination?.doses ?? null },
