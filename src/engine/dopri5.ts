@@ -23,6 +23,16 @@ const MAX_STEPS = 1_000_000;
 
 export const DEFAULT_TOLERANCES: Tolerances = { relative: 1e-5, absolute: 1e-6, maxStep: 10 };
 
+let attemptedSteps = 0;
+
+/**
+ * Steps attempted (accepted and rejected) by every `integrate` call so far in this realm: a
+ * deterministic measure of the integrator's work, for step budgets in tests (never timings).
+ */
+export function integratorStepsSoFar(): number {
+  return attemptedSteps;
+}
+
 const C2 = 1 / 5, C3 = 3 / 10, C4 = 4 / 5, C5 = 8 / 9;
 const A21 = 1 / 5;
 const A31 = 3 / 40, A32 = 9 / 40;
@@ -83,6 +93,7 @@ export function integrate(
   while (out < outputTimes.length && outputTimes[out] <= t0) out++;
   rhs(t, y, k1);
   while (t < t1) {
+    attemptedSteps++;
     const last = t + 1.01 * h >= t1;
     if (last) h = t1 - t;
     for (let i = 0; i < n; i++) stage[i] = y[i] + h * A21 * k1[i];

@@ -17,6 +17,7 @@ export { prepareScenario, periodsOf, type PreparedScenario } from './prepare.ts'
 export { simulateOption } from './simulate.ts';
 export { finalSizeByBand } from './finalSize.ts';
 export { nextGenerationMatrix, dominantEigenvalue } from './ngm.ts';
+export { integratorStepsSoFar } from './dopri5.ts';
 export * from './healthcare/index.ts';
 export * from './vaccination/index.ts';
 export { totalOverBands, weightedBandSum } from './bandTotals.ts';

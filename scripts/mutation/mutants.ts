@@ -1,0 +1,116 @@
+/**
+ * The hand-made mutants of src/engine for `scripts/mutation/run.ts`: each replaces one exact piece
+ * of text (which must occur exactly once in its file) by a plausible slip: an operator flipped, a
+ * factor dropped, a constant changed, indices swapped. A mutant whose text no longer exists
+ * (the code moved on) is reported as "stale", not counted; update or drop it.
+ */
+
+export interface Mutant {
+  id: string;
+  /** Path from the repository root. */
+  file: string;
+  find: string;
+  replace: string;
+  /** What the slip means for the model. */
+  what: string;
+}
+
+const T = 'src/engine/transmission.ts';
+const C = 'src/engine/contacts.ts';
+const S = 'src/engine/seir.ts';
+const D = 'src/engine/dopri5.ts';
+const I = 'src/engine/integrateOption.ts';
+const N = 'src/engine/ngm.ts';
+const P = 'src/engine/prepare.ts';
+const SIM = 'src/engine/simulate.ts';
+const F = 'src/engine/finalSize.ts';
+const G = 'src/engine/growth.ts';
+const R = 'src/engine/reproduction.ts';
+
+export const MUTANTS: Mutant[] = [
+  // Transmission matrix M_ij = beta u_i C_ij h_j (1 - c) / N_j
+  { id: 'tm-drop-h', file: T, find: '* bp.infectiousness[j] * keep', replace: '* keep', what: 'relative infectiousness h_j left out' },
+  { id: 'tm-drop-u', file: T, find: 'beta * bp.susceptibility[i] * out', replace: 'beta * out', what: 'relative susceptibility u_i left out' },
+  { id: 'tm-drop-c', file: T, find: 'const keep = 1 - (phase?.caseIsolation ?? 0);', replace: 'const keep = 1;', what: 'case isolation ignored' },
+  { id: 'tm-u-index', file: T, find: 'bp.susceptibility[i]', replace: 'bp.susceptibility[j]', what: 'u taken from the infector band' },
+  { id: 'tm-h-index', file: T, find: 'bp.infectiousness[j]', replace: 'bp.infectiousness[i]', what: 'h taken from the infectee band' },
+  { id: 'tm-divide-ni', file: T, find: ') / nj :', replace: ') / bp.population[i] :', what: 'divided by N_i instead of N_j' },
+  { id: 'tm-h-from-u', file: T, find: 's.disease.relativeInfectiousness ??', replace: 's.disease.relativeSusceptibility ??', what: 'infectiousness read from the susceptibility field' },
+  { id: 'tm-c-sign', file: T, find: '1 - (phase?.caseIsolation ?? 0)', replace: '1 - 0.5 * (phase?.caseIsolation ?? 0)', what: 'case isolation half as strong' },
+  // Contacts under measures
+  { id: 'ct-max-factor', file: C, find: 'Math.min(f[i], f[j])', replace: 'Math.max(f[i], f[j])', what: 'larger age factor of the pair instead of the smaller' },
+  { id: 'ct-row-factor', file: C, find: 'Math.min(f[i], f[j])', replace: 'f[i]', what: 'age factor of the row band only' },
+  { id: 'ct-drop-multiplier', file: C, find: '+= m * Math.min', replace: '+= Math.min', what: 'setting multiplier ignored' },
+  { id: 'ct-factors-replace', file: C, find: 'factors[s][b] *= af.factor', replace: 'factors[s][b] = af.factor', what: 'several factors for one band replace instead of multiply' },
+  { id: 'ct-default-multiplier', file: C, find: "phase?.settingMultipliers[s.name] ?? 1", replace: "phase?.settingMultipliers[s.name] ?? 0", what: 'unnamed settings closed under a phase' },
+  { id: 'ct-reciprocity-nj', file: C, find: '/ (2 * population[i])', replace: '/ (2 * population[j])', what: 'reciprocity correction divides by N_j' },
+  { id: 'ct-imbalance-sum', file: C, find: 'Math.abs(a - b) / big', replace: 'Math.abs(a - b) / (a + b)', what: 'imbalance relative to the sum' },
+  // SEIR right-hand side
+  { id: 'rhs-latent-rate-e1', file: S, find: 'dydt[oE + i] = flow - aE * y[oE + i];', replace: 'dydt[oE + i] = flow - aI * y[oE + i];', what: 'first latent stage leaves at the infectious rate' },
+  { id: 'rhs-ae-no-stages', file: S, find: 'const aE = L.latentStages / latentPeriodDays;', replace: 'const aE = 1 / latentPeriodDays;', what: 'latent stage rate ignores the stage count' },
+  { id: 'rhs-ai-no-stages', file: S, find: 'const aI = L.infectiousStages / infectiousPeriodDays;', replace: 'const aI = 1 / infectiousPeriodDays;', what: 'infectious stage rate ignores the stage count' },
+  { id: 'rhs-first-stage-only', file: S, find: 'sum += y[oI + k * n + j];', replace: 'sum += y[oI + j];', what: 'only the first infectious stage infects (counted k times)' },
+  { id: 'rhs-transposed', file: S, find: 'lambda += transmission[row + j] * infectious[j];', replace: 'lambda += transmission[j * n + i] * infectious[j];', what: 'force of infection with M transposed' },
+  { id: 'rhs-recovery-first', file: S, find: 'dydt[oR + i] = aI * y[lastI + i];', replace: 'dydt[oR + i] = aI * y[oI + i];', what: 'recovery from the first infectious stage' },
+  { id: 'rhs-counter-unvaccinated', file: S, find: 'dydt[oX + i] = flow;', replace: 'dydt[oX + i] = lambda * susceptible;', what: 'infection counter misses W and P infections' },
+  { id: 'rhs-protected-risk', file: S, find: 'const protectedFlow = risk * lambda * p;', replace: 'const protectedFlow = lambda * p;', what: 'protected people at full risk' },
+  { id: 'rhs-dose-share', file: S, find: 'Math.min(1, susceptible / u)', replace: '1', what: 'every dose lands on a susceptible' },
+  { id: 'rhs-aon-immune', file: S, find: 'dydt[oV + i] = leaky ? 0 : efficacy * protecting;', replace: 'dydt[oV + i] = 0;', what: 'all-or-nothing successes vanish' },
+  { id: 'rhs-leaky-risk', file: S, find: "v.protection === 'leaky' ? 1 - v.efficacyAgainstInfection : 1", replace: "v.protection === 'leaky' ? v.efficacyAgainstInfection : 1", what: 'leaky risk e instead of 1 - e' },
+  { id: 'rhs-no-clip', file: S, find: 'infectious[j] = sum > 0 ? sum : 0;', replace: 'infectious[j] = sum;', what: 'negative infectious dips not clipped' },
+  { id: 'rhs-latent-chain-rate', file: S, find: 'dydt[at] = aE * (y[at - n] - y[at]);', replace: 'dydt[at] = aI * (y[at - n] - y[at]);', what: 'later latent stages at the infectious rate' },
+  { id: 'rhs-waiting-infected', file: S, find: 'dydt[oW + i] = toWaiting - lambda * w - protecting;', replace: 'dydt[oW + i] = toWaiting - protecting;', what: 'vaccinated-waiting people not infected' },
+  // Integrator
+  { id: 'dp-a41', file: D, find: 'A41 = 44 / 45', replace: 'A41 = 44 / 46', what: 'a Butcher coefficient off' },
+  { id: 'dp-b5', file: D, find: 'A75 = -2187 / 6784', replace: 'A75 = -2187 / 6785', what: 'a 5th-order weight off slightly' },
+  { id: 'dp-e1', file: D, find: 'E1 = 71 / 57600', replace: 'E1 = 71 / 5760', what: 'error estimate coefficient off' },
+  { id: 'dp-ignore-maxstep', file: D, find: 'h = Math.min(h * factor, tol.maxStep);', replace: 'h = h * factor;', what: 'largest step ignored' },
+  { id: 'dp-dense-sign', file: D, find: 'r4[i] = ydiff - h * k7[i] - bspl;', replace: 'r4[i] = ydiff - h * k7[i] + bspl;', what: 'dense output sign slip' },
+  { id: 'dp-d5', file: D, find: 'D5 = 701980252875 / 199316789632', replace: 'D5 = 701980252875 / 189316789632', what: 'dense output coefficient off' },
+  { id: 'dp-accept-all', file: D, find: 'if (!(err <= 1)) {', replace: 'if (!(err <= 1000)) {', what: 'steps with large error accepted' },
+  { id: 'dp-theta', file: D, find: 'const theta = (outputTimes[out] - t) / h;', replace: 'const theta = (outputTimes[out] - t) / (1.01 * h);', what: 'dense output at a slightly wrong time' },
+  // Daily record
+  { id: 'io-no-stable-cap', file: I, find: 'return Math.min(DEFAULT_TOLERANCES.maxStep, 2.5 / Math.max(...rates));', replace: 'return DEFAULT_TOLERANCES.maxStep;', what: 'no stability cap on the step' },
+  { id: 'io-prevalence-e-only', file: I, find: 'for (let k = 0; k < infectedBlocks; k++)', replace: 'for (let k = 0; k < L.latentStages; k++)', what: 'prevalence counts E only' },
+  { id: 'io-eff-susceptible', file: I, find: 'const eff = s + y[oW + i] + risk * y[oP + i];', replace: 'const eff = s + y[oW + i] + y[oP + i];', what: 'R(t) counts protected people at full risk' },
+  { id: 'io-last-day', file: I, find: 'd <= seg.toDay; d++) days.push(d);', replace: 'd < seg.toDay; d++) days.push(d);', what: 'last day of each segment not recorded' },
+  // Next-generation matrix
+  { id: 'ngm-drop-s', file: N, find: 'const f = infectiousPeriodDays * susceptible[i];', replace: 'const f = infectiousPeriodDays;', what: 'K without the susceptibles' },
+  { id: 'ngm-drop-d', file: N, find: 'const f = infectiousPeriodDays * susceptible[i];', replace: 'const f = susceptible[i];', what: 'K without the infectious period' },
+  { id: 'ngm-first-eigenvalue', file: N, find: 'for (const v of eig.realEigenvalues) if (v > best) best = v;', replace: 'best = eig.realEigenvalues[0];', what: 'first eigenvalue returned, not the largest' },
+  { id: 'ngm-power-rowscale', file: N, find: 'if (rowScale !== null) acc *= rowScale[i];', replace: 'if (rowScale !== null) acc *= rowScale[0];', what: 'R(t) scales every row by band 0 susceptibles' },
+  { id: 'ngm-bracket-high', file: N, find: 'return 0.5 * (low + high);', replace: 'return high;', what: 'upper bracket instead of the midpoint' },
+  // Calibration and initial state
+  { id: 'prep-no-immunity', file: P, find: 'const immune = n * (init.priorImmunityFraction?.[i] ?? 0);', replace: 'const immune = 0;', what: 'prior immunity ignored' },
+  { id: 'prep-seeds-kept', file: P, find: 'Math.max(0, n - immune - seed)', replace: 'Math.max(0, n - immune)', what: 'seeds not taken from the susceptibles' },
+  { id: 'prep-doubling-full', file: P, find: 'beta = rTarget / reproductionPerUnitBeta(s, bp, initialSusceptible);', replace: 'beta = rTarget / perBetaFull;', what: 'doubling time calibrated at full susceptibility' },
+  { id: 'prep-seed-latent', file: P, find: "(init.infectedCompartment === 'latent' ? L.latent : L.infectious)", replace: 'L.latent', what: 'seeds always latent' },
+  // Outcomes
+  { id: 'sim-no-seed-incidence', file: SIM, find: 'for (let i = 0; i < n; i++) incidence[i] += p.seeds[i];', replace: '', what: 'seeds missing from day-0 incidence' },
+  { id: 'sim-deaths-no-protection', file: SIM, find: '(x - (1 - deathFactor) * protectedByBand[i]) * p.infectionFatalityRatio[i]', replace: 'x * p.infectionFatalityRatio[i]', what: 'vaccine protection against death ignored in deaths by band' },
+  { id: 'sim-final-size-s0', file: SIM, find: "(N > 0 ? 1 - (s.initialState.priorImmunityFraction?.[i] ?? 0) : 0)", replace: '(N > 0 ? 1 : 0)', what: 'final-size check ignores prior immunity' },
+  { id: 'sim-attack-total', file: SIM, find: '(population[i] > 0 ? x / population[i] : 0)', replace: '(population[i] > 0 ? x / totalPopulation : 0)', what: 'band attack rate over the whole population' },
+  { id: 'sim-rstart-full', file: SIM, find: 'segments[0].transmission, p.initialSusceptible,', replace: 'segments[0].transmission, p.bands.population,', what: 'R at start ignores prior immunity' },
+  // Final size
+  { id: 'fs-transposed', file: F, find: 'transmission[i * n + j] * population[j] * z[j]', replace: 'transmission[j * n + i] * population[j] * z[j]', what: 'final size with M transposed' },
+  { id: 'fs-no-s0', file: F, find: 'next[i] = initialSusceptibleFraction[i] * -Math.expm1(-pressure);', replace: 'next[i] = -Math.expm1(-pressure);', what: 'final size ignores initial susceptibility' },
+  // Growth rate
+  { id: 'gr-latent-one-stage', file: G, find: 'Math.pow(1 + (r * te) / ke, -ke)', replace: 'Math.pow(1 + r * te, -1)', what: 'latent stages ignored in M(r)' },
+  { id: 'gr-series', file: G, find: '1 - (x * (ki + 1)) / (2 * ki)', replace: '1 - x / 2', what: 'series near r = 0 for one stage only' },
+  { id: 'gr-doubling-zero', file: G, find: 'r > 0 ? Math.LN2 / r : null', replace: 'r >= 0 ? Math.LN2 / r : null', what: 'doubling time at r = 0 is Infinity' },
+  // R(t)
+  { id: 'rt-drop-d', file: R, find: 'rowScale[i] = D * effectiveSusceptible[d * n + i];', replace: 'rowScale[i] = effectiveSusceptible[d * n + i];', what: 'R(t) without the infectious period' },
+  { id: 'rt-warm-start', file: R, find: 'if (d - 3 >= measuresSince) {', replace: 'if (d - 3 >= 0) {', what: 'extrapolated start across a measures change' },
+  { id: 'rt-segment-late', file: R, find: 'd >= segments[seg].toDay', replace: 'd > segments[seg].toDay', what: 'R(t) on a change day uses the old measures' },
+  // Phases and segments
+  { id: 'ph-end-inclusive', file: 'src/engine/phases.ts', find: 't >= p.fromDay && t < p.toDay', replace: 't >= p.fromDay && t <= p.toDay', what: 'phase end day inclusive' },
+  { id: 'seg-no-change', file: 'src/engine/segments.ts', find: 'const changes = transmission === null || measureDays.includes(from);', replace: 'const changes = transmission === null;', what: 'measures never change after the first segment' },
+  // Delays, hospital demand, vaccination, comparisons
+  { id: 'dist-midday', file: 'src/engine/distributions.ts', find: 'gammaCdf(k + 0.5, meanDays, shape)', replace: 'gammaCdf(k + 1, meanDays, shape)', what: 'daily delay weights without the mid-day convention' },
+  { id: 'dist-trim', file: 'src/engine/distributions.ts', find: 'weights[last - 1] < 1e-16', replace: 'weights[last - 1] < 1e-3', what: 'kernel tail trimmed too far' },
+  { id: 'hc-icu-ward-stay', file: 'src/engine/healthcare/demand.ts', find: 'addInto(wardOccupancy, convolve(icu, g.icuPatientWardBedDays));', replace: '', what: 'ward stay of ICU patients not counted' },
+  { id: 'hc-complete', file: 'src/engine/healthcare/demand.ts', find: 'lag < k.length ? k[lag] : complete', replace: 'lag < k.length ? k[lag] : 0', what: 'admissions of early infections dropped' },
+  { id: 'vx-risk-ratio', file: 'src/engine/vaccination/prepare.ts', find: '(1 - efficacyAgainstOutcome) / (1 - efficacyAgainstInfection)', replace: '(1 - efficacyAgainstOutcome)', what: 'relative risk given infection not divided by 1 - e_I' },
+  { id: 'vx-admission-default', file: 'src/engine/vaccination/prepare.ts', find: 'c.efficacyAgainstAdmission ?? c.efficacyAgainstDeath', replace: 'c.efficacyAgainstAdmission ?? 0', what: 'admission efficacy defaults to 0' },
+  { id: 'run-per-1000', file: 'src/engine/run.ts', find: '(1000 * averted) / doses', replace: 'averted / doses', what: 'averted per dose, not per 1,000 doses' },
+];
