@@ -35,16 +35,37 @@ export function settingMultipliers(settings: readonly Setting[], phase: Phase | 
  * Writes the combined contact matrix (contacts per day, row-major n x n) under `phase` into `out`.
  */
 export function effectiveContactsInto(out: Float64Array, settings: readonly Setting[], bands: number, phase: Phase | null): Float64Array {
+  return effectiveContactsOfPhasesInto(out, settings, bands, phase === null ? [] : [phase]);
+}
+
+/**
+ * The combined contact matrix when several phases are in force at once (a triggered phase over a
+ * fixed one): each phase scales what the others leave, so multipliers multiply and so do the
+ * phases' pair factors,
+ *
+ *   C_ij = sum_s (prod_p m_{p,s}) * (prod_p min(f_{p,s,i}, f_{p,s,j})) * C^s_ij,
+ *
+ * which is symmetric in i and j like the one-phase rule, so reciprocity is kept. With one phase it
+ * is exactly the one-phase rule above; with none, the usual contacts.
+ */
+export function effectiveContactsOfPhasesInto(out: Float64Array, settings: readonly Setting[], bands: number, phases: readonly Phase[]): Float64Array {
   out.fill(0);
-  const multipliers = settingMultipliers(settings, phase);
-  const factors = ageFactorsBySetting(settings, bands, phase);
+  const multipliers = new Float64Array(settings.length).fill(1);
+  const factorsByPhase = phases.map((phase) => {
+    const m = settingMultipliers(settings, phase);
+    for (let s = 0; s < settings.length; s++) multipliers[s] *= m[s];
+    return ageFactorsBySetting(settings, bands, phase);
+  });
   settings.forEach((setting, s) => {
     const m = multipliers[s];
     if (m === 0) return;
-    const f = factors[s];
     for (let i = 0; i < bands; i++) {
       const row = setting.contactsPerDay[i];
-      for (let j = 0; j < bands; j++) out[i * bands + j] += m * Math.min(f[i], f[j]) * row[j];
+      for (let j = 0; j < bands; j++) {
+        let pair = 1;
+        for (const f of factorsByPhase) pair *= Math.min(f[s][i], f[s][j]);
+        out[i * bands + j] += m * pair * row[j];
+      }
     }
   });
   return out;

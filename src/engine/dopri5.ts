@@ -53,6 +53,8 @@ export class Dopri5Workspace {
   /** Accepted and rejected step counts of the last call. */
   steps = 0;
   rejected = 0;
+  /** Where the last call stopped early at the sink's request, or null when it reached t1. */
+  stoppedAt: number | null = null;
   constructor(readonly size: number) {
     const f = () => new Float64Array(size);
     this.k1 = f(); this.k2 = f(); this.k3 = f(); this.k4 = f(); this.k5 = f(); this.k6 = f(); this.k7 = f();
@@ -63,14 +65,17 @@ export class Dopri5Workspace {
 
 /**
  * Called for each requested output time inside an accepted step, with the dense-output state
- * (a scratch buffer: copy what you need).
+ * (a scratch buffer: copy what you need). Returning `true` (exactly) stops the integration at that time:
+ * the right-hand side is about to change there (a triggered measure). The step that passed it is
+ * then redone to end exactly at that time, so y is the integrator's own solution there.
  */
-export type OutputSink = (t: number, y: Float64Array) => void;
+export type OutputSink = (t: number, y: Float64Array) => unknown;
 
 /**
- * Integrates y from t0 to t1 in place (y holds y(t1) on return), calling `sink` at each time of
- * `outputTimes` (ascending, within (t0, t1]). Returns the last accepted step size, to start the
- * next segment with.
+ * Integrates y from t0 to t1 in place (y holds y(t_end) on return), calling `sink` at each time
+ * of `outputTimes` (ascending, within (t0, t1]). t_end is t1, or the output time at which `sink`
+ * asked to stop (in `ws.stoppedAt`). Returns the last accepted step size, to start the next
+ * segment with.
  */
 export function integrate(
   rhs: RightHandSide,
@@ -87,6 +92,7 @@ export function integrate(
   const { k1, k2, k3, k4, k5, k6, k7, stage, next, r1, r2, r3, r4, r5 } = ws;
   ws.steps = 0;
   ws.rejected = 0;
+  ws.stoppedAt = null;
   let t = t0;
   let h = Math.min(initialStep, tol.maxStep, t1 - t0);
   let out = 0;
@@ -134,12 +140,27 @@ export function integrate(
         r4[i] = ydiff - h * k7[i] - bspl;
         r5[i] = h * (D1 * k1[i] + D3 * k3[i] + D4 * k4[i] + D5 * k5[i] + D6 * k6[i] + D7 * k7[i]);
       }
+      let stopAt = Number.NaN;
       while (out < outputTimes.length && outputTimes[out] <= tNew) {
         const theta = (outputTimes[out] - t) / h;
         const theta1 = 1 - theta;
         for (let i = 0; i < n; i++) stage[i] = r1[i] + theta * (r2[i] + theta1 * (r3[i] + theta * (r4[i] + theta1 * r5[i])));
-        sink(outputTimes[out], stage);
+        const stop = sink(outputTimes[out], stage);
         out++;
+        if (stop === true) {
+          stopAt = outputTimes[out - 1];
+          break;
+        }
+      }
+      if (!Number.isNaN(stopAt)) {
+        ws.stoppedAt = stopAt;
+        t1 = stopAt;
+        if (stopAt < tNew) {
+          // Redo this step so that it ends exactly where the right-hand side changes.
+          ws.steps--;
+          h = stopAt - t;
+          continue;
+        }
       }
     }
     y.set(next);

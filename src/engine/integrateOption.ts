@@ -6,6 +6,8 @@ import { initialStateOf } from './prepare.ts';
 import type { PreparedScenario } from './prepare.ts';
 import { protectedRisk, seirRightHandSide, stateLayout } from './seir.ts';
 import type { Segment } from './segments.ts';
+import type { Phase } from './scenario.ts';
+import type { TriggeredMeasures } from './triggeredMeasures.ts';
 import type { PreparedCampaign } from './vaccination/prepare.ts';
 
 /**
@@ -39,7 +41,18 @@ function largestStableStep(p: PreparedScenario, campaign: PreparedCampaign | nul
   return Math.min(DEFAULT_TOLERANCES.maxStep, 2.5 / Math.max(...rates));
 }
 
-export function integrateOption(p: PreparedScenario, segments: readonly Segment[], campaign: PreparedCampaign | null): DailyState {
+/**
+ * Integrates an option over its segments. With `triggered`, the measures also change on the days
+ * its triggers decide (checked at every whole day): the integration stops there, the transmission
+ * matrix is rebuilt for the measures then in force, and it restarts. `realized` receives the
+ * segments as they were actually run (cut at every switch), for R(t).
+ */
+export function integrateOption(
+  p: PreparedScenario,
+  segments: readonly Segment[],
+  campaign: PreparedCampaign | null,
+  triggered: { measures: TriggeredMeasures; fixedPhaseAt: (t: number) => Phase | null; realized: Segment[] } | null = null,
+): DailyState {
   const n = p.bands.bands;
   const H = p.scenario.horizonDays;
   const L = campaign === null ? p.layout : stateLayout(n, p.periods.latentStages, p.periods.infectiousStages, true);
@@ -84,12 +97,37 @@ export function integrateOption(p: PreparedScenario, segments: readonly Segment[
   const ws = new Dopri5Workspace(L.size);
   const tolerances = { ...DEFAULT_TOLERANCES, maxStep: largestStableStep(p, campaign) };
   let step = 0.25;
-  for (const seg of segments) {
-    transmission.set(seg.transmission);
-    doseRates.set(seg.doseRates);
-    const days: number[] = [];
-    for (let d = Math.floor(seg.fromDay) + 1; d <= seg.toDay; d++) days.push(d);
-    step = integrate(rhs, y, seg.fromDay, seg.toDay, days, (t, state) => record(Math.round(t), state), ws, tolerances, Math.min(tolerances.maxStep, Math.max(step, 0.05)));
+  if (triggered === null) {
+    for (const seg of segments) {
+      transmission.set(seg.transmission);
+      doseRates.set(seg.doseRates);
+      const days: number[] = [];
+      for (let d = Math.floor(seg.fromDay) + 1; d <= seg.toDay; d++) days.push(d);
+      step = integrate(rhs, y, seg.fromDay, seg.toDay, days, (t, state) => record(Math.round(t), state), ws, tolerances, Math.min(tolerances.maxStep, Math.max(step, 0.05)));
+    }
+  } else {
+    const { measures, fixedPhaseAt, realized } = triggered;
+    let switched = measures.atDay(0, y, daily);
+    const sink = (t: number, state: Float64Array): boolean => {
+      const d = Math.round(t);
+      record(d, state);
+      return d < H && measures.atDay(d, state, daily);
+    };
+    for (const seg of segments) {
+      doseRates.set(seg.doseRates);
+      let from = seg.fromDay;
+      while (from < seg.toDay) {
+        transmission.set(measures.transmissionWith(fixedPhaseAt(from)));
+        const measuresChange = (from === seg.fromDay && seg.measuresChange) || switched;
+        realized.push({ fromDay: from, toDay: seg.toDay, transmission: transmission.slice(), doseRates: seg.doseRates, measuresChange });
+        const days: number[] = [];
+        for (let d = Math.floor(from) + 1; d <= seg.toDay; d++) days.push(d);
+        step = integrate(rhs, y, from, seg.toDay, days, sink, ws, tolerances, Math.min(tolerances.maxStep, Math.max(step, 0.05)));
+        switched = ws.stoppedAt !== null;
+        from = ws.stoppedAt ?? seg.toDay;
+        realized[realized.length - 1].toDay = from;
+      }
+    }
   }
   if (L.dosesToNonSusceptible >= 0) for (let i = 0; i < n; i++) daily.dosesToNonSusceptible[i] = Math.max(0, y[L.dosesToNonSusceptible + i]);
   return daily;

@@ -72,6 +72,10 @@ export interface OptionResults {
   healthcare: HealthcareOutcomes | null;
   /** The option's vaccination campaign; null when it has none. */
   vaccination: VaccinationOutcomes | null;
+  /** What each triggered phase did (empty when the option has no trigger); see triggers.ts. */
+  triggers: TriggerOutcome[];
+  /** Days (of 0..H-1) on which any phase's measures were in force, fixed or triggered. */
+  daysUnderMeasures: number;
   /** Against the reference option (filled when the reference is run with it; null otherwise). */
   comparison: Comparison | null;
 }
@@ -174,4 +178,19 @@ export interface Comparison {
   infectionsAvertedPer1000Doses: number | null;
   deathsAvertedPer1000Doses: number | null;
   admissionsAvertedPer1000Doses: number | null;
+}
+
+/** What one triggered phase did over the horizon (rule in src/engine/triggers.ts). */
+export interface TriggerOutcome {
+  /** Index of the phase in the option's `phases`. */
+  phase: number;
+  quantity: string;
+  /** Times the measures came into force. */
+  switchesOn: number;
+  /** Day they first came into force, or null when they never did. */
+  firstOnDay: number | null;
+  /** Days (of 0..H-1) the measures were in force. */
+  daysInForce: number;
+  /** Stretches in force, [fromDay, toDay) within the horizon, for shading the curves. */
+  periods: { fromDay: number; toDay: number }[];
 }

@@ -89,13 +89,36 @@ export const ageFactorSchema = z.object({
   factor: nonNegative,
 });
 
+/** What a trigger watches (see src/engine/triggers.ts for how each is read on a decision day). */
+export const TRIGGER_QUANTITIES = ['infectiousPer100k', 'dailyInfectionsPer100k', 'dailyAdmissions', 'wardOccupancy', 'icuOccupancy'] as const;
+export type TriggerQuantity = (typeof TRIGGER_QUANTITIES)[number];
+/** Quantities read from the hospital model: a trigger on them needs a `healthcare` section. */
+export const HOSPITAL_TRIGGER_QUANTITIES: readonly TriggerQuantity[] = ['dailyAdmissions', 'wardOccupancy', 'icuOccupancy'];
+
 /**
- * A phase: from `fromDay` (inclusive) to `toDay` (exclusive) the measures apply.
+ * Switches a phase's measures on and off by what the epidemic does (rule in src/engine/triggers.ts):
+ * on a decision day the measures come into force (after `lagDays`) when the quantity is above
+ * `onAbove`, and lift (after `lagDays`) when it is below `offBelow` and they have been in force at
+ * least `minimumDaysOn` days. Thresholds are in the quantity's unit (per 100,000 population, or persons).
+ */
+export const triggerSchema = z.object({
+  quantity: z.enum(TRIGGER_QUANTITIES),
+  onAbove: nonNegative,
+  offBelow: nonNegative,
+  minimumDaysOn: wholeDay.default(0),
+  lagDays: wholeDay.default(0),
+});
+
+/**
+ * A phase: from `fromDay` (inclusive) to `toDay` (exclusive) the measures apply — on every day
+ * when the phase has no `trigger`, on the days its trigger keeps them in force when it has one.
  * Outside every phase contacts are as usual.
  */
 export const phaseSchema = z.object({
   fromDay: wholeDay,
   toDay: wholeDay,
+  /** Optional: switch these measures by a monitored quantity instead of on every day of the phase. */
+  trigger: triggerSchema.optional(),
   /** Multiplier by setting name; a setting not named stays at 1. 0 = closed, >1 allowed. */
   settingMultipliers: z.record(z.string(), nonNegative).default({}),
   ageFactors: z.array(ageFactorSchema).default([]),
@@ -178,6 +201,7 @@ export type Scenario = z.output<typeof scenarioSchema>;
 export type Setting = z.output<typeof settingSchema>;
 export type PolicyOption = z.output<typeof policyOptionSchema>;
 export type Phase = z.output<typeof phaseSchema>;
+export type Trigger = z.output<typeof triggerSchema>;
 export type AgeFactor = z.output<typeof ageFactorSchema>;
 export type Delay = z.output<typeof delaySchema>;
 export type Healthcare = z.output<typeof healthcareSchema>;

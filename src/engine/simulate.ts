@@ -15,12 +15,14 @@ import { healthcareDemand } from './healthcare/demand.ts';
 import { integrateOption } from './integrateOption.ts';
 import { yearsOfLifeLostByBand } from './lifeExpectancy.ts';
 import { nextGenerationMatrixInto, spectralRadius } from './ngm.ts';
-import { measuresConstant } from './phases.ts';
+import { hasTriggers, measuresConstant, phaseAt } from './phases.ts';
 import type { PreparedScenario } from './prepare.ts';
 import { reproductionByDay } from './reproduction.ts';
 import type { DailySeries, OptionResults, VaccinationOutcomes } from './results.ts';
 import type { PolicyOption } from './scenario.ts';
-import { segmentsOf } from './segments.ts';
+import { type Segment, segmentsOf } from './segments.ts';
+import { TriggeredMeasures } from './triggeredMeasures.ts';
+import { daysUnderMeasures } from './triggers.ts';
 import { type DosePiece, dosesByBandUntil } from './vaccination/dosePlan.ts';
 import type { PreparedCampaign } from './vaccination/prepare.ts';
 
@@ -87,8 +89,13 @@ export function simulateOption(p: PreparedScenario, option: PolicyOption): Optio
   const totalPopulation = sum(population);
   const campaign = option.vaccinationCampaign === undefined ? null : (p.campaigns.get(option.vaccinationCampaign) ?? null);
   const plan = campaign?.plan ?? [];
-  const segments = segmentsOf(p, option, plan);
-  const daily = integrateOption(p, segments, campaign);
+  const fixedSegments = segmentsOf(p, option, plan);
+  const triggered = hasTriggers(option)
+    ? { measures: new TriggeredMeasures(p, option, campaign?.admissionRiskFactor ?? 1), fixedPhaseAt: (t: number) => phaseAt(option, t), realized: [] as Segment[] }
+    : null;
+  const daily = integrateOption(p, fixedSegments, campaign, triggered);
+  const segments = triggered === null ? fixedSegments : triggered.realized;
+  const triggers = triggered === null ? [] : triggered.measures.controller.outcomes(H);
 
   const kStart = nextGenerationMatrixInto(new Float64Array(n * n), segments[0].transmission, p.initialSusceptible, p.periods.infectiousPeriodDays);
   // Certified to 1e-12 by the Collatz-Wielandt bracket; ml-matrix is the fallback inside.
@@ -154,6 +161,8 @@ export function simulateOption(p: PreparedScenario, option: PolicyOption): Optio
     series,
     healthcare: p.healthcare === null ? null : healthcareDemand(p.healthcare, weightedIncidence(incidence, protectedIncidence, campaign?.admissionRiskFactor ?? 1)),
     vaccination: campaign === null ? null : vaccinationOutcomes(campaign, plan, n, H, daily.dosesToNonSusceptible),
+    triggers,
+    daysUnderMeasures: daysUnderMeasures(option, triggers, H),
     comparison: null,
   };
 }

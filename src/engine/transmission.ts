@@ -5,7 +5,7 @@
  *   lambda_i(t) = beta u_i sum_j C_ij(t) h_j I_j(t) / N_j,
  * with c the case-isolation cut of infectiousness. A band with no people contributes nothing.
  */
-import { effectiveContactsInto } from './contacts.ts';
+import { effectiveContactsOfPhasesInto } from './contacts.ts';
 import type { Phase, Scenario } from './scenario.ts';
 
 /** Band-level inputs the transmission matrix needs, resolved once per scenario. */
@@ -30,9 +30,18 @@ export function bandParameters(s: Scenario): BandParameters {
 
 /** Writes M (row-major n x n, per day) for `phase` and transmission rate beta into `out`. */
 export function transmissionMatrixInto(out: Float64Array, s: Scenario, bp: BandParameters, beta: number, phase: Phase | null): Float64Array {
+  return transmissionMatrixOfPhasesInto(out, s, bp, beta, phase === null ? [] : [phase]);
+}
+
+/**
+ * M under several phases in force at once (contacts.ts `effectiveContactsOfPhasesInto`); case
+ * isolation cuts compound: the share of infectiousness kept is prod_p (1 - c_p).
+ */
+export function transmissionMatrixOfPhasesInto(out: Float64Array, s: Scenario, bp: BandParameters, beta: number, phases: readonly Phase[]): Float64Array {
   const n = bp.bands;
-  effectiveContactsInto(out, s.settings, n, phase);
-  const keep = 1 - (phase?.caseIsolation ?? 0);
+  effectiveContactsOfPhasesInto(out, s.settings, n, phases);
+  let keep = 1;
+  for (const phase of phases) keep *= 1 - phase.caseIsolation;
   for (let i = 0; i < n; i++) {
     for (let j = 0; j < n; j++) {
       const nj = bp.population[j];

@@ -11,7 +11,7 @@ import { lifeTableProblems } from './lifeExpectancy.ts';
 import { calibrationProblem } from './prepare.ts';
 import { vaccinationProblems } from './vaccination/validation.ts';
 import { uncertaintyProblems } from './uncertainty/validation.ts';
-import { scenarioSchema, type Scenario } from './scenario.ts';
+import { HOSPITAL_TRIGGER_QUANTITIES, scenarioSchema, type Scenario, type Trigger } from './scenario.ts';
 
 export interface Problem {
   /** JSON path in the file, e.g. `settings[1].contactsPerDay[2][0]`. */
@@ -94,6 +94,18 @@ function checkLength(problems: Problem[], path: string, arr: readonly unknown[] 
   }
 }
 
+/** A trigger's thresholds must leave a dead band, and hospital quantities need the hospital model. */
+function triggerProblems(s: Scenario, t: Trigger, at: string): Problem[] {
+  const problems: Problem[] = [];
+  if (t.offBelow > t.onAbove) {
+    problems.push({ path: `${at}.offBelow`, rule: `must be at most onAbove (${t.onAbove})`, value: String(t.offBelow) });
+  }
+  if (HOSPITAL_TRIGGER_QUANTITIES.includes(t.quantity) && s.healthcare === undefined) {
+    problems.push({ path: `${at}.quantity`, rule: 'needs a healthcare section (hospital quantities come from the hospital model)', value: JSON.stringify(t.quantity) });
+  }
+  return problems;
+}
+
 /** Rules that tie fields together; run only when the structure is valid. */
 export function crossFieldProblems(s: Scenario): Problem[] {
   const problems: Problem[] = [];
@@ -152,9 +164,11 @@ export function crossFieldProblems(s: Scenario): Problem[] {
       if (p.toDay <= p.fromDay) {
         problems.push({ path: `${at}.toDay`, rule: `must be after fromDay (${p.fromDay})`, value: String(p.toDay) });
       }
-      if (idx > 0) {
-        const prev = sorted[idx - 1];
-        if (p.fromDay < prev.p.toDay) {
+      if (p.trigger !== undefined) problems.push(...triggerProblems(s, p.trigger, `${at}.trigger`));
+      else if (idx > 0) {
+        // Fixed phases may not overlap one another; a triggered phase may overlap any phase (their measures combine).
+        const prev = sorted.slice(0, idx).reverse().find((q) => q.p.trigger === undefined);
+        if (prev !== undefined && p.fromDay < prev.p.toDay) {
           problems.push({ path: `${at}.fromDay`, rule: `must not overlap phases[${prev.k}] (which runs to day ${prev.p.toDay})`, value: String(p.fromDay) });
         }
       }
