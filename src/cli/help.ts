@@ -30,6 +30,20 @@ Usage:
       to PDF with a local Chromium (/usr/bin/chromium or $CHROMIUM_PATH; exit code 3 when
       none is found). --format csv gives the options table (one row per option), with
       --series the daily series (option, day, band, quantity, value).
+  mixwise orders FILE --option NAME [--minimise deaths|infections|admissions|
+          peakIcuOccupancy|yearsOfLifeLost] [--groups SPEC] [--top K] [--format table|json]
+          [--method auto|exhaustive|heuristic] [--budget N] [--seed N]
+      Search the priority orders of the groups of option NAME's vaccination campaign (its
+      supply, uptake ceilings, efficacy and delay unchanged) and print the K best (default 5)
+      for the outcome (default deaths), with the other outcomes and the gap to the best,
+      beside the built-in orders. --groups joins bands into priority groups by band index,
+      e.g. 0-3,4-9,10-12,13-15 (default: the campaign's own groups); every band the campaign
+      can vaccinate must be in exactly one group. Up to 8 groups the search is exhaustive and
+      proves the best orders; above, a heuristic local search from the built-in orders and
+      four random orders (seeded by --seed), within --budget simulated orders (default 1500),
+      which proves nothing.
+      An unknown option or outcome, an option without a campaign, or groups that miss or
+      repeat a band exit with code 2.
   mixwise --help       Show this text.
   mixwise --version    Show the version.
 

@@ -8,6 +8,7 @@ import { checkCommand, runCommand, type Output } from './commands.ts';
 import { EXIT_CODES, reportFault, type ExitCode } from './errors.ts';
 import { fitCommand } from './fit.ts';
 import { HELP_TEXT } from './help.ts';
+import { ordersCommand } from './orders.ts';
 import { reportCommand } from './report.ts';
 
 function execute(argv: readonly string[], io: Output): ExitCode {
@@ -39,11 +40,12 @@ export function main(argv: readonly string[], io: Output): ExitCode {
 
 /**
  * As `main`, and also the commands that must wait for something (`report`: Web Crypto for the
- * fingerprint, Chromium for a PDF). Never rejects.
+ * fingerprint, Chromium for a PDF; `orders`: the order search). Never rejects.
  */
 export async function mainAsync(argv: readonly string[], io: Output): Promise<ExitCode> {
   const wantsHelp = argv.includes('--help') || argv.includes('-h');
   if (argv[0] === 'report' && !wantsHelp) return reportCommand(io, argv.slice(1));
+  if (argv[0] === 'orders' && !wantsHelp) return ordersCommand(io, argv.slice(1));
   return main(argv, io);
 }
 

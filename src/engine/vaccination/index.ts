@@ -4,3 +4,29 @@ export { dosePlan, dosesByBandUntil, type DosePiece } from './dosePlan.ts';
 export { ORDER_TEMPLATES, ADULT_AGE_YEARS, priorityFromTemplate, perCapitaInfectionShare, type OrderTemplate } from './orders.ts';
 export { allocateDoses, coverageNeededForRBelowOne, type CoverageNeeded } from './coverage.ts';
 export { relativeRiskGivenInfection } from './prepare.ts';
+export { parseGroupSpec, groupSpecOf, groupProblems, groupPermutationFor } from './orderGroups.ts';
+export {
+  ORDER_OUTCOMES,
+  evaluateOrder,
+  priorityOf,
+  type OrderOutcome,
+  type OrderOutcomes,
+  type OrderEvaluation,
+  type OrderSearchJob,
+} from './orderEvaluation.ts';
+export { prepareOrderSearch, type OrderSearchRequest, type PreparedOrderSearch } from './orderJob.ts';
+export {
+  searchOrders,
+  inThreadEvaluator,
+  builtInPermutations,
+  EXHAUSTIVE_LIMIT,
+  DEFAULT_SEARCH_BUDGET,
+  DEFAULT_SEARCH_SETTINGS,
+  type OrderEvaluator,
+  type OrderSearchSettings,
+  type OrderSearchResult,
+  type RankedOrder,
+  type BuiltInOrder,
+  type SearchProgress,
+  type SearchControl,
+} from './orderSearch.ts';

@@ -1,0 +1,95 @@
+/** `mixwise orders`: JSON shape of issue 15, agreement with `run`, the table, and bad requests (one line, exit 2). */
+import { describe, expect, it } from 'vitest';
+import { CAUTION } from '../../src/cli/caution.ts';
+import { mainAsync } from '../../src/cli/main.ts';
+import { runScenario } from '../../src/engine/index.ts';
+import { validateScenario } from '../../src/engine/validation.ts';
+import { DEMO, demoJson, writeTemp, type Captured } from './helpers.ts';
+
+async function runAsync(...argv: string[]): Promise<Captured> {
+  let stdout = '';
+  let stderr = '';
+  const code = await mainAsync(argv, { out: (t) => void (stdout += t), err: (t) => void (stderr += t) });
+  return { code, stdout, stderr };
+}
+
+const OPTION = 'Vaccinate oldest first';
+// Three groups (0-19, 20-59, 60+): six orders, quick to search exhaustively.
+const GROUPS = '0-3,4-11,12-15';
+
+describe('mixwise orders --format json', async () => {
+  const { code, stdout, stderr } = await runAsync('orders', DEMO, '--option', OPTION, '--minimise', 'infections', '--groups', GROUPS, '--top', '3', '--format', 'json');
+  const json = JSON.parse(stdout);
+
+  it('exits 0 with the shape of issue 15', () => {
+    expect(code).toBe(0);
+    expect(stderr).toBe('');
+    expect(json).toMatchObject({ option: OPTION, outcome: 'infections', method: 'exhaustive', proven: true });
+    expect(json.evaluated).toBeGreaterThan(0);
+    expect(json.orders).toHaveLength(3);
+    for (const o of json.orders) {
+      expect(o.order).toHaveLength(3);
+      expect(Object.keys(o.outcomes).sort()).toEqual(['admissions', 'deaths', 'infections', 'peakIcuOccupancy', 'yearsOfLifeLost']);
+      expect(o.value).toBe(o.outcomes.infections);
+    }
+    const values = json.orders.map((o: { value: number }) => o.value);
+    expect(values).toEqual([...values].sort((a, b) => a - b));
+    expect(json.builtIn.map((b: { name: string }) => b.name)).toContain('Oldest first');
+    expect(json.caution).toBe(CAUTION);
+  });
+
+  it('gives the numbers `run` gives for the best order', () => {
+    const input = demoJson();
+    input.vaccinationCampaigns[0].priority = json.orders[0].order;
+    const v = validateScenario(input);
+    if (!v.ok) throw new Error('altered demo must be valid');
+    const option = runScenario(v.scenario).options.find((o) => o.name === OPTION);
+    expect(option?.infections).toBe(json.orders[0].value);
+    expect(option?.yearsOfLifeLost).toBe(json.orders[0].outcomes.yearsOfLifeLost);
+  });
+});
+
+describe('mixwise orders (table)', async () => {
+  const { code, stdout } = await runAsync('orders', DEMO, '--option', OPTION, '--groups', GROUPS, '--top', '2');
+  it('lists the best orders by age range, the built-in orders and the caution', () => {
+    expect(code).toBe(0);
+    expect(stdout).toMatch(/minimising deaths/);
+    expect(stdout).toMatch(/^1\. 60\+ > /m);
+    expect(stdout).toMatch(/Built-in orders:/);
+    expect(stdout).toMatch(/Exhaustive: all 6 orders of 3 groups/);
+    expect(stdout.trimEnd().endsWith(CAUTION)).toBe(true);
+  });
+});
+
+describe('mixwise orders with a request that does not fit', () => {
+  const cases: [string, string[], RegExp][] = [
+    ['an unknown option', ['--option', 'Nope'], /--option must name a policy option of the scenario .*, got "Nope"/],
+    ['an unknown outcome', ['--option', OPTION, '--minimise', 'cost'], /--minimise must be one of deaths, infections, admissions, peakIcuOccupancy, yearsOfLifeLost, got "cost"/],
+    ['an option without a campaign', ['--option', 'No measures'], /--option must run a vaccination campaign/],
+    ['groups that repeat a band', ['--option', OPTION, '--groups', '0-5,5-15'], /--groups must not repeat a band: band 5 \(25-29\) appears twice/],
+    ['groups that miss a band', ['--option', OPTION, '--groups', '0-9,10-14'], /--groups must include band 15 \(75\+\), which the campaign can vaccinate/],
+    ['groups that are not band indices', ['--option', OPTION, '--groups', 'young,old'], /--groups must list band indices and ranges/],
+  ];
+  for (const [what, words, message] of cases) {
+    it(`exits 2 with one line for ${what}`, async () => {
+      const r = await runAsync('orders', DEMO, ...words);
+      expect(r.code).toBe(2);
+      expect(r.stdout).toBe('');
+      expect(r.stderr.trimEnd().split('\n')).toHaveLength(1);
+      expect(r.stderr).toMatch(message);
+    });
+  }
+
+  it('exits 2 for hospital outcomes without a healthcare section', async () => {
+    const input = demoJson();
+    delete input.healthcare;
+    const r = await runAsync('orders', writeTemp('no-hospital.json', input), '--option', OPTION, '--minimise', 'admissions');
+    expect(r.code).toBe(2);
+    expect(r.stderr).toMatch(/--minimise needs the scenario's healthcare section/);
+  });
+
+  it('exits 1 without --option or with a bad --top', async () => {
+    expect((await runAsync('orders', DEMO)).code).toBe(1);
+    expect((await runAsync('orders', DEMO, '--option', OPTION, '--top', '0')).code).toBe(1);
+  });
+});
