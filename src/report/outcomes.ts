@@ -253,6 +253,20 @@ export const OUTCOMES: readonly Outcome[] = [
     read: (o) => o.deaths,
   },
   {
+    key: 'yearsOfLifeLost',
+    column: 'years_of_life_lost',
+    label: 'Years of life lost',
+    printLabel: 'Years of life lost, person-years',
+    hint: 'Deaths by band times remaining life expectancy at the band mid-age, from the reference life table (scenario lifeTable, or GBD 2019 by default)',
+    group: 'spread',
+    kind: 'count',
+    unit: 'years',
+    lowerIsBetter: true,
+    requires: [],
+    shownOn: ['board', 'table', 'terminal'],
+    read: (o) => o.yearsOfLifeLost,
+  },
+  {
     key: 'infectionsAverted',
     column: 'infections_averted',
     label: 'Infections averted',
@@ -572,6 +586,7 @@ export const BAND_OUTCOMES: readonly BandOutcome[] = [
   { key: 'infectionsByBand', column: 'infections', label: 'Infections by age band', kind: 'count', unit: 'persons', terminalTable: false, read: (o) => o.infectionsByBand },
   { key: 'attackRateByBand', column: 'attack_rate', label: 'Attack rate by age band', kind: 'fraction', terminalTable: true, read: (o) => o.attackRateByBand },
   { key: 'deathsByBand', column: 'deaths', label: 'Deaths by age band', kind: 'count', unit: 'persons', terminalTable: true, read: (o) => o.deathsByBand },
+  { key: 'yearsOfLifeLostByBand', column: 'years_of_life_lost', label: 'Years of life lost by age band', kind: 'count', unit: 'years', terminalTable: false, read: (o) => o.yearsOfLifeLostByBand },
   {
     key: 'dosesByBand',
     column: 'vaccine_doses',
