@@ -28,7 +28,8 @@ export function ageFactorsBySetting(settings: readonly Setting[], bands: number,
 
 /** Multiplier m_s of each setting under a phase (1 where not named; all 1 without a phase). */
 export function settingMultipliers(settings: readonly Setting[], phase: Phase | null): Float64Array {
-  return Float64Array.from(settings, (s) => phase?.settingMultipliers[s.name] ?? 1);
+  // Own keys only: a setting named like an object built-in (constructor, toString) is not a multiplier.
+  return Float64Array.from(settings, (s) => (phase !== null && Object.hasOwn(phase.settingMultipliers, s.name) ? phase.settingMultipliers[s.name] : 1));
 }
 
 /**

@@ -28,6 +28,8 @@ export function logGamma(x: number): number {
 export function regularizedLowerGamma(a: number, x: number): number {
   if (x <= 0) return 0;
   const lnPrefix = a * Math.log(x) - x - logGamma(a);
+  // Past the range of double precision (a shape near 1e300) the gamma is a point mass at its mean.
+  if (!Number.isFinite(lnPrefix)) return x < a ? 0 : 1;
   if (x < a + 1) {
     let term = 1 / a;
     let sum = term;

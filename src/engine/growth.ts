@@ -52,7 +52,8 @@ export function growthRateFromR(reproductionNumber: number, p: Periods): number 
   const target = 1 / reproductionNumber;
   let lo = floor;
   let hi = 1;
-  while (generationIntervalTransform(hi, p) > target) hi *= 2;
+  // M(r) falls to 0 as r grows; 2^1100 overflows double precision, so the loop always ends.
+  for (let k = 0; k < 1100 && generationIntervalTransform(hi, p) > target; k++) hi *= 2;
   for (let k = 0; k < 200 && hi - lo > 1e-14 * Math.max(1, Math.abs(hi)); k++) {
     const mid = 0.5 * (lo + hi);
     if (mid === lo || mid === hi) break;

@@ -27,6 +27,9 @@ export function nextGenerationMatrix(transmission: Float64Array, susceptible: Ar
   return Array.from({ length: n }, (_, i) => Array.from(flat.subarray(i * n, (i + 1) * n)));
 }
 
+/** Entries of K below this fraction of its largest entry are dropped before the eigen decomposition. */
+const NEGLIGIBLE_ENTRY = 1e-14;
+
 /**
  * Dominant eigenvalue (largest real part) of a square matrix, with ml-matrix's
  * EigenvalueDecomposition. For a non-negative K this is its spectral radius (Perron-Frobenius).
@@ -39,10 +42,13 @@ export function dominantEigenvalue(flat: Float64Array, n: number): number {
     largest = Math.max(largest, Math.abs(flat[k]));
   }
   if (largest === 0) return 0;
-  // Scaled to a largest entry of 1, with entries below 1e-200 of it set to 0: they change no
-  // eigenvalue in double precision, and subnormal numbers can stall the QR iteration.
+  // Scaled to a largest entry of 1, with entries below NEGLIGIBLE_ENTRY of it set to 0. For a
+  // non-negative K, dropping entries E changes rho by at most ||E||, i.e. n * 1e-14 of the
+  // largest entry; without the cut, entries spanning hundreds of orders of magnitude (one contact
+  // of 1e200 among ordinary ones) make products underflow and the QR iteration, which has no
+  // iteration limit of its own, never converge.
   const rows = Array.from({ length: n }, (_, i) =>
-    Array.from(flat.subarray(i * n, (i + 1) * n), (x) => (Math.abs(x) < 1e-200 * largest ? 0 : x / largest)),
+    Array.from(flat.subarray(i * n, (i + 1) * n), (x) => (Math.abs(x) < NEGLIGIBLE_ENTRY * largest ? 0 : x / largest)),
   );
   const eig = new EigenvalueDecomposition(new Matrix(rows), { assumeSymmetric: false });
   let best = -Infinity;

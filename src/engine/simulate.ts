@@ -68,6 +68,14 @@ function sum(values: ArrayLike<number>): number {
   return total;
 }
 
+/**
+ * A fraction of people (attack rate, prevalence, share of doses) kept in [0, 1]: with very fast
+ * growth the integrator's rounding can leave it a few units of 1e-9 outside.
+ */
+function fraction(x: number): number {
+  return Math.min(1, Math.max(0, x));
+}
+
 /** Doses given within the horizon and the share that reached people no longer susceptible. */
 function vaccinationOutcomes(campaign: PreparedCampaign, plan: readonly DosePiece[], n: number, H: number, toNonSusceptible: Float64Array): VaccinationOutcomes {
   const dosesByBand = Array.from(dosesByBandUntil(plan, n, H));
@@ -76,7 +84,7 @@ function vaccinationOutcomes(campaign: PreparedCampaign, plan: readonly DosePiec
     campaign: campaign.campaign.name,
     doses,
     dosesByBand,
-    dosesToNonSusceptibleShare: doses > 0 ? sum(toNonSusceptible) / doses : 0,
+    dosesToNonSusceptibleShare: doses > 0 ? fraction(sum(toNonSusceptible) / doses) : 0,
   };
 }
 
@@ -113,7 +121,7 @@ export function simulateOption(p: PreparedScenario, option: PolicyOption): Optio
   }
 
   const infectionsByBand = Array.from({ length: n }, (_, i) => p.seeds[i] + daily.cumulative[H * n + i]);
-  const attackRateByBand = infectionsByBand.map((x, i) => (population[i] > 0 ? x / population[i] : 0));
+  const attackRateByBand = infectionsByBand.map((x, i) => (population[i] > 0 ? fraction(x / population[i]) : 0));
   const protectedByBand = Array.from({ length: n }, (_, i) => daily.protectedCumulative[H * n + i]);
   const deathFactor = campaign?.deathRiskFactor ?? 1;
   const deathsByBand = infectionsByBand.map((x, i) => (x - (1 - deathFactor) * protectedByBand[i]) * p.infectionFatalityRatio[i]);
@@ -137,7 +145,7 @@ export function simulateOption(p: PreparedScenario, option: PolicyOption): Optio
   if (campaign === null && measuresConstant(option, H)) {
     const s0 = Array.from(population, (N, i) => (N > 0 ? 1 - (s.initialState.priorImmunityFraction?.[i] ?? 0) : 0));
     const z = Array.from(finalSizeByBand(segments[0].transmission, population, s0, p.periods.infectiousPeriodDays));
-    finalSize = { attackRateByBand: z, attackRate: sum(z.map((x, i) => x * population[i])) / totalPopulation };
+    finalSize = { attackRateByBand: z.map(fraction), attackRate: fraction(sum(z.map((x, i) => x * population[i])) / totalPopulation) };
   }
 
   return {
@@ -148,10 +156,10 @@ export function simulateOption(p: PreparedScenario, option: PolicyOption): Optio
     halvingTimeDays: halvingTimeDays(growthRatePerDay),
     peakDay,
     peakInfectedPersons,
-    peakPrevalence: peakInfectedPersons / totalPopulation,
+    peakPrevalence: fraction(peakInfectedPersons / totalPopulation),
     infections,
     infectionsByBand,
-    attackRate: infections / totalPopulation,
+    attackRate: fraction(infections / totalPopulation),
     attackRateByBand,
     deaths: sum(deathsByBand),
     deathsByBand,

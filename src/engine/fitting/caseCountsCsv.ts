@@ -9,8 +9,12 @@
  * order mark, CRLF/LF/CR line ends, blank lines, double-quoted fields (no line breaks inside).
  * Rejected, each with its line, column and rule: missing, non-numeric, non-integer or negative
  * counts; bad dates; a date column mixing dates and day numbers; duplicate day (and band) rows;
- * rows with the wrong number of fields. All problems are collected, not only the first.
- * Dates become day numbers counted from the earliest date in the file (day 0).
+ * rows with the wrong number of fields; a date (or day number) earlier than the row before, or more
+ * than MAX_GAP_DAYS after it (a mistyped year would otherwise pass as a long flat stretch);
+ * files of more than MAX_DATA_ROWS rows. All problems are collected (the first MAX_LISTED_PROBLEMS
+ * are listed), not only the first. The text is read line by line, never recursively, so any
+ * length up to the limit is safe. Dates become day numbers counted from the earliest date in the
+ * file (day 0).
  */
 import type { CaseRow, CaseSeries } from './caseSeries.ts';
 import { epochDayToIsoDate, isoDateToEpochDay } from './isoDate.ts';
@@ -58,6 +62,16 @@ function splitFields(line: string, delimiter: string): string[] {
   fields.push(field.trim());
   return fields;
 }
+
+/** Most data rows read: 25 years of daily counts for 21 age bands, far beyond any fitting window. */
+export const MAX_DATA_ROWS = 200_000;
+/**
+ * Longest gap between consecutive dates, days. Reporting pauses over holidays last days, not
+ * months (common practice); a longer gap is almost always a mistyped year or month.
+ */
+export const MAX_GAP_DAYS = 28;
+/** Problems listed one per line before the rest are counted in one closing line. */
+export const MAX_LISTED_PROBLEMS = 20;
 
 const NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
 const WHOLE = /^[+-]?\d+$/;
@@ -111,6 +125,45 @@ function layoutFromHeader(header: string[], line: number, problems: CsvProblem[]
   };
 }
 
+interface TimedRow {
+  time: number;
+  line: number;
+}
+
+/**
+ * Rows must run forward in time (rows of one day, e.g. one per band, may follow each other) with
+ * no gap over MAX_GAP_DAYS. Each row is compared with the last row that was in order, so one
+ * mistyped date gives one problem, not two.
+ */
+function orderProblems(rows: readonly TimedRow[], dates: boolean, column: string): CsvProblem[] {
+  const problems: CsvProblem[] = [];
+  const show = (t: number): string => (dates ? epochDayToIsoDate(t) : String(t));
+  let previous: TimedRow | null = null;
+  for (const row of rows) {
+    if (previous !== null && row.time < previous.time) {
+      problems.push({ line: row.line, column, rule: `must not be earlier than the ${dates ? 'date' : 'day'} on line ${previous.line} (${show(previous.time)}); sort the rows by ${dates ? 'date' : 'day'}`, value: show(row.time) });
+      continue;
+    }
+    if (previous !== null && row.time - previous.time > MAX_GAP_DAYS) {
+      problems.push({
+        line: row.line,
+        column,
+        rule: `is ${row.time - previous.time} days after the ${dates ? 'date' : 'day'} on line ${previous.line} (${show(previous.time)}); gaps over ${MAX_GAP_DAYS} days are refused (check for a mistyped ${dates ? 'year or month' : 'day number'})`,
+        value: show(row.time),
+      });
+    }
+    previous = row;
+  }
+  return problems;
+}
+
+/** The first MAX_LISTED_PROBLEMS problems, and one line counting the rest. */
+function listed(problems: CsvProblem[]): CsvProblem[] {
+  if (problems.length <= MAX_LISTED_PROBLEMS) return problems;
+  const rest = problems.length - MAX_LISTED_PROBLEMS;
+  return [...problems.slice(0, MAX_LISTED_PROBLEMS), { line: null, column: null, rule: `has ${rest} more problem${rest === 1 ? '' : 's'} not listed` }];
+}
+
 /**
  * Parses case-count CSV text. Returns the rows (day numbers from the earliest date) or every
  * problem found, each naming its line, column and rule. Good rows are never silently dropped:
@@ -131,6 +184,9 @@ export function parseCaseCountsCsv(text: string): CaseCsvResult {
   if (layout === null) return { ok: false, problems };
   const dataLines = headerless ? content : content.slice(1);
   if (dataLines.length === 0) return { ok: false, problems: [{ line: null, column: null, rule: 'has a header but no data rows' }] };
+  if (dataLines.length > MAX_DATA_ROWS) {
+    return { ok: false, problems: [{ line: null, column: null, rule: `must have at most ${MAX_DATA_ROWS.toLocaleString('en')} data rows (has ${dataLines.length.toLocaleString('en')}); keep the weeks you fit` }] };
+  }
 
   const timeName = layout.names[layout.time];
   const countName = layout.names[layout.count];
@@ -159,6 +215,7 @@ export function parseCaseCountsCsv(text: string): CaseCsvResult {
     if (time !== null && rule === null && band !== '') parsed.push({ time, count: Number(countText), band, line });
   }
 
+  problems.push(...orderProblems(parsed, kind === 'date', timeName));
   const seen = new Map<string, number>();
   for (const r of parsed) {
     const key = `${r.time}\u0000${r.band ?? ''}`;
@@ -168,7 +225,7 @@ export function parseCaseCountsCsv(text: string): CaseCsvResult {
       problems.push({ line: r.line, column: timeName, rule: `repeats ${what} (first given on line ${earlier})` });
     } else seen.set(key, r.line);
   }
-  if (problems.length > 0) return { ok: false, problems };
+  if (problems.length > 0) return { ok: false, problems: listed(problems) };
 
   const origin = kind === 'date' ? parsed.reduce((m, r) => Math.min(m, r.time), Infinity) : 0;
   const rows: CaseRow[] = parsed.map((r) => ({ day: r.time - origin, count: r.count, band: r.band, line: r.line }));

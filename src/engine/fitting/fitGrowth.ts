@@ -117,11 +117,27 @@ function checkWindow(days: number[], y: number[], from: number, to: number, dayO
   return problems;
 }
 
+/** Series that no window can fit, with the reason in plain words; null when there is something to fit. */
+function seriesProblemOf(counts: DailyCounts): FitProblem | null {
+  if (counts.day.length === 0) return { field: 'counts', rule: 'must not be empty' };
+  if (counts.day.length === 1) return { field: 'counts', rule: `must cover at least 2 days to show growth (the file has counts for day ${counts.day[0]} only)` };
+  if (counts.count.every((c) => c === 0)) return { field: 'counts', rule: `must include some cases: all ${counts.count.length} days have 0, so there is no growth to fit` };
+  return null;
+}
+
 /** Fits r over the window with the chosen count model. */
 export function fitGrowth(counts: DailyCounts, options: FitGrowthOptions = {}): FitGrowthResult {
-  if (counts.day.length === 0) return { ok: false, problems: [{ field: 'counts', rule: 'must not be empty' }] };
-  const fromDay = options.fromDay ?? Math.min(...counts.day);
-  const toDay = options.toDay ?? Math.max(...counts.day);
+  const seriesProblem = seriesProblemOf(counts);
+  if (seriesProblem !== null) return { ok: false, problems: [seriesProblem] };
+  // Loops, not Math.min(...days): spreading a long series exhausts the call stack.
+  let firstDay = Infinity;
+  let lastDay = -Infinity;
+  for (const d of counts.day) {
+    if (d < firstDay) firstDay = d;
+    if (d > lastDay) lastDay = d;
+  }
+  const fromDay = options.fromDay ?? firstDay;
+  const toDay = options.toDay ?? lastDay;
   const dayOfWeek = options.dayOfWeek ?? false;
   const family = options.family ?? 'poisson';
   const inputProblems = checkInput(counts, fromDay, toDay);

@@ -16,8 +16,10 @@ export function isoDateToEpochDay(text: string): number | null {
   const year = Number(m[1]);
   const month = Number(m[2]);
   const day = Number(m[3]);
-  const ms = Date.UTC(year, month - 1, day);
-  const back = new Date(ms);
+  // Date.UTC reads years 0-99 as 1900-1999: set the full year on its own so 0001-01-01 is year 1.
+  const back = new Date(Date.UTC(2000, month - 1, day));
+  back.setUTCFullYear(year, month - 1, day);
+  const ms = back.getTime();
   if (back.getUTCFullYear() !== year || back.getUTCMonth() !== month - 1 || back.getUTCDate() !== day) return null;
   return ms / MS_PER_DAY;
 }
