@@ -76,6 +76,10 @@ export interface OptionResults {
   triggers: TriggerOutcome[];
   /** Days (of 0..H-1) on which any phase's measures were in force, fixed or triggered. */
   daysUnderMeasures: number;
+  /** R under each phase's measures (in the order of the option's phases); see rByPhase.ts. */
+  rByPhase: PhaseReproduction[];
+  /** Contacts the measures removed, by setting; see measureBurden.ts. */
+  measureBurden: MeasureBurden;
   /** Against the reference option (filled when the reference is run with it; null otherwise). */
   comparison: Comparison | null;
 }
@@ -193,4 +197,26 @@ export interface TriggerOutcome {
   daysInForce: number;
   /** Stretches in force, [fromDay, toDay) within the horizon, for shading the curves. */
   periods: { fromDay: number; toDay: number }[];
+}
+
+/** R under one phase's measures (rByPhase.ts). */
+export interface PhaseReproduction {
+  fromDay: number;
+  toDay: number;
+  /** Day whose susceptibles `rAtPhaseStart` uses: fromDay, or the day a trigger first put the phase in force. */
+  startDay: number;
+  /** R with the phase's measures and the susceptibles on its start day. */
+  rAtPhaseStart: number;
+  /** R with the phase's measures and everyone susceptible. */
+  rMeasuresOnly: number;
+}
+
+/** The cost side of an option's measures (measureBurden.ts). */
+export interface MeasureBurden {
+  /** Days (of 0..H-1) with any phase in force. */
+  daysUnderMeasures: number;
+  /** By setting name: usual contacts per person per day removed, summed over the horizon (contact-days per person). */
+  contactDaysRemovedPerPerson: Record<string, number>;
+  /** By setting name: the same as days of complete closure of that setting. */
+  fullClosureDays: Record<string, number>;
 }

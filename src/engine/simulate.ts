@@ -22,7 +22,8 @@ import type { DailySeries, OptionResults, VaccinationOutcomes } from './results.
 import type { PolicyOption } from './scenario.ts';
 import { type Segment, segmentsOf } from './segments.ts';
 import { TriggeredMeasures } from './triggeredMeasures.ts';
-import { daysUnderMeasures } from './triggers.ts';
+import { measureBurden } from './measureBurden.ts';
+import { reproductionByPhase } from './rByPhase.ts';
 import { type DosePiece, dosesByBandUntil } from './vaccination/dosePlan.ts';
 import type { PreparedCampaign } from './vaccination/prepare.ts';
 
@@ -104,6 +105,7 @@ export function simulateOption(p: PreparedScenario, option: PolicyOption): Optio
   const daily = integrateOption(p, fixedSegments, campaign, triggered);
   const segments = triggered === null ? fixedSegments : triggered.realized;
   const triggers = triggered === null ? [] : triggered.measures.controller.outcomes(H);
+  const burden = measureBurden(s, option, triggers);
 
   const kStart = nextGenerationMatrixInto(new Float64Array(n * n), segments[0].transmission, p.initialSusceptible, p.periods.infectiousPeriodDays);
   // Certified to 1e-12 by the Collatz-Wielandt bracket; ml-matrix is the fallback inside.
@@ -170,7 +172,9 @@ export function simulateOption(p: PreparedScenario, option: PolicyOption): Optio
     healthcare: p.healthcare === null ? null : healthcareDemand(p.healthcare, weightedIncidence(incidence, protectedIncidence, campaign?.admissionRiskFactor ?? 1)),
     vaccination: campaign === null ? null : vaccinationOutcomes(campaign, plan, n, H, daily.dosesToNonSusceptible),
     triggers,
-    daysUnderMeasures: daysUnderMeasures(option, triggers, H),
+    daysUnderMeasures: burden.daysUnderMeasures,
+    rByPhase: reproductionByPhase(p, option, daily.effectiveSusceptible, triggers),
+    measureBurden: burden,
     comparison: null,
   };
 }

@@ -116,12 +116,3 @@ export class TriggerController {
     });
   }
 }
-
-/** Days (0..H-1) with any phase in force, fixed or triggered: a day counts when measures hold over it. */
-export function daysUnderMeasures(option: PolicyOption, triggers: readonly TriggerOutcome[], horizonDays: number): number {
-  const covered = new Uint8Array(horizonDays);
-  const mark = (from: number, to: number) => covered.fill(1, Math.max(0, from), Math.min(horizonDays, to));
-  for (const p of option.phases) if (p.trigger === undefined) mark(p.fromDay, p.toDay);
-  for (const t of triggers) for (const p of t.periods) mark(p.fromDay, p.toDay);
-  return covered.reduce((acc, x) => acc + x, 0);
-}
