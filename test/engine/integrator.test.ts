@@ -1,15 +1,16 @@
 /**
  * The Dormand-Prince integrator: accuracy of steps and dense output on problems with known
- * solutions, and the whole demo against odex (an independent extrapolation solver).
+ * solutions, and whole runs against the model written out again in this file and solved by odex
+ * (an independent extrapolation solver).
  */
+import { eigs } from 'mathjs';
 import { Solver } from 'odex';
 import { describe, expect, it } from 'vitest';
 import { Dopri5Workspace, integrate } from '../../src/engine/dopri5.ts';
-import { prepareScenario } from '../../src/engine/prepare.ts';
 import { runScenario } from '../../src/engine/run.ts';
-import { seirRightHandSide } from '../../src/engine/seir.ts';
-import { transmissionMatrixInto } from '../../src/engine/transmission.ts';
+import type { Phase, Scenario } from '../../src/engine/scenario.ts';
 import { demoScenario } from '../helpers/demo.ts';
+import { valid } from '../helpers/scenarios.ts';
 
 describe('dopri5', () => {
   it('solves y\' = -y and its dense output between steps matches exp(-t)', () => {
@@ -36,34 +37,129 @@ describe('dopri5', () => {
   });
 });
 
-describe('the demo scenario against odex', () => {
-  it('gives the same daily susceptibles and infected for the no-measures option', () => {
-    const s = demoScenario();
-    const p = prepareScenario(s);
-    const L = p.layout;
-    const n = L.bands;
-    const m = transmissionMatrixInto(new Float64Array(n * n), s, p.bands, p.beta, null);
-    const rhs = seirRightHandSide(L, s.disease.latentPeriodDays, s.disease.infectiousPeriodDays, m);
-    const dydt = new Float64Array(L.size);
-    const f = (t: number, y: number[]) => {
-      rhs(t, Float64Array.from(y), dydt);
-      return Array.from(dydt);
+/**
+ * The SEIR model written out again here from its equations (DESIGN.md section 2), independently of
+ * the engine's right-hand side, transmission matrix and calibration, for band i:
+ *   lambda_i = beta u_i (1 - c) sum_j C_ij h_j I_j / N_j,  C_ij = sum_s m_s min(f_si, f_sj) C^s_ij
+ *   dS/dt = -lambda S, dE_1/dt = lambda S - a_E E_1, dE_k/dt = a_E (E_(k-1) - E_k),
+ *   dI_1/dt = a_E E_kE - a_I I_1, dI_k/dt = a_I (I_(k-1) - I_k), dR/dt = a_I I_kI,
+ * a_E = k_E / T_E, a_I = k_I / T_I (Erlang stages; Anderson & May 1991, Infectious Diseases of
+ * Humans; Wearing, Rohani & Keeling 2005, PLoS Med 2:e174). Band-major state [S, E.., I.., R, X].
+ * beta = R0 / rho(K at beta = 1), K_ij = D u_i C_ij h_j N_i / N_j with mathjs's eigenvalues
+ * (Diekmann, Heesterbeek & Roberts 2010, J R Soc Interface 7:873). Solved with odex.
+ */
+function referenceModel(s: Scenario) {
+  const n = s.ageBands.length;
+  const N = s.populationPersons;
+  const kE = s.disease.latentStages;
+  const kI = s.disease.infectiousStages;
+  const aE = kE / s.disease.latentPeriodDays;
+  const aI = kI / s.disease.infectiousPeriodDays;
+  const u = s.disease.relativeSusceptibility ?? N.map(() => 1);
+  const h = s.disease.relativeInfectiousness ?? N.map(() => 1);
+  const width = kE + kI + 3;
+  const contacts = (phase: Phase | null): number[][] =>
+    N.map((_, i) => N.map((_, j) => s.settings.reduce((acc, st) => {
+      const m = phase?.settingMultipliers[st.name] ?? 1;
+      const factor = (b: number) => (phase?.ageFactors ?? []).filter((a) => a.setting === st.name && a.bands.includes(b)).reduce((f, a) => f * a.factor, 1);
+      return acc + m * Math.min(factor(i), factor(j)) * st.contactsPerDay[i][j];
+    }, 0)));
+  const C0 = contacts(null);
+  const K = N.map((Ni, i) => N.map((Nj, j) => (s.disease.infectiousPeriodDays * u[i] * C0[i][j] * h[j] * Ni) / Nj));
+  const { values } = eigs(K, { eigenvectors: false }) as unknown as { values: unknown };
+  const list = (Array.isArray(values) ? values : (values as { toArray(): unknown[] }).toArray()) as (number | { re: number })[];
+  const r0 = (s.disease.transmission as { r0: number }).r0;
+  const beta = r0 / Math.max(...list.map((v) => (typeof v === 'number' ? v : v.re)));
+  const rhs = (phase: Phase | null) => {
+    const Cp = contacts(phase);
+    const keep = 1 - (phase?.caseIsolation ?? 0);
+    return (_t: number, y: number[]): number[] => {
+      const dy = new Array<number>(y.length).fill(0);
+      const I = N.map((_, j) => y.slice(j * width + 1 + kE, j * width + 1 + kE + kI).reduce((a, b) => a + b, 0));
+      for (let i = 0; i < n; i++) {
+        const o = i * width;
+        let lambda = 0;
+        for (let j = 0; j < n; j++) lambda += (beta * u[i] * keep * Cp[i][j] * h[j] * I[j]) / N[j];
+        const infection = lambda * y[o];
+        dy[o] = -infection;
+        for (let k = 0; k < kE; k++) dy[o + 1 + k] = (k === 0 ? infection : aE * y[o + k]) - aE * y[o + 1 + k];
+        for (let k = 0; k < kI; k++) dy[o + 1 + kE + k] = (k === 0 ? aE * y[o + kE] : aI * y[o + kE + k]) - aI * y[o + 1 + kE + k];
+        dy[o + 1 + kE + kI] = aI * y[o + kE + kI];
+        dy[o + 2 + kE + kI] = infection;
+      }
+      return dy;
     };
-    const solver = new Solver(L.size);
-    solver.absoluteTolerance = 1e-8;
-    solver.relativeTolerance = 1e-10;
-    solver.denseOutput = true;
-    const reference = new Map<number, number[]>();
-    solver.solve(f, 0, Array.from(p.initialState), 200, solver.grid(1, (t, y) => { reference.set(Math.round(t), y); }));
-    const option = runScenario({ ...s, horizonDays: 200, options: [s.options[0]] }).options[0];
-    for (const day of [10, 50, 80, 120, 200]) {
+  };
+  const y0 = N.flatMap((Ni, i) => {
+    const seed = s.initialState.infectedPersons[i];
+    const band = new Array<number>(width).fill(0);
+    band[0] = Ni - seed;
+    band[s.initialState.infectedCompartment === 'latent' ? 1 : 1 + kE] = seed;
+    return band;
+  });
+  /** Daily states of `option`, restarting the solver where its measures change. */
+  const solve = (option: Scenario['options'][number], horizon: number): Map<number, number[]> => {
+    const days = new Map<number, number[]>();
+    const cuts = [...new Set([0, horizon, ...option.phases.flatMap((p) => [p.fromDay, p.toDay]).filter((d) => d > 0 && d < horizon)])].sort((a, b) => a - b);
+    let y = y0;
+    for (let k = 0; k + 1 < cuts.length; k++) {
+      const phase = option.phases.find((p) => cuts[k] >= p.fromDay && cuts[k] < p.toDay) ?? null;
+      const solver = new Solver(y.length);
+      solver.absoluteTolerance = 1e-8;
+      solver.relativeTolerance = 1e-10;
+      solver.denseOutput = true;
+      y = solver.solve(rhs(phase), cuts[k], y, cuts[k + 1], solver.grid(1, (t, state) => { days.set(Math.round(t), state.slice()); })).y;
+      days.set(cuts[k + 1], y.slice());
+    }
+    return days;
+  };
+  const at = (y: number[], i: number) => {
+    const band = y.slice(i * width, (i + 1) * width);
+    return { susceptible: band[0], infected: band.slice(1, 1 + kE + kI).reduce((a, b) => a + b, 0), cumulative: band[width - 1] };
+  };
+  return { beta, solve, at };
+}
+
+describe('the engine against the model written out independently, solved by odex', () => {
+  // The demo (16 bands) with Erlang stages, relative susceptibility and infectiousness by band, and
+  // an option whose measures close schools, cut work, shield the two oldest bands in "other"
+  // contacts and isolate cases, between days 20 and 60.
+  const demo = demoScenario();
+  const u = demo.ageBands.map((_, i) => (i < 4 ? 0.5 : i < 12 ? 1 : 1.3));
+  const h = demo.ageBands.map((_, i) => (i < 4 ? 0.7 : i < 14 ? 1 : 0.8));
+  const s = valid({
+    ...demo,
+    vaccinationCampaigns: [],
+    referenceOption: undefined,
+    horizonDays: 150,
+    disease: { ...demo.disease, latentStages: 2, infectiousStages: 3, relativeSusceptibility: u, relativeInfectiousness: h },
+    options: [
+      { name: 'none' },
+      { name: 'measures', phases: [{ fromDay: 20, toDay: 60, settingMultipliers: { school: 0, work: 0.6 }, ageFactors: [{ setting: 'other', bands: [14, 15], factor: 0.3 }], caseIsolation: 0.25 }] },
+    ],
+  });
+  const model = referenceModel(s);
+  const results = runScenario(s);
+
+  it('calibrates the same transmission rate', () => {
+    expect(results.beta).toBeCloseTo(model.beta, 12);
+  });
+
+  it.each([0, 1])('gives the same daily susceptibles, infected and infections by band (option %s)', (k) => {
+    const reference = model.solve(s.options[k], s.horizonDays);
+    const o = results.options[k];
+    const n = o.series.bands;
+    for (const day of [5, 20, 30, 45, 60, 61, 90, 150]) {
       const y = reference.get(day)!;
       for (let i = 0; i < n; i++) {
-        const sRef = y[L.susceptible + i];
-        const infectedRef = y[L.latent + i] + y[L.infectious + i];
-        expect(Math.abs(option.series.susceptible[day * n + i] - sRef)).toBeLessThan(1e-5 * s.populationPersons[i]);
-        expect(Math.abs(option.series.prevalence[day * n + i] - infectedRef)).toBeLessThan(1e-5 * s.populationPersons[i]);
+        const ref = model.at(y, i);
+        // Both solvers keep a relative error near 1e-5 of the band's size (the engine's tolerance).
+        const tolerance = 1e-5 * s.populationPersons[i];
+        expect(Math.abs(o.series.susceptible[day * n + i] - ref.susceptible)).toBeLessThan(tolerance);
+        expect(Math.abs(o.series.prevalence[day * n + i] - ref.infected)).toBeLessThan(tolerance);
       }
     }
+    const last = reference.get(s.horizonDays)!;
+    o.infectionsByBand.forEach((x, i) => expect(Math.abs(x - s.initialState.infectedPersons[i] - model.at(last, i).cumulative)).toBeLessThan(1e-5 * s.populationPersons[i]));
   });
 });
