@@ -37,6 +37,20 @@ describe('effective contact matrix', () => {
   });
 });
 
+describe('several age factors for one band and setting', () => {
+  it('multiply: 0.5 and 0.4 keep a fifth of that band\'s contacts in the setting', () => {
+    const s = demoScenario();
+    const work = s.settings.findIndex((x) => x.name === 'work');
+    const only = { ...s, settings: [s.settings[work]] };
+    const c = effectiveContactMatrix(only, phase({ ageFactors: [{ setting: 'work', bands: [13, 14], factor: 0.5 }, { setting: 'work', bands: [13], factor: 0.4 }] }));
+    const w = s.settings[work].contactsPerDay;
+    expect(c[13][13]).toBeCloseTo(0.2 * w[13][13], 12);
+    expect(c[13][14]).toBeCloseTo(0.2 * w[13][14], 12); // min(0.2, 0.5)
+    expect(c[14][14]).toBeCloseTo(0.5 * w[14][14], 12);
+    expect(c[8][13]).toBeCloseTo(0.2 * w[8][13], 12);
+  });
+});
+
 describe('reciprocity check', () => {
   it('finds the largest imbalance and where it is', () => {
     // N_0 C_01 = 250 * 10 = 2500 against N_1 C_10 = 750 * 3 = 2250: relative 250 / 2500.

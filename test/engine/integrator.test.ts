@@ -3,13 +3,13 @@
  * solutions, and whole runs against the model written out again in this file and solved by odex
  * (an independent extrapolation solver).
  */
-import { eigs } from 'mathjs';
 import { Solver } from 'odex';
 import { describe, expect, it } from 'vitest';
 import { Dopri5Workspace, integrate } from '../../src/engine/dopri5.ts';
 import { runScenario } from '../../src/engine/run.ts';
 import type { Phase, Scenario } from '../../src/engine/scenario.ts';
 import { demoScenario } from '../helpers/demo.ts';
+import { contactsUnder, dominantByMathjs, nextGenerationMatrixByHand } from '../helpers/byHand.ts';
 import { valid } from '../helpers/scenarios.ts';
 
 describe('dopri5', () => {
@@ -45,8 +45,8 @@ describe('dopri5', () => {
  *   dI_1/dt = a_E E_kE - a_I I_1, dI_k/dt = a_I (I_(k-1) - I_k), dR/dt = a_I I_kI,
  * a_E = k_E / T_E, a_I = k_I / T_I (Erlang stages; Anderson & May 1991, Infectious Diseases of
  * Humans; Wearing, Rohani & Keeling 2005, PLoS Med 2:e174). Band-major state [S, E.., I.., R, X].
- * beta = R0 / rho(K at beta = 1), K_ij = D u_i C_ij h_j N_i / N_j with mathjs's eigenvalues
- * (Diekmann, Heesterbeek & Roberts 2010, J R Soc Interface 7:873). Solved with odex.
+ * beta = R0 / rho(K at beta = 1), K_ij = D u_i C_ij h_j N_i / N_j (test/helpers/byHand.ts) with
+ * mathjs's eigenvalues. Solved with odex.
  */
 function referenceModel(s: Scenario) {
   const n = s.ageBands.length;
@@ -58,20 +58,10 @@ function referenceModel(s: Scenario) {
   const u = s.disease.relativeSusceptibility ?? N.map(() => 1);
   const h = s.disease.relativeInfectiousness ?? N.map(() => 1);
   const width = kE + kI + 3;
-  const contacts = (phase: Phase | null): number[][] =>
-    N.map((_, i) => N.map((_, j) => s.settings.reduce((acc, st) => {
-      const m = phase?.settingMultipliers[st.name] ?? 1;
-      const factor = (b: number) => (phase?.ageFactors ?? []).filter((a) => a.setting === st.name && a.bands.includes(b)).reduce((f, a) => f * a.factor, 1);
-      return acc + m * Math.min(factor(i), factor(j)) * st.contactsPerDay[i][j];
-    }, 0)));
-  const C0 = contacts(null);
-  const K = N.map((Ni, i) => N.map((Nj, j) => (s.disease.infectiousPeriodDays * u[i] * C0[i][j] * h[j] * Ni) / Nj));
-  const { values } = eigs(K, { eigenvectors: false }) as unknown as { values: unknown };
-  const list = (Array.isArray(values) ? values : (values as { toArray(): unknown[] }).toArray()) as (number | { re: number })[];
   const r0 = (s.disease.transmission as { r0: number }).r0;
-  const beta = r0 / Math.max(...list.map((v) => (typeof v === 'number' ? v : v.re)));
+  const beta = r0 / dominantByMathjs(nextGenerationMatrixByHand(s, 1, N, null));
   const rhs = (phase: Phase | null) => {
-    const Cp = contacts(phase);
+    const Cp = contactsUnder(s, phase);
     const keep = 1 - (phase?.caseIsolation ?? 0);
     return (_t: number, y: number[]): number[] => {
       const dy = new Array<number>(y.length).fill(0);

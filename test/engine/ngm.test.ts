@@ -3,24 +3,15 @@
  * general-purpose eigenvalue solver from the npm registry) and an explicit Jacobian of the
  * linearised infected subsystem.
  */
-import { eigs } from 'mathjs';
 import { Solver } from 'odex';
 import { describe, expect, it } from 'vitest';
 import { dominantEigenvalue, spectralRadius } from '../../src/engine/ngm.ts';
 import { growthRateFromR } from '../../src/engine/growth.ts';
-import { prepareScenario } from '../../src/engine/prepare.ts';
 import { runScenario } from '../../src/engine/run.ts';
-import { transmissionMatrixInto } from '../../src/engine/transmission.ts';
 import { demoScenario } from '../helpers/demo.ts';
+import { dominantByMathjs, nextGenerationMatrixByHand } from '../helpers/byHand.ts';
 import { oneBand, valid } from '../helpers/scenarios.ts';
 import { seededRandom } from '../helpers/random.ts';
-
-/** Largest real part among mathjs's eigenvalues (which may be complex numbers). */
-function mathjsDominant(rows: number[][], precision?: number): number {
-  const { values } = eigs(rows, { eigenvectors: false, precision }) as unknown as { values: unknown };
-  const list = (Array.isArray(values) ? values : (values as { toArray(): unknown[] }).toArray()) as (number | { re: number })[];
-  return Math.max(...list.map((v) => (typeof v === 'number' ? v : v.re)));
-}
 
 /** A random reciprocal contact matrix: C_ij = W_ij / N_i with W symmetric. */
 function randomReciprocal(n: number, rand: () => number): { C: number[][]; N: number[] } {
@@ -42,36 +33,42 @@ describe('dominant eigenvalue of the next-generation matrix', () => {
       const beta = 0.03;
       const K = C.map((row, i) => row.map((c, j) => (beta * D * u[i] * c * h[j] * N[i]) / N[j]));
       const flat = Float64Array.from(K.flat());
-      const expected = mathjsDominant(K);
+      const expected = dominantByMathjs(K);
       expect(dominantEigenvalue(flat, n)).toBeCloseTo(expected, 9);
       const v = new Float64Array(n).fill(1 / n);
       expect(Math.abs(spectralRadius(flat, n, v, new Float64Array(n)) - expected) / expected).toBeLessThan(1e-7);
     }
   });
 
-  it('R0 of the demo equals its target and mathjs agrees on its K', () => {
-    const s = demoScenario();
-    const p = prepareScenario(s);
-    const n = p.bands.bands;
-    const m = transmissionMatrixInto(new Float64Array(n * n), s, p.bands, p.beta, null);
-    const K = Array.from({ length: n }, (_, i) => Array.from({ length: n }, (_, j) => s.disease.infectiousPeriodDays * s.populationPersons[i] * m[i * n + j]));
-    expect(mathjsDominant(K)).toBeCloseTo(2.5, 9);
-    expect(p.r0).toBeCloseTo(2.5, 12);
+  // Demo contacts with relative susceptibility and infectiousness that differ by band, so that K
+  // written out from the formula (test/helpers/byHand.ts), not the engine's transmission matrix,
+  // is what mathjs checks.
+  const demo = demoScenario();
+  const withUH = valid({
+    ...demo,
+    disease: {
+      ...demo.disease,
+      relativeSusceptibility: demo.ageBands.map((_, i) => (i < 4 ? 0.5 : 1)),
+      relativeInfectiousness: demo.ageBands.map((_, i) => (i < 4 ? 0.7 : i > 13 ? 0.8 : 1)),
+    },
   });
 
-  it('R(t) from warm-started power iteration matches ml-matrix day by day for a demo option', () => {
-    const s = demoScenario();
-    const r = runScenario(s);
-    const p = prepareScenario(s);
-    const n = p.bands.bands;
+  it('R0 of the demo equals its target: mathjs on K written out from the formula with the calibrated beta', () => {
+    const r = runScenario(withUH);
+    expect(r.r0).toBeCloseTo(2.5, 12);
+    expect(dominantByMathjs(nextGenerationMatrixByHand(withUH, r.beta, withUH.populationPersons, null))).toBeCloseTo(2.5, 9);
+  });
+
+  it('R(t) from warm-started power iteration matches mathjs on K written out from the formula, day by day for a demo option', () => {
+    const r = runScenario(withUH);
+    const n = withUH.ageBands.length;
+    const option = withUH.options[1];
     const o = r.options[1];
-    const option = s.options[1];
-    for (const d of [0, 30, 60, 100, 200, 364]) {
+    for (const d of [0, 20, 21, 30, 60, 76, 77, 100, 200, 364]) {
       const phase = option.phases.find((ph) => d >= ph.fromDay && d < ph.toDay) ?? null;
-      const m = transmissionMatrixInto(new Float64Array(n * n), s, p.bands, p.beta, phase);
-      const K = new Float64Array(n * n);
-      for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) K[i * n + j] = s.disease.infectiousPeriodDays * o.series.susceptible[d * n + i] * m[i * n + j];
-      expect(Math.abs(o.series.rt[d] - dominantEigenvalue(K, n)) / o.series.rt[d]).toBeLessThan(1e-6);
+      const S = Array.from(o.series.susceptible.subarray(d * n, (d + 1) * n));
+      const expected = dominantByMathjs(nextGenerationMatrixByHand(withUH, r.beta, S, phase));
+      expect(Math.abs(o.series.rt[d] - expected) / expected).toBeLessThan(1e-6);
     }
   });
 });
@@ -138,7 +135,7 @@ describe('growth rate = leading eigenvalue of the linearised infected subsystem'
   it('with one latent and one infectious stage: mathjs eigs on the Jacobian', () => {
     const s = randomFourBand(1, 1);
     const r = runScenario(s);
-    expect(r.options[0].growthRatePerDay).toBeCloseTo(mathjsDominant(infectedJacobian(s, r.beta)), 8);
+    expect(r.options[0].growthRatePerDay).toBeCloseTo(dominantByMathjs(infectedJacobian(s, r.beta)), 8);
   });
 
   it('with 2 latent and 3 infectious stages: asymptotic growth of dx/dt = J x solved by odex', () => {

@@ -1,0 +1,41 @@
+/**
+ * Model quantities written out in tests from the published formulas, without the engine's code,
+ * so that engine results can be compared with something the engine did not compute.
+ */
+import { eigs } from 'mathjs';
+import type { Phase, Scenario } from '../../src/engine/scenario.ts';
+
+/**
+ * Contacts per day under a phase (DESIGN.md section 2): C_ij = sum_s m_s min(f_si, f_sj) C^s_ij,
+ * m_s the setting's multiplier (1 when not named), f_si the product of the phase's age factors for
+ * band i in setting s (1 when none).
+ */
+export function contactsUnder(s: Scenario, phase: Phase | null): number[][] {
+  const n = s.ageBands.length;
+  const factor = (setting: string, band: number) =>
+    (phase?.ageFactors ?? []).filter((a) => a.setting === setting && a.bands.includes(band)).reduce((f, a) => f * a.factor, 1);
+  return Array.from({ length: n }, (_, i) => Array.from({ length: n }, (_, j) => s.settings.reduce((acc, st) => {
+    const m = phase?.settingMultipliers[st.name] ?? 1;
+    return acc + m * Math.min(factor(st.name, i), factor(st.name, j)) * st.contactsPerDay[i][j];
+  }, 0)));
+}
+
+/**
+ * Next-generation matrix K_ij = beta D u_i C_ij h_j (1 - c) S_i / N_j (Diekmann, Heesterbeek &
+ * Roberts 2010, J R Soc Interface 7:873) at susceptibles S, under `phase`.
+ */
+export function nextGenerationMatrixByHand(s: Scenario, beta: number, susceptible: readonly number[], phase: Phase | null): number[][] {
+  const N = s.populationPersons;
+  const u = s.disease.relativeSusceptibility ?? N.map(() => 1);
+  const h = s.disease.relativeInfectiousness ?? N.map(() => 1);
+  const keep = 1 - (phase?.caseIsolation ?? 0);
+  const C = contactsUnder(s, phase);
+  return C.map((row, i) => row.map((c, j) => (beta * s.disease.infectiousPeriodDays * u[i] * c * h[j] * keep * susceptible[i]) / N[j]));
+}
+
+/** Largest real part among mathjs's eigenvalues (which may be complex numbers). */
+export function dominantByMathjs(rows: number[][], precision?: number): number {
+  const { values } = eigs(rows, { eigenvectors: false, precision }) as unknown as { values: unknown };
+  const list = (Array.isArray(values) ? values : (values as { toArray(): unknown[] }).toArray()) as (number | { re: number })[];
+  return Math.max(...list.map((v) => (typeof v === 'number' ? v : v.re)));
+}
