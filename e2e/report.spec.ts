@@ -12,7 +12,7 @@ import { existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { parseScenarioText } from '../src/engine/validation.ts';
-import { canonicalJson, formatPercent, formatPersons, formatR } from '../src/report/index.ts';
+import { canonicalJson, print } from '../src/report/index.ts';
 import { ARTIFACTS, CHROMIUM, DEMO, ROOT, mixwise } from './helpers.ts';
 
 const VERSION = (JSON.parse(readFileSync(join(ROOT, 'package.json'), 'utf8')) as { version: string }).version;
@@ -90,10 +90,10 @@ test('demo report PDF: fingerprint on every page, and the numbers of mixwise run
 
   const options = cliOptions(DEMO);
   const row = (label: string) => rowLines(pages, label).flatMap((r) => r.cells);
-  expect(row('R at start (day 0)')).toEqual(options.map((o) => formatR(o.rStart)));
-  expect(row('Attack rate, % of population')).toEqual(options.map((o) => formatPercent(o.attackRate)));
-  expect(row('Deaths, persons')).toEqual(options.map((o) => formatPersons(o.deaths)));
-  expect(row('Peak ICU beds in use')).toEqual(options.map((o) => formatPersons(o.peakIcuOccupancy ?? NaN)));
+  expect(row('R at start (day 0)')).toEqual(options.map((o) => print.r(o.rStart)));
+  expect(row('Attack rate, % of population')).toEqual(options.map((o) => print.percent(o.attackRate)));
+  expect(row('Deaths, persons')).toEqual(options.map((o) => print.persons(o.deaths)));
+  expect(row('Peak ICU beds in use')).toEqual(options.map((o) => print.persons(o.peakIcuOccupancy ?? NaN)));
 
   const all = pages.join('\n');
   expect(all).toContain('not forecasts');
@@ -119,10 +119,10 @@ test('12 options: the table splits into column groups and no row is split across
     const pages = renderPdf(file, pdf, ...extra);
     const groups = Math.ceil(12 / perGroup);
     const expected: [string, (o: JsonOption) => string][] = [
-      ['R at start (day 0)', (o) => formatR(o.rStart)],
-      ['Attack rate, % of population', (o) => formatPercent(o.attackRate)],
-      ['Deaths, persons', (o) => formatPersons(o.deaths)],
-      ['Peak ICU beds in use', (o) => formatPersons(o.peakIcuOccupancy ?? NaN)],
+      ['R at start (day 0)', (o) => print.r(o.rStart)],
+      ['Attack rate, % of population', (o) => print.percent(o.attackRate)],
+      ['Deaths, persons', (o) => print.persons(o.deaths)],
+      ['Peak ICU beds in use', (o) => print.persons(o.peakIcuOccupancy ?? NaN)],
     ];
     for (const [label, format] of expected) {
       const lines = rowLines(pages, label);

@@ -10,7 +10,7 @@ import type { OutputFormat } from './args.ts';
 import { EXIT_CODES, type ExitCode } from './errors.ts';
 import { readTextFile, writeFileAtomically } from './files.ts';
 import { formatReport } from './format.ts';
-import { optionsReport } from './options-report.ts';
+import { csvSourceOf } from './nodeFingerprint.ts';
 import { reciprocityNotes, reciprocityRows } from './reciprocity-notes.ts';
 
 export interface Output {
@@ -35,7 +35,7 @@ export function loadScenarioOrComplain(io: Output, file: string): Scenario | nul
 export function runCommand(io: Output, file: string, format: OutputFormat, out: string | null): ExitCode {
   const scenario = loadScenarioOrComplain(io, file);
   if (scenario === null) return EXIT_CODES.invalidScenario;
-  const text = formatReport(optionsReport(runScenario(scenario)), format);
+  const text = formatReport(runScenario(scenario), format, csvSourceOf(scenario));
   if (out === null) io.out(text);
   else writeFileAtomically(out, text);
   return EXIT_CODES.ok;

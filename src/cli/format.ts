@@ -1,20 +1,22 @@
-/** Renders the options report in the format asked for on the command line. */
+/** Renders the results of `mixwise run` in the format asked for on the command line. */
+import type { ScenarioResults } from '../engine/index.ts';
+import { optionsTableCsv, type CsvSource } from '../report/csv.ts';
 import type { OutputFormat } from './args.ts';
-import { formatCsv } from './format-csv.ts';
-import { formatMarkdown } from './format-markdown.ts';
-import { formatText } from './format-text.ts';
-import type { OptionsReport } from './options-report.ts';
-import { printedReport } from './table-model.ts';
+import { formatMarkdown } from './formatMarkdown.ts';
+import { formatText } from './formatText.ts';
+import { optionsReport } from './optionsReport.ts';
+import { printedReport } from './tableModel.ts';
 
-export function formatReport(report: OptionsReport, format: OutputFormat): string {
+/** `source` names the scenario and program version in the CSV header block. */
+export function formatReport(results: ScenarioResults, format: OutputFormat, source: CsvSource): string {
   switch (format) {
     case 'json':
-      return `${JSON.stringify(report, null, 2)}\n`;
+      return `${JSON.stringify(optionsReport(results), null, 2)}\n`;
     case 'csv':
-      return formatCsv(report);
+      return optionsTableCsv(results, source);
     case 'md':
-      return formatMarkdown(printedReport(report));
+      return formatMarkdown(printedReport(results));
     case 'table':
-      return formatText(printedReport(report));
+      return formatText(printedReport(results));
   }
 }

@@ -24,7 +24,7 @@ import { CAUTION } from './caution.ts';
 import { loadScenarioOrComplain, type Output } from './commands.ts';
 import { CliError, EXIT_CODES, reportFault, type ExitCode } from './errors.ts';
 import { HELP_TEXT } from './help.ts';
-import { groupThousands } from './numbers.ts';
+import { groupThousands } from '../report/numberFormat.ts';
 import { onlyFile, splitWords, usageError } from './words.ts';
 
 interface OrdersArgs {

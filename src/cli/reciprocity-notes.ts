@@ -3,7 +3,7 @@
  * matrices as given; the note tells the analyst how far off they are and where.
  */
 import type { ReciprocityCheck } from '../engine/results.ts';
-import { percent } from './numbers.ts';
+import { print } from '../report/numberFormat.ts';
 
 export interface ReciprocityRow {
   setting: string;
@@ -28,6 +28,6 @@ export function reciprocityNotes(rows: readonly ReciprocityRow[]): string[] {
     .map(
       (r) =>
         `contacts in setting "${r.setting}" are not reciprocal (used as given): largest imbalance ` +
-        `${percent(r.largestRelativeImbalance)} between bands ${r.at[0]} and ${r.at[1]}`,
+        `${print.percent(r.largestRelativeImbalance)} between bands ${r.at[0]} and ${r.at[1]}`,
     );
 }

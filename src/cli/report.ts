@@ -28,10 +28,11 @@ async function report(io: Output, args: ReportArgs, context: ReportContext): Pro
   const scenario = loadScenarioOrComplain(io, args.file);
   if (scenario === null) return EXIT_CODES.invalidScenario;
   const results = runScenario(scenario);
+  const fingerprint = await scenarioFingerprint(scenario, packageJson.version);
+  const source = { fingerprint, appVersion: packageJson.version };
   let text: string;
-  if (args.format === 'csv') text = args.series ? dailySeriesCsv(results) : optionsTableCsv(results);
+  if (args.format === 'csv') text = args.series ? dailySeriesCsv(results, source) : optionsTableCsv(results, source);
   else {
-    const fingerprint = await scenarioFingerprint(scenario, packageJson.version);
     text = buildReportHtml(scenario, results, {
       appVersion: packageJson.version,
       generatedAt: context.now(),

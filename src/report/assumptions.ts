@@ -15,7 +15,7 @@ import {
 import type { ScenarioResults } from '../engine/results.ts';
 import type { Delay, Scenario } from '../engine/scenario.ts';
 import { fitRecordRows } from './fitRecord.ts';
-import { formatDecimal, formatPercent, formatPersons } from './numbers.ts';
+import { print } from './numberFormat.ts';
 
 export interface ParameterRow {
   parameter: string;
@@ -38,7 +38,7 @@ export const DELAY_DEFAULT_SOURCE = 'Program default (src/engine/healthcare/defa
 
 const orFile = (source: string): string => (source.trim() === '' ? FROM_FILE : source);
 const sameDelay = (a: Delay, b: Delay): boolean => a.meanDays === b.meanDays && a.shape === b.shape;
-const delayText = (d: Delay): string => `mean ${formatDecimal(d.meanDays, 1)}, gamma shape ${formatDecimal(d.shape, 1)}`;
+const delayText = (d: Delay): string => `mean ${print.decimal(d.meanDays, 1)}, gamma shape ${print.decimal(d.shape, 1)}`;
 
 /** Population-weighted mean contacts per person per day in one setting: sum_i N_i sum_j C_ij / sum_i N_i. */
 function meanContactsPerPerson(matrix: number[][], population: number[]): number {
@@ -59,45 +59,45 @@ export function parameterRows(scenario: Scenario, results: ScenarioResults): Par
   const populationTotal = scenario.populationPersons.reduce((a, b) => a + b, 0);
 
   add('Age bands', `${scenario.ageBands.length} (${scenario.ageBands[0].label} ... ${scenario.ageBands[scenario.ageBands.length - 1].label})`, 'bands', FROM_FILE);
-  add('Population', formatPersons(populationTotal), 'persons', `${FROM_FILE} (by band below)`);
+  add('Population', print.persons(populationTotal), 'persons', `${FROM_FILE} (by band below)`);
   add('Horizon', String(scenario.horizonDays), 'days', FROM_FILE);
-  if (d.transmission.kind === 'r0') add('Basic reproduction number R0 (target)', formatDecimal(d.transmission.r0, 2), 'per case', diseaseSource);
-  else add('Doubling time before measures (target)', formatDecimal(d.transmission.doublingTimeDays, 2), 'days', diseaseSource);
+  if (d.transmission.kind === 'r0') add('Basic reproduction number R0 (target)', print.decimal(d.transmission.r0, 2), 'per case', diseaseSource);
+  else add('Doubling time before measures (target)', print.decimal(d.transmission.doublingTimeDays, 2), 'days', diseaseSource);
   rows.push(...fitRecordRows(scenario));
-  add('R0 from the next-generation matrix', formatDecimal(results.r0, 3), 'per case', 'Computed by Mixwise (dominant eigenvalue, all susceptible, no measures)');
+  add('R0 from the next-generation matrix', print.decimal(results.r0, 3), 'per case', 'Computed by Mixwise (dominant eigenvalue, all susceptible, no measures)');
   add('Transmission rate beta', results.beta.toPrecision(4), 'per contact', 'Calibrated by Mixwise to the target above');
-  add('Latent period (mean)', formatDecimal(d.latentPeriodDays, 2), 'days', diseaseSource);
-  add('Infectious period D (mean)', formatDecimal(d.infectiousPeriodDays, 2), 'days', diseaseSource);
+  add('Latent period (mean)', print.decimal(d.latentPeriodDays, 2), 'days', diseaseSource);
+  add('Infectious period D (mean)', print.decimal(d.infectiousPeriodDays, 2), 'days', diseaseSource);
   add('Latent / infectious stages (Erlang)', `${d.latentStages} / ${d.infectiousStages}`, 'stages', diseaseSource);
   add('Relative susceptibility u', d.relativeSusceptibility === undefined ? '1 in every band' : 'by band, below', 'ratio', d.relativeSusceptibility === undefined ? 'Program default' : diseaseSource);
   add('Relative infectiousness h', d.relativeInfectiousness === undefined ? '1 in every band' : 'by band, below', 'ratio', d.relativeInfectiousness === undefined ? 'Program default' : diseaseSource);
   add('Infection fatality ratio (IFR)', 'by band, below', 'fraction of infections', scenario.severity.source);
   add('Infection-to-death delay', delayText(scenario.severity.deathDelay), 'days', `${FROM_FILE}, or program default (mean 21, shape 4) when left out`);
   for (const setting of scenario.settings) {
-    add(`Contacts in setting "${setting.name}"`, formatDecimal(meanContactsPerPerson(setting.contactsPerDay, scenario.populationPersons), 2), 'per person per day', `${FROM_FILE} (contact matrix)`);
+    add(`Contacts in setting "${setting.name}"`, print.decimal(meanContactsPerPerson(setting.contactsPerDay, scenario.populationPersons), 2), 'per person per day', `${FROM_FILE} (contact matrix)`);
   }
   add(
     'Reciprocity imbalance (largest, by setting)',
-    results.reciprocity.map((c) => `${c.setting} ${formatPercent(c.largestRelativeImbalance, 1)}`).join(', '),
+    results.reciprocity.map((c) => `${c.setting} ${print.percent(c.largestRelativeImbalance, 1)}`).join(', '),
     '|N_i C_ij - N_j C_ji| / max',
     'Computed by Mixwise from the file',
   );
   const initial = scenario.initialState;
-  add('Infected on day 0', formatDecimal(initial.infectedPersons.reduce((a, b) => a + b, 0), 1), `persons (${initial.infectedCompartment})`, FROM_FILE);
+  add('Infected on day 0', print.decimal(initial.infectedPersons.reduce((a, b) => a + b, 0), 1), `persons (${initial.infectedCompartment})`, FROM_FILE);
   add('Prior immunity', initial.priorImmunityFraction === undefined ? 'none' : 'by band, below', 'fraction of band', FROM_FILE);
   add('Reference option', scenario.options[results.referenceIndex]?.name ?? '', '', FROM_FILE);
 
   for (const campaign of scenario.vaccinationCampaigns) {
     const source = orFile(campaign.source);
     const name = `Campaign "${campaign.name}"`;
-    const supply = [...campaign.schedule].sort((a, b) => a.fromDay - b.fromDay).map((step) => `${formatPersons(step.dosesPerDay)} from day ${step.fromDay}`);
+    const supply = [...campaign.schedule].sort((a, b) => a.fromDay - b.fromDay).map((step) => `${print.persons(step.dosesPerDay)} from day ${step.fromDay}`);
     add(`${name}: doses per day`, supply.join('; '), 'doses per day', source);
     add(`${name}: priority order`, campaign.priority.map((group) => group.map((b) => scenario.ageBands[b]?.label ?? `band ${b}`).join(' + ')).join(', '), 'age bands', source);
     add(`${name}: uptake ceiling`, 'by band, below', 'fraction of band', source);
-    add(`${name}: efficacy against infection`, formatPercent(campaign.efficacyAgainstInfection, 0), `fraction (${campaign.protection === 'leaky' ? 'leaky' : 'all-or-nothing'})`, source);
-    add(`${name}: efficacy against admission`, formatPercent(campaign.efficacyAgainstAdmission ?? campaign.efficacyAgainstDeath, 0), 'fraction', campaign.efficacyAgainstAdmission === undefined ? 'Program default: the efficacy against death' : source);
-    add(`${name}: efficacy against death`, formatPercent(campaign.efficacyAgainstDeath, 0), 'fraction', source);
-    add(`${name}: delay to protection`, formatDecimal(campaign.delayToProtectionDays, 1), 'days (mean, exponential)', source);
+    add(`${name}: efficacy against infection`, print.percent(campaign.efficacyAgainstInfection, 0), `fraction (${campaign.protection === 'leaky' ? 'leaky' : 'all-or-nothing'})`, source);
+    add(`${name}: efficacy against admission`, print.percent(campaign.efficacyAgainstAdmission ?? campaign.efficacyAgainstDeath, 0), 'fraction', campaign.efficacyAgainstAdmission === undefined ? 'Program default: the efficacy against death' : source);
+    add(`${name}: efficacy against death`, print.percent(campaign.efficacyAgainstDeath, 0), 'fraction', source);
+    add(`${name}: delay to protection`, print.decimal(campaign.delayToProtectionDays, 1), 'days (mean, exponential)', source);
   }
 
   const h = scenario.healthcare;
@@ -115,9 +115,9 @@ export function parameterRows(scenario: Scenario, results: ScenarioResults): Par
       const value = byBand ? `${delayText(delay)} (replaced band by band in the file)` : delayText(delay);
       add(name, value, 'days', sameDelay(delay, fallback) && !byBand ? DELAY_DEFAULT_SOURCE : hospitalSource);
     }
-    const surge = (n: number | undefined) => (n === undefined ? '' : `; ${formatPersons(n)} at full surge`);
-    add('Ward beds', `${formatPersons(h.capacity.wardBeds)}${surge(h.capacity.wardSurgeBeds)}`, 'beds', hospitalSource);
-    add('ICU beds', `${formatPersons(h.capacity.icuBeds)}${surge(h.capacity.icuSurgeBeds)}`, 'beds', hospitalSource);
+    const surge = (n: number | undefined) => (n === undefined ? '' : `; ${print.persons(n)} at full surge`);
+    add('Ward beds', `${print.persons(h.capacity.wardBeds)}${surge(h.capacity.wardSurgeBeds)}`, 'beds', hospitalSource);
+    add('ICU beds', `${print.persons(h.capacity.icuBeds)}${surge(h.capacity.icuSurgeBeds)}`, 'beds', hospitalSource);
   }
   return rows;
 }
@@ -135,15 +135,15 @@ export function bandTable(scenario: Scenario): BandTable {
   const rows = scenario.ageBands.map((band, i) => {
     const row = [
       band.label,
-      formatPersons(scenario.populationPersons[i]),
-      formatPercent(scenario.severity.infectionFatalityRatio[i], 3),
-      formatDecimal(d.relativeSusceptibility?.[i] ?? 1, 2),
-      formatDecimal(d.relativeInfectiousness?.[i] ?? 1, 2),
-      formatDecimal(scenario.initialState.infectedPersons[i], 1),
-      formatPercent(scenario.initialState.priorImmunityFraction?.[i] ?? 0, 1),
+      print.persons(scenario.populationPersons[i]),
+      print.percent(scenario.severity.infectionFatalityRatio[i], 3),
+      print.decimal(d.relativeSusceptibility?.[i] ?? 1, 2),
+      print.decimal(d.relativeInfectiousness?.[i] ?? 1, 2),
+      print.decimal(scenario.initialState.infectedPersons[i], 1),
+      print.percent(scenario.initialState.priorImmunityFraction?.[i] ?? 0, 1),
     ];
-    if (ihr !== null && icu !== null) row.push(formatPercent(ihr[i], 2), formatPercent(icu[i], 1));
-    for (const campaign of scenario.vaccinationCampaigns) row.push(formatPercent(campaign.uptakeCeiling[i] ?? 0, 0));
+    if (ihr !== null && icu !== null) row.push(print.percent(ihr[i], 2), print.percent(icu[i], 1));
+    for (const campaign of scenario.vaccinationCampaigns) row.push(print.percent(campaign.uptakeCeiling[i] ?? 0, 0));
     return row;
   });
   return { header, rows };

@@ -5,7 +5,7 @@
  */
 import { totalOverBands } from '../engine/bandTotals.ts';
 import type { OptionResults, ScenarioResults } from '../engine/results.ts';
-import { formatAxisValue, formatPersons } from './numbers.ts';
+import { formatAxisValue, print } from './numberFormat.ts';
 import { optionStyle, type OptionStyle } from './palette.ts';
 import { lineChartSvg, type ChartSeries } from './svgLineChart.ts';
 
@@ -53,8 +53,8 @@ export function curveCharts(results: ScenarioResults, styleOf: StyleOf = optionS
   ];
   const hospital = results.options.find((o) => o.healthcare !== null)?.healthcare ?? null;
   if (hospital !== null) {
-    const lines = [{ value: hospital.icu.capacityBeds, label: `ICU capacity ${formatPersons(hospital.icu.capacityBeds)} beds` }];
-    if (hospital.icu.surgeCapacityBeds !== null) lines.push({ value: hospital.icu.surgeCapacityBeds, label: `surge ${formatPersons(hospital.icu.surgeCapacityBeds)} beds` });
+    const lines = [{ value: hospital.icu.capacityBeds, label: `ICU capacity ${print.persons(hospital.icu.capacityBeds)} beds` }];
+    if (hospital.icu.surgeCapacityBeds !== null) lines.push({ value: hospital.icu.surgeCapacityBeds, label: `surge ${print.persons(hospital.icu.surgeCapacityBeds)} beds` });
     charts.push({
       id: 'icu',
       heading: 'ICU beds in use',

@@ -1,16 +1,42 @@
 /**
- * CSV exports (RFC 4180: comma separator, CRLF line ends, a field quoted when it holds a comma,
- * quote or line break, quotes doubled). Numbers are written at full precision (JavaScript's
- * shortest round-trip form), so a CSV read back gives the engine's numbers exactly. An empty
- * cell means "none" (e.g. no doubling time when the epidemic is not growing).
+ * The one CSV writer of Mixwise (app exports, `mixwise report --format csv` and
+ * `mixwise run --format csv`). RFC 4180 body: comma separator, CRLF line ends, a field quoted when
+ * it holds a comma, quote or line break, quotes doubled.
+ *
+ * Every file starts with a header block of lines beginning with "#" (documented in README.md):
+ * what the file is, the scenario fingerprint and program version, the caution, the units and the
+ * precision. Readers skip it with their comment option (e.g. `comment="#"`).
+ *
+ * Numbers carry `CSV_SIGNIFICANT_DIGITS` significant digits (whole numbers exactly): far finer than
+ * the model's inputs are known, and short enough to read. An empty cell means the outcome does not
+ * apply to the option (no hospital section, no campaign) or there is none (e.g. no doubling time
+ * when the epidemic is not growing).
  */
-import type { OptionResults, ScenarioResults } from '../engine/results.ts';
+import type { ScenarioResults } from '../engine/index.ts';
+import { CAUTION } from './cautions.ts';
+import { appliesTo, BAND_OUTCOMES, outcomesFor } from './outcomes.ts';
 
 type Field = string | number | boolean | null;
 
+/** Significant digits of every non-integer number in a CSV export. */
+export const CSV_SIGNIFICANT_DIGITS = 6;
+
+/** Where the numbers come from, for the header block. */
+export interface CsvSource {
+  /** Full SHA-256 fingerprint of the scenario and program version (`scenarioFingerprint`). */
+  fingerprint: string;
+  appVersion: string;
+}
+
+/** A number at the stated precision: whole numbers as they are, others to 6 significant digits. */
+export function csvNumber(x: number): string {
+  if (!Number.isFinite(x)) return '';
+  return Number.isInteger(x) ? String(x) : String(Number(x.toPrecision(CSV_SIGNIFICANT_DIGITS)));
+}
+
 function csvField(value: Field): string {
   if (value === null) return '';
-  const text = String(value);
+  const text = typeof value === 'number' ? csvNumber(value) : String(value);
   return /[",\r\n]/.test(text) ? `"${text.replace(/"/g, '""')}"` : text;
 }
 
@@ -18,69 +44,46 @@ function csvLines(rows: readonly Field[][]): string {
   return rows.map((row) => row.map(csvField).join(',')).join('\r\n') + '\r\n';
 }
 
-const OPTION_COLUMNS: [string, (o: OptionResults, reference: OptionResults) => Field][] = [
-  ['r_start', (o) => o.rStart],
-  ['growth_rate_per_day', (o) => o.growthRatePerDay],
-  ['doubling_time_days', (o) => o.doublingTimeDays],
-  ['halving_time_days', (o) => o.halvingTimeDays],
-  ['peak_day', (o) => o.peakDay],
-  ['peak_infected_persons', (o) => o.peakInfectedPersons],
-  ['peak_prevalence', (o) => o.peakPrevalence],
-  ['infections', (o) => o.infections],
-  ['attack_rate', (o) => o.attackRate],
-  ['deaths', (o) => o.deaths],
-  ['deaths_averted', (o, ref) => o.comparison?.deathsAverted ?? ref.deaths - o.deaths],
-  ['final_size_attack_rate', (o) => o.finalSize?.attackRate ?? null],
-];
+const oneLine = (text: string) => text.replace(/[\r\n]+/g, ' ');
 
-const HOSPITAL_COLUMNS: [string, (o: OptionResults) => Field][] = [
-  ['hospital_admissions', (o) => o.healthcare?.admissions ?? null],
-  ['icu_admissions', (o) => o.healthcare?.icuAdmissions ?? null],
-  ['peak_ward_occupancy', (o) => o.healthcare?.ward.peakOccupancy ?? null],
-  ['peak_ward_day', (o) => o.healthcare?.ward.peakDay ?? null],
-  ['ward_days_over_capacity', (o) => o.healthcare?.ward.daysOverCapacity ?? null],
-  ['peak_icu_occupancy', (o) => o.healthcare?.icu.peakOccupancy ?? null],
-  ['peak_icu_day', (o) => o.healthcare?.icu.peakDay ?? null],
-  ['icu_days_over_capacity', (o) => o.healthcare?.icu.daysOverCapacity ?? null],
-  ['icu_first_day_over_capacity', (o) => o.healthcare?.icu.firstDayOverCapacity ?? null],
-  ['icu_days_over_surge_capacity', (o) => o.healthcare?.icu.daysOverSurgeCapacity ?? null],
-];
-
-const VACCINATION_COLUMNS: [string, (o: OptionResults) => Field][] = [
-  ['vaccine_doses', (o) => o.vaccination?.doses ?? 0],
-  ['deaths_averted_per_1000_doses', (o) => o.comparison?.deathsAvertedPer1000Doses ?? null],
-  ['infections_averted_per_1000_doses', (o) => o.comparison?.infectionsAvertedPer1000Doses ?? null],
-];
+/** The "#" lines at the top of every export. */
+export function csvHeaderBlock(what: string, results: ScenarioResults, source: CsvSource, units: string): string {
+  const reference = results.options[results.referenceIndex]?.name ?? '';
+  const lines = [
+    `Mixwise ${what}: ${results.title}`,
+    `Scenario fingerprint: ${source.fingerprint} (SHA-256 of the scenario and mixwise ${source.appVersion})`,
+    CAUTION,
+    `Reference option: ${reference}`,
+    units,
+    `Numbers: ${CSV_SIGNIFICANT_DIGITS} significant digits (whole numbers exact). Empty cell: does not apply, or none.`,
+  ];
+  return lines.map((line) => `# ${oneLine(line)}\r\n`).join('');
+}
 
 /**
  * The policy options table, one row per option: `option`, `reference` (true for the reference
- * option), the outcomes (rates per day, times in days, fractions 0-1, persons), hospital columns
- * when any option has hospital results, vaccination columns when any option has a campaign, then attack rate and deaths by age band
- * (`attack_rate <band>`, `deaths <band>`).
+ * option), then every outcome of the catalogue (src/report/outcomes.ts) that applies to some
+ * option, under its CSV column name, then the by-band outcomes as `<column> <band label>`.
  */
-export function optionsTableCsv(results: ScenarioResults): string {
-  const reference = results.options[results.referenceIndex];
-  const hospital = results.options.some((o) => o.healthcare !== null);
-  const vaccination = results.options.some((o) => o.vaccination !== null);
+export function optionsTableCsv(results: ScenarioResults, source: CsvSource): string {
+  const outcomes = outcomesFor(results);
+  const bands = BAND_OUTCOMES.filter((b) => results.options.some((o) => appliesTo(b, o)));
   const header: Field[] = [
     'option',
     'reference',
-    ...OPTION_COLUMNS.map(([name]) => name),
-    ...(hospital ? HOSPITAL_COLUMNS.map(([name]) => name) : []),
-    ...(vaccination ? VACCINATION_COLUMNS.map(([name]) => name) : []),
-    ...results.ageBands.map((band) => `attack_rate ${band}`),
-    ...results.ageBands.map((band) => `deaths ${band}`),
+    ...outcomes.map((e) => e.column),
+    ...bands.flatMap((b) => results.ageBands.map((band) => `${b.column} ${band}`)),
   ];
   const rows = results.options.map((o, k): Field[] => [
     o.name,
     k === results.referenceIndex,
-    ...OPTION_COLUMNS.map(([, value]) => value(o, reference)),
-    ...(hospital ? HOSPITAL_COLUMNS.map(([, value]) => value(o)) : []),
-    ...(vaccination ? VACCINATION_COLUMNS.map(([, value]) => value(o)) : []),
-    ...o.attackRateByBand,
-    ...o.deathsByBand,
+    ...outcomes.map((e) => (appliesTo(e, o) ? e.read(o, results) : null)),
+    ...bands.flatMap((b) => (appliesTo(b, o) ? b.read(o, results) : results.ageBands.map(() => null))),
   ]);
-  return csvLines([header, ...rows]);
+  const units =
+    'Units: rates per day; times in days; day numbers from day 0 (the scenario\'s first day); prevalence, attack rates and shares as fractions 0-1; ' +
+    'counts in persons (beds, doses); averted = reference minus option.';
+  return csvHeaderBlock('policy options table', results, source, units) + csvLines([header, ...rows]);
 }
 
 /** Daily quantities written by `dailySeriesCsv`, with their units (see `DailySeries`). */
@@ -103,10 +106,11 @@ export type DailyQuantity = keyof typeof DAILY_QUANTITIES;
  * The daily series in long format: one line per option, day, band and quantity, columns
  * `option, day, band, quantity, value`. By-band quantities (susceptible, prevalence, incidence,
  * and doses for options with a vaccination campaign) have one line per band (the band's label)
- * and one for their sum over bands (band `all`); the others exist for all bands only. Days: 0..H for susceptible, prevalence and R(t); 0..H-1 for
- * quantities counted during a day. Lines are ordered by option, quantity, band, day.
+ * and one for their sum over bands (band `all`); the others exist for all bands only. Days: 0..H
+ * for susceptible, prevalence and R(t); 0..H-1 for quantities counted during a day. Lines are
+ * ordered by option, quantity, band, day.
  */
-export function dailySeriesCsv(results: ScenarioResults): string {
+export function dailySeriesCsv(results: ScenarioResults, source: CsvSource): string {
   const lines: Field[][] = [['option', 'day', 'band', 'quantity', 'value']];
   for (const o of results.options) {
     const s = o.series;
@@ -136,5 +140,6 @@ export function dailySeriesCsv(results: ScenarioResults): string {
       allBands('icu_occupancy', o.healthcare.series.icuOccupancy);
     }
   }
-  return csvLines(lines);
+  const units = `Quantities: ${Object.entries(DAILY_QUANTITIES).map(([q, meaning]) => `${q} = ${meaning}`).join('; ')}.`;
+  return csvHeaderBlock('daily series', results, source, units) + csvLines(lines);
 }

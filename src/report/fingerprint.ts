@@ -45,9 +45,14 @@ function webGlobals(): Required<WebGlobals> & { crypto: { subtle: Sha256Digest }
   return { crypto: { subtle }, TextEncoder: g.TextEncoder };
 }
 
+/** The text the fingerprint hashes: canonical JSON of the scenario, a line break, "mixwise <version>". */
+export function fingerprintInput(scenario: unknown, appVersion: string): string {
+  return `${canonicalJson(scenario)}\nmixwise ${appVersion}`;
+}
+
 /** Full SHA-256 fingerprint of a scenario and the app version, 64 lower-case hex characters. */
 export async function scenarioFingerprint(scenario: unknown, appVersion: string): Promise<string> {
-  const text = `${canonicalJson(scenario)}\nmixwise ${appVersion}`;
+  const text = fingerprintInput(scenario, appVersion);
   const web = webGlobals();
   const digest = await web.crypto.subtle.digest('SHA-256', new web.TextEncoder().encode(text));
   return Array.from(new Uint8Array(digest), (byte) => byte.toString(16).padStart(2, '0')).join('');

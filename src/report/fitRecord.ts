@@ -8,7 +8,7 @@
 import { fitRecordMatches, type FitRecord } from '../engine/fitting/fitRecord.ts';
 import type { Scenario } from '../engine/scenario.ts';
 import type { ParameterRow } from './assumptions.ts';
-import { formatDecimal, formatPersons, formatR } from './numbers.ts';
+import { print } from './numberFormat.ts';
 
 /** Source column of every fit row. */
 export const FIT_SOURCE = 'Fit to daily case counts (fit record in the scenario file)';
@@ -33,19 +33,19 @@ export function fitWindowText(record: FitRecord): string {
   const days = `days ${w.fromDay} to ${w.toDay}`;
   const span = w.fromDate !== undefined && w.toDate !== undefined ? `${w.fromDate} to ${w.toDate} (${days})` : days;
   const used = w.daysUsed === undefined ? '' : `; ${w.daysUsed} ${w.daysUsed === 1 ? 'day' : 'days'} used`;
-  const cases = w.cases === undefined ? '' : `; ${formatPersons(w.cases)} cases`;
+  const cases = w.cases === undefined ? '' : `; ${print.persons(w.cases)} cases`;
   return `${span}${used}${cases}`;
 }
 
-const rate = (x: number): string => formatDecimal(x, 4);
-const days = (x: number): string => formatDecimal(x, 1);
+const rate = (x: number): string => print.decimal(x, 4);
+const days = (x: number): string => print.decimal(x, 1);
 
 /** Dispersion of the counts as one line of small print; '' when the record has none. */
 export function dispersionText(record: FitRecord): string {
   const d = record.dispersion;
   if (d === undefined) return '';
   const parts: string[] = [];
-  if (d.pearsonRatio !== null) parts.push(`Pearson dispersion ratio of the Poisson fit ${formatDecimal(d.pearsonRatio, 2)} (1 = Poisson variance)`);
+  if (d.pearsonRatio !== null) parts.push(`Pearson dispersion ratio of the Poisson fit ${print.decimal(d.pearsonRatio, 2)} (1 = Poisson variance)`);
   if (d.negativeBinomialAlpha !== null) parts.push(`negative-binomial alpha ${d.negativeBinomialAlpha.toPrecision(3)} (variance = mean + alpha mean^2)`);
   return parts.length === 0 ? '' : `Dispersion: ${parts.join('; ')}.`;
 }
@@ -61,7 +61,7 @@ export function fitRecordRows(scenario: Scenario): ParameterRow[] {
   const add = (parameter: string, value: string, unit: string, smallPrint?: string) =>
     rows.push({ parameter, value, unit, source: FIT_SOURCE, ...(smallPrint ? { smallPrint } : {}) });
   if (!fitRecordMatches(scenario.disease.transmission, record)) {
-    add(R0_CHANGED_AFTER_FIT, `the fit gave R0 = ${formatR(record.r0)}; the scenario now uses the value above`, '');
+    add(R0_CHANGED_AFTER_FIT, `the fit gave R0 = ${print.r(record.r0)}; the scenario now uses the value above`, '');
   }
   add('Fit: case-count file', record.sourceFile, '');
   add('Fit: window', fitWindowText(record), 'days, both ends included');
@@ -74,13 +74,13 @@ export function fitRecordRows(scenario: Scenario): ParameterRow[] {
   const doubling = record.doublingTimeDays === null ? 'none (not growing)' : days(record.doublingTimeDays);
   const doublingInterval = record.doublingTimeInterval === null ? '' : ` (95% interval ${intervalText(record.doublingTimeInterval, days)})`;
   add('Fit: doubling time', `${doubling}${doublingInterval}`, 'days');
-  add('Fit: R0', `${formatR(record.r0)} (95% interval ${intervalText(record.r0Interval, formatR)})`, 'per case');
+  add('Fit: R0', `${print.r(record.r0)} (95% interval ${intervalText(record.r0Interval, print.r)})`, 'per case');
   const m = record.measures;
   if (m !== undefined) {
     const phase = m.phaseFromDay === null || m.phaseToDay === null ? 'no phase in force' : `days ${m.phaseFromDay} to ${m.phaseToDay - 1}`;
     add(
       'Fit: measures divided out',
-      `option "${m.option}" (${phase}): ratio ${m.ratio.toPrecision(3)}, R in window ${formatR(m.reproductionNumberInWindow)}`,
+      `option "${m.option}" (${phase}): ratio ${m.ratio.toPrecision(3)}, R in window ${print.r(m.reproductionNumberInWindow)}`,
       'ratio; per case',
       record.measuresNote,
     );

@@ -7,7 +7,7 @@
  * cut to the horizon. Settings not named in a phase stay at 100% of usual contacts.
  */
 import type { AgeFactor, Campaign, Phase, PolicyOption, Scenario } from '../engine/scenario.ts';
-import { formatMultiplier, formatPercent, formatPersons } from './numbers.ts';
+import { print } from './numberFormat.ts';
 
 export interface PhaseSummary {
   /** "Days 21 to 76 (56 days)" or "Whole horizon (days 0 to 364)". */
@@ -35,11 +35,11 @@ function bandList(bands: readonly number[], labels: readonly string[]): string {
 
 function settingChange(setting: string, multiplier: number): string {
   const closed = multiplier === 0 ? ' (closed)' : '';
-  return `${setting} contacts ${formatMultiplier(multiplier)} of usual${closed}`;
+  return `${setting} contacts ${print.multiplier(multiplier)} of usual${closed}`;
 }
 
 function ageFactorText(factor: AgeFactor, labels: readonly string[]): string {
-  return `${factor.setting} contacts of ages ${bandList(factor.bands, labels)} at ${formatMultiplier(factor.factor)} of usual`;
+  return `${factor.setting} contacts of ages ${bandList(factor.bands, labels)} at ${print.multiplier(factor.factor)} of usual`;
 }
 
 /** What a phase changes, in plain words; "no change to contacts" when it changes nothing. */
@@ -49,7 +49,7 @@ export function phaseMeasuresText(phase: Phase, bandLabels: readonly string[]): 
     if (multiplier !== 1) parts.push(settingChange(setting, multiplier));
   }
   for (const factor of phase.ageFactors) parts.push(ageFactorText(factor, bandLabels));
-  if (phase.caseIsolation > 0) parts.push(`infectiousness of cases cut by ${formatPercent(phase.caseIsolation, 0)} (isolation)`);
+  if (phase.caseIsolation > 0) parts.push(`infectiousness of cases cut by ${print.percent(phase.caseIsolation, 0)} (isolation)`);
   return parts.length === 0 ? 'no change to contacts' : parts.join('; ');
 }
 
@@ -71,17 +71,17 @@ export function phaseWhenText(phase: Phase, horizonDays: number): string | null 
 export function campaignText(campaign: Campaign, bandLabels: readonly string[]): string {
   const supply = [...campaign.schedule]
     .sort((a, b) => a.fromDay - b.fromDay)
-    .map((step) => `from day ${step.fromDay}, ${formatPersons(step.dosesPerDay)} doses a day`)
+    .map((step) => `from day ${step.fromDay}, ${print.persons(step.dosesPerDay)} doses a day`)
     .join('; ');
   const priority = campaign.priority.map((group) => bandList(group, bandLabels)).join(', then ');
-  const ceilings = [...new Set(campaign.uptakeCeiling.filter((c) => c > 0))].map((c) => formatPercent(c, 0));
+  const ceilings = [...new Set(campaign.uptakeCeiling.filter((c) => c > 0))].map((c) => print.percent(c, 0));
   const uptake = ceilings.length === 0 ? 'no uptake in any band' : `uptake at most ${ceilings.join(' or ')} of a band (bands with 0% are not offered doses)`;
   const admission = campaign.efficacyAgainstAdmission ?? campaign.efficacyAgainstDeath;
   const protection = campaign.protection === 'leaky' ? 'leaky (each vaccinated person\'s risk cut)' : 'all-or-nothing (that share fully protected)';
   return (
     `${campaign.name}: ${supply}. Priority: ${priority}; ${uptake}. ` +
-    `Efficacy against infection ${formatPercent(campaign.efficacyAgainstInfection, 0)}, against hospital admission ${formatPercent(admission, 0)}, ` +
-    `against death ${formatPercent(campaign.efficacyAgainstDeath, 0)}, ${protection}, protection after ${campaign.delayToProtectionDays} days on average`
+    `Efficacy against infection ${print.percent(campaign.efficacyAgainstInfection, 0)}, against hospital admission ${print.percent(admission, 0)}, ` +
+    `against death ${print.percent(campaign.efficacyAgainstDeath, 0)}, ${protection}, protection after ${campaign.delayToProtectionDays} days on average`
   );
 }
 

@@ -31,10 +31,10 @@ export type Requirement = 'healthcare' | 'campaign' | 'constantMeasures' | 'surg
 
 /**
  * Where an outcome is shown besides CSV and JSON, which carry every outcome:
- * `board` (the app's options board), `table` (the printed options table of the report),
- * `terminal` (the CLI's table and Markdown).
+ * `board` (the app's options board), `table` (the printed options table: the report's, and the
+ * CLI's table and Markdown).
  */
-export type Surface = 'board' | 'table' | 'terminal';
+export type Surface = 'board' | 'table';
 
 export interface Outcome extends ValueFormat {
   /** The JSON key of `mixwise run --format json` (camelCase); also the board's and report's row key. */
@@ -125,7 +125,7 @@ export const OUTCOMES: readonly Outcome[] = [
     kind: 'ratio',
     lowerIsBetter: true,
     requires: [],
-    shownOn: ['board', 'table', 'terminal'],
+    shownOn: ['board', 'table'],
     read: (o) => o.rStart,
   },
   {
@@ -138,7 +138,7 @@ export const OUTCOMES: readonly Outcome[] = [
     kind: 'ratePerDay',
     lowerIsBetter: true,
     requires: [],
-    shownOn: ['board', 'table', 'terminal'],
+    shownOn: ['board', 'table'],
     read: (o) => o.growthRatePerDay,
     detail: (o) => screen.doublingOrHalving(o.doublingTimeDays, o.halvingTimeDays),
   },
@@ -152,7 +152,7 @@ export const OUTCOMES: readonly Outcome[] = [
     kind: 'days',
     lowerIsBetter: null,
     requires: [],
-    shownOn: ['table', 'terminal'],
+    shownOn: ['table'],
     read: (o) => o.doublingTimeDays,
     text: (o, f) => f.doublingOrHalving(o.doublingTimeDays, o.halvingTimeDays),
   },
@@ -180,7 +180,7 @@ export const OUTCOMES: readonly Outcome[] = [
     kind: 'day',
     lowerIsBetter: null,
     requires: [],
-    shownOn: ['board', 'table', 'terminal'],
+    shownOn: ['board', 'table'],
     read: (o) => o.peakDay,
   },
   {
@@ -193,7 +193,7 @@ export const OUTCOMES: readonly Outcome[] = [
     kind: 'fraction',
     lowerIsBetter: true,
     requires: [],
-    shownOn: ['board', 'table', 'terminal'],
+    shownOn: ['board', 'table'],
     read: (o) => o.peakPrevalence,
     detail: (o) => `${screen.persons(o.peakInfectedPersons)} persons`,
   },
@@ -222,7 +222,7 @@ export const OUTCOMES: readonly Outcome[] = [
     unit: 'persons',
     lowerIsBetter: true,
     requires: [],
-    shownOn: ['board', 'table', 'terminal'],
+    shownOn: ['board', 'table'],
     read: (o) => o.infections,
   },
   {
@@ -235,7 +235,7 @@ export const OUTCOMES: readonly Outcome[] = [
     kind: 'fraction',
     lowerIsBetter: true,
     requires: [],
-    shownOn: ['board', 'table', 'terminal'],
+    shownOn: ['board', 'table'],
     read: (o) => o.attackRate,
   },
   {
@@ -249,7 +249,7 @@ export const OUTCOMES: readonly Outcome[] = [
     unit: 'persons',
     lowerIsBetter: true,
     requires: [],
-    shownOn: ['board', 'table', 'terminal'],
+    shownOn: ['board', 'table'],
     read: (o) => o.deaths,
   },
   {
@@ -263,7 +263,7 @@ export const OUTCOMES: readonly Outcome[] = [
     unit: 'years',
     lowerIsBetter: true,
     requires: [],
-    shownOn: ['board', 'table', 'terminal'],
+    shownOn: ['board', 'table'],
     read: (o) => o.yearsOfLifeLost,
   },
   {
@@ -531,7 +531,7 @@ function holds(requirement: Requirement, o: OptionResults): boolean {
 }
 
 /** Whether an outcome applies to an option (every requirement holds). */
-export function appliesTo(entry: Outcome, o: OptionResults): boolean {
+export function appliesTo(entry: { requires: readonly Requirement[] }, o: OptionResults): boolean {
   return entry.requires.every((r) => holds(r, o));
 }
 
@@ -545,14 +545,19 @@ export function isReference(o: OptionResults, results: ScenarioResults): boolean
   return results.options[results.referenceIndex] === o;
 }
 
+/** A comparison outcome in the reference option's own column (shown as "reference"). */
+export function isReferenceCell(entry: Outcome, o: OptionResults, results: ScenarioResults): boolean {
+  return entry.comparison === true && appliesTo(entry, o) && isReference(o, results);
+}
+
 /**
- * The text of one cell: "reference" for a comparison in the reference's own column, "—" (screen)
- * or "n/a" (print) where the outcome does not apply, else the value in the style (with its unit
+ * The text of one cell: "—" (screen) or "n/a" (print) where the outcome does not apply,
+ * "reference" for a comparison in the reference's own column, else the value in the style (with its unit
  * on screen).
  */
 export function outcomeText(entry: Outcome, o: OptionResults, results: ScenarioResults, style: NumberStyle): string {
-  if (entry.comparison === true && isReference(o, results)) return REFERENCE_CELL;
   if (!appliesTo(entry, o)) return NOT_APPLICABLE[style];
+  if (isReferenceCell(entry, o, results)) return REFERENCE_CELL;
   if (entry.text !== undefined) return entry.text(o, numberFormatter(style));
   const value = entry.read(o, results);
   if (value === null) return entry.whenNull ?? NOT_APPLICABLE[style];
@@ -577,23 +582,31 @@ export interface BandOutcome extends ValueFormat {
   key: string;
   column: string;
   label: string;
+  requires: readonly Requirement[];
+  /** Zeros where the outcome does not apply, so JSON arrays always have one value per band. */
   read(o: OptionResults, results: ScenarioResults): number[];
-  /** Shown as a by-band table in the CLI's table and Markdown. */
-  terminalTable: boolean;
+  /** Printed as a by-band table in the CLI's table and Markdown. */
+  printTable: boolean;
 }
 
 export const BAND_OUTCOMES: readonly BandOutcome[] = [
-  { key: 'infectionsByBand', column: 'infections', label: 'Infections by age band', kind: 'count', unit: 'persons', terminalTable: false, read: (o) => o.infectionsByBand },
-  { key: 'attackRateByBand', column: 'attack_rate', label: 'Attack rate by age band', kind: 'fraction', terminalTable: true, read: (o) => o.attackRateByBand },
-  { key: 'deathsByBand', column: 'deaths', label: 'Deaths by age band', kind: 'count', unit: 'persons', terminalTable: true, read: (o) => o.deathsByBand },
-  { key: 'yearsOfLifeLostByBand', column: 'years_of_life_lost', label: 'Years of life lost by age band', kind: 'count', unit: 'years', terminalTable: false, read: (o) => o.yearsOfLifeLostByBand },
+  { key: 'infectionsByBand', column: 'infections', label: 'Infections by age band', kind: 'count', unit: 'persons', printTable: false, requires: [], read: (o) => o.infectionsByBand },
+  { key: 'attackRateByBand', column: 'attack_rate', label: 'Attack rate by age band', kind: 'fraction', printTable: true, requires: [], read: (o) => o.attackRateByBand },
+  { key: 'deathsByBand', column: 'deaths', label: 'Deaths by age band', kind: 'count', unit: 'persons', printTable: true, requires: [], read: (o) => o.deathsByBand },
+  { key: 'yearsOfLifeLostByBand', column: 'years_of_life_lost', label: 'Years of life lost by age band', kind: 'count', unit: 'years', printTable: false, requires: [], read: (o) => o.yearsOfLifeLostByBand },
   {
     key: 'dosesByBand',
     column: 'vaccine_doses',
     label: 'Vaccine doses by age band',
     kind: 'count',
     unit: 'doses',
-    terminalTable: false,
+    printTable: false,
+    requires: ['campaign'],
     read: (o, results) => o.vaccination?.dosesByBand ?? results.ageBands.map(() => 0),
   },
 ];
+
+/** One band's value of a by-band outcome as text ("—"/"n/a" where the outcome does not apply to the option). */
+export function formatBandValue(entry: BandOutcome, o: OptionResults, results: ScenarioResults, band: number, style: NumberStyle): string {
+  return appliesTo(entry, o) ? formatValue(entry, entry.read(o, results)[band], style) : NOT_APPLICABLE[style];
+}

@@ -100,16 +100,17 @@ describe('mixwise run, text formats', () => {
 
   it('--format csv has a header and one row per option with the JSON numbers', () => {
     const { stdout } = runCli('run', DEMO, '--format', 'csv');
-    const lines = stdout.trimEnd().split('\r\n');
+    const lines = stdout.trimEnd().split('\r\n').filter((line) => !line.startsWith('#'));
     expect(lines).toHaveLength(1 + 5);
     const header = lines[0].split(',');
-    expect(header.slice(0, 3)).toEqual(['option', 'r_start', 'growth_rate_per_day']);
+    expect(header.slice(0, 4)).toEqual(['option', 'reference', 'r_start', 'growth_rate_per_day']);
     expect(header).toContain('attack_rate 75+');
     const json = JSON.parse(runCli('run', DEMO, '--format', 'json').stdout);
     const row = lines[3].split(',');
     expect(row[0]).toBe('Work contacts halved');
-    expect(Number(row[header.indexOf('attack_rate')])).toBe(json.options[2].attackRate);
-    expect(Number(row[header.indexOf('deaths 75+')])).toBe(json.options[2].deathsByBand[15]);
+    // CSV numbers carry 6 significant digits (stated in its "#" header block).
+    expect(Number(row[header.indexOf('attack_rate')])).toBe(Number(json.options[2].attackRate.toPrecision(6)));
+    expect(Number(row[header.indexOf('deaths 75+')])).toBe(Number(json.options[2].deathsByBand[15].toPrecision(6)));
   });
 
   it('notes contact matrices that are not reciprocal', () => {

@@ -3,7 +3,8 @@ import Papa from 'papaparse';
 import { csvText, exportFileName } from '../../src/renderer/lib/reportDocument.ts';
 import { commandForKey } from '../../src/renderer/lib/shortcuts.ts';
 import { OPTION_COLOURS } from '../../src/renderer/lib/palette.ts';
-import { OPTION_COLOURS as REPORT_COLOURS } from '../../src/report/index.ts';
+import { OPTION_COLOURS as REPORT_COLOURS, scenarioFingerprint } from '../../src/report/index.ts';
+import { APP_VERSION } from '../../src/renderer/lib/appVersion.ts';
 import { runScenario } from '../../src/engine/index.ts';
 import { demoScenario } from '../helpers/demo.ts';
 import { key } from '../helpers/keys.ts';
@@ -23,12 +24,15 @@ describe('exportFileName', () => {
 });
 
 describe('csvText', () => {
-  it('gives the options table and the daily series of the engine results', () => {
-    const results = runScenario(demoScenario());
-    const table = Papa.parse<Record<string, string>>(csvText('table', results), { header: true, skipEmptyLines: true });
+  it('gives the options table and the daily series of the engine results, headed by the fingerprint', async () => {
+    const scenario = demoScenario();
+    const results = runScenario(scenario);
+    const text = await csvText('table', scenario, results);
+    const table = Papa.parse<Record<string, string>>(text, { header: true, skipEmptyLines: true, comments: '#' });
     expect(table.data.map((r) => r.option)).toEqual(results.options.map((o) => o.name));
-    expect(table.data.map((r) => Number(r.r_start))).toEqual(results.options.map((o) => o.rStart));
-    const series = csvText('daily-series', results).split('\r\n', 1)[0];
+    table.data.forEach((r, k) => expect(Math.abs(Number(r.r_start) - results.options[k].rStart)).toBeLessThanOrEqual(5e-6 * results.options[k].rStart));
+    expect(text).toContain(`Scenario fingerprint: ${await scenarioFingerprint(scenario, APP_VERSION)}`);
+    const series = (await csvText('daily-series', scenario, results)).split('\r\n').find((line) => !line.startsWith('#'));
     expect(series).toBe('option,day,band,quantity,value');
   });
 });

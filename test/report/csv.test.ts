@@ -1,46 +1,59 @@
 import Papa from 'papaparse';
 import { describe, expect, it } from 'vitest';
 import { runScenario } from '../../src/engine/run.ts';
-import { dailySeriesCsv, optionsTableCsv } from '../../src/report/csv.ts';
+import { CAUTION } from '../../src/report/cautions.ts';
+import { dailySeriesCsv as dailySeriesCsvOf, optionsTableCsv as optionsTableCsvOf } from '../../src/report/csv.ts';
+import type { ScenarioResults } from '../../src/engine/results.ts';
 import { demo } from './helpers.ts';
 
-/** Parses CSV text into header-keyed rows, every cell as text (numbers are compared after Number()). */
+const SOURCE = { fingerprint: 'f'.repeat(64), appVersion: '9.9.9' };
+const optionsTableCsv = (results: ScenarioResults) => optionsTableCsvOf(results, SOURCE);
+const dailySeriesCsv = (results: ScenarioResults) => dailySeriesCsvOf(results, SOURCE);
+
+/** Parses CSV text into header-keyed rows, every cell as text (numbers are compared after Number()); "#" lines are the header block. */
 function parseCsv(text: string): Record<string, string>[] {
-  const parsed = Papa.parse<Record<string, string>>(text, { header: true, skipEmptyLines: true, dynamicTyping: false });
+  const parsed = Papa.parse<Record<string, string>>(text, { header: true, skipEmptyLines: true, dynamicTyping: false, comments: '#' });
   expect(parsed.errors).toEqual([]);
   return parsed.data;
 }
 
 const num = (cell: string): number | null => (cell === '' ? null : Number(cell));
 
+/** The engine's number at the CSV's stated precision (6 significant digits): within half a unit of the 6th digit. */
+function expectAtStatedPrecision(cell: string | undefined, engine: number | null): void {
+  if (engine === null) return void expect(cell ?? '').toBe('');
+  const shown = Number(cell);
+  expect(Math.abs(shown - engine), `${cell} vs ${engine}`).toBeLessThanOrEqual(5e-6 * Math.abs(engine));
+}
+
 describe('optionsTableCsv', () => {
   const { scenario, results } = demo();
   const rows = parseCsv(optionsTableCsv(results));
 
-  it('reads back to exactly the numbers of a fresh runScenario, one row per option', () => {
+  it('reads back to the numbers of a fresh runScenario at the stated precision, one row per option', () => {
     const fresh = runScenario(scenario);
     expect(rows.map((r) => r.option)).toEqual(fresh.options.map((o) => o.name));
     fresh.options.forEach((o, k) => {
       const r = rows[k];
       expect(r.reference).toBe(String(k === fresh.referenceIndex));
-      expect(num(r.r_start)).toBe(o.rStart);
-      expect(num(r.growth_rate_per_day)).toBe(o.growthRatePerDay);
-      expect(num(r.doubling_time_days)).toBe(o.doublingTimeDays);
-      expect(num(r.halving_time_days)).toBe(o.halvingTimeDays);
+      expectAtStatedPrecision(r.r_start, o.rStart);
+      expectAtStatedPrecision(r.growth_rate_per_day, o.growthRatePerDay);
+      expectAtStatedPrecision(r.doubling_time_days, o.doublingTimeDays);
+      expectAtStatedPrecision(r.halving_time_days, o.halvingTimeDays);
       expect(num(r.peak_day)).toBe(o.peakDay);
-      expect(num(r.peak_prevalence)).toBe(o.peakPrevalence);
-      expect(num(r.infections)).toBe(o.infections);
-      expect(num(r.attack_rate)).toBe(o.attackRate);
-      expect(num(r.deaths)).toBe(o.deaths);
-      expect(num(r.deaths_averted)).toBeCloseTo(fresh.options[fresh.referenceIndex].deaths - o.deaths, 6);
-      expect(num(r.final_size_attack_rate)).toBe(o.finalSize?.attackRate ?? null);
-      expect(num(r.peak_icu_occupancy)).toBe(o.healthcare?.icu.peakOccupancy ?? null);
-      expect(num(r.hospital_admissions)).toBe(o.healthcare?.admissions ?? null);
-      expect(num(r.vaccine_doses)).toBe(o.vaccination?.doses ?? 0);
-      expect(num(r.deaths_averted_per_1000_doses)).toBe(o.comparison?.deathsAvertedPer1000Doses ?? null);
+      expectAtStatedPrecision(r.peak_prevalence, o.peakPrevalence);
+      expectAtStatedPrecision(r.infections, o.infections);
+      expectAtStatedPrecision(r.attack_rate, o.attackRate);
+      expectAtStatedPrecision(r.deaths, o.deaths);
+      expectAtStatedPrecision(r.deaths_averted, fresh.options[fresh.referenceIndex].deaths - o.deaths);
+      expectAtStatedPrecision(r.final_size_attack_rate, o.finalSize?.attackRate ?? null);
+      expectAtStatedPrecision(r.peak_icu_occupancy, o.healthcare?.icu.peakOccupancy ?? null);
+      expectAtStatedPrecision(r.hospital_admissions, o.healthcare?.admissions ?? null);
+      expectAtStatedPrecision(r.vaccine_doses, o.vaccination?.doses ?? null);
+      expectAtStatedPrecision(r.deaths_averted_per_1000_doses, o.comparison?.deathsAvertedPer1000Doses ?? null);
       fresh.ageBands.forEach((band, i) => {
-        expect(num(r[`attack_rate ${band}`])).toBe(o.attackRateByBand[i]);
-        expect(num(r[`deaths ${band}`])).toBe(o.deathsByBand[i]);
+        expectAtStatedPrecision(r[`attack_rate ${band}`], o.attackRateByBand[i]);
+        expectAtStatedPrecision(r[`deaths ${band}`], o.deathsByBand[i]);
       });
     });
   });
@@ -53,6 +66,27 @@ describe('optionsTableCsv', () => {
     expect(back[1].option).toBe('Schools, "short"');
     expect(Object.keys(back[0])).not.toContain('hospital_admissions');
     expect(text.endsWith('\r\n')).toBe(true);
+  });
+
+  it('starts with a "#" header block: what it is, the fingerprint and version, the caution, units and precision', () => {
+    for (const text of [optionsTableCsv(results), dailySeriesCsv(results)]) {
+      const block = text.split('\r\n').filter((line) => line.startsWith('# '));
+      expect(text.startsWith('# Mixwise ')).toBe(true);
+      expect(block.some((line) => line.includes(`Scenario fingerprint: ${SOURCE.fingerprint}`) && line.includes('mixwise 9.9.9'))).toBe(true);
+      expect(block).toContain(`# ${CAUTION}`);
+      expect(block.some((line) => line.includes('6 significant digits'))).toBe(true);
+      expect(block.some((line) => line.startsWith('# Units:') || line.startsWith('# Quantities:'))).toBe(true);
+    }
+  });
+
+  it('writes no number with more than 6 significant digits', () => {
+    const cells = optionsTableCsv(results).split('\r\n').filter((line) => line !== '' && !line.startsWith('#')).slice(1).flatMap((line) => line.split(','));
+    const numbers = cells.filter((c) => c !== '' && !Number.isNaN(Number(c)));
+    expect(numbers.length).toBeGreaterThan(100);
+    for (const c of numbers) {
+      const digits = c.replace(/e.*$/, '').replace(/^-/, '').replace('.', '').replace(/^0+/, '');
+      if (!Number.isInteger(Number(c))) expect(digits.length, c).toBeLessThanOrEqual(6);
+    }
   });
 });
 
@@ -80,17 +114,18 @@ describe('dailySeriesCsv', () => {
       rows.find((r) => r.option === o.name && r.quantity === quantity && r.band === band && Number(r.day) === day);
     const d = 60;
     const i = 7;
-    expect(Number(pick('prevalence', results.ageBands[i], d)?.value)).toBe(s.prevalence[d * s.bands + i]);
-    expect(Number(pick('incidence', results.ageBands[i], d)?.value)).toBe(s.incidence[d * s.bands + i]);
-    expect(Number(pick('susceptible', results.ageBands[i], d)?.value)).toBe(s.susceptible[d * s.bands + i]);
-    expect(Number(pick('deaths', 'all', d)?.value)).toBe(s.deaths[d]);
-    expect(Number(pick('rt', 'all', d)?.value)).toBe(s.rt[d]);
-    expect(Number(pick('icu_occupancy', 'all', d)?.value)).toBe(o.healthcare?.series.icuOccupancy[d]);
+    expectAtStatedPrecision(pick('prevalence', results.ageBands[i], d)?.value, s.prevalence[d * s.bands + i]);
+    expectAtStatedPrecision(pick('incidence', results.ageBands[i], d)?.value, s.incidence[d * s.bands + i]);
+    expectAtStatedPrecision(pick('susceptible', results.ageBands[i], d)?.value, s.susceptible[d * s.bands + i]);
+    expectAtStatedPrecision(pick('deaths', 'all', d)?.value, s.deaths[d]);
+    expectAtStatedPrecision(pick('rt', 'all', d)?.value, s.rt[d]);
+    expectAtStatedPrecision(pick('icu_occupancy', 'all', d)?.value, o.healthcare!.series.icuOccupancy[d]);
     let total = 0;
     for (let b = 0; b < s.bands; b++) total += s.prevalence[d * s.bands + b];
-    expect(Number(pick('prevalence', 'all', d)?.value)).toBeCloseTo(total, 6);
-    // Summed daily incidence (day 0 holds the initial infections) gives the option's infections.
+    expectAtStatedPrecision(pick('prevalence', 'all', d)?.value, total);
+    // Summed daily incidence (day 0 holds the initial infections) gives the option's infections,
+    // within the rounding of each day's value to 6 significant digits.
     const incidenceAll = rows.filter((r) => r.option === o.name && r.quantity === 'incidence' && r.band === 'all').reduce((a, r) => a + Number(r.value), 0);
-    expect(incidenceAll).toBeCloseTo(o.infections, 3);
+    expect(Math.abs(incidenceAll - o.infections)).toBeLessThanOrEqual(5e-6 * o.infections);
   });
 });

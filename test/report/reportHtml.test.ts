@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { runScenario } from '../../src/engine/run.ts';
 import { buildReportHtml, formatReportTime } from '../../src/report/reportHtml.ts';
 import { CAUTION } from '../../src/report/cautions.ts';
-import { formatPercent, formatPersons, formatR } from '../../src/report/numbers.ts';
+import { print } from '../../src/report/numberFormat.ts';
 import { optionsTable } from '../../src/report/optionsTable.ts';
 import type { ReportMeta } from '../../src/report/reportTypes.ts';
 import { demo, manyOptionsScenario } from './helpers.ts';
@@ -52,13 +52,13 @@ describe('buildReportHtml', () => {
     const [cells] = tableCells(html);
     const table = optionsTable(results);
     const row = (key: string) => cells[table.rows.findIndex((r) => r.key === key)];
-    expect(row('rStart')).toEqual(results.options.map((o) => formatR(o.rStart)));
-    expect(row('attackRate')).toEqual(results.options.map((o) => formatPercent(o.attackRate)));
-    expect(row('deaths')).toEqual(results.options.map((o) => formatPersons(o.deaths)));
+    expect(row('rStart')).toEqual(results.options.map((o) => print.r(o.rStart)));
+    expect(row('attackRate')).toEqual(results.options.map((o) => print.percent(o.attackRate)));
+    expect(row('deaths')).toEqual(results.options.map((o) => print.persons(o.deaths)));
     const ref = results.options[results.referenceIndex];
     expect(row('deathsAverted')[results.referenceIndex]).toBe('reference');
-    expect(row('deathsAverted')[3]).toBe(`+${formatPersons(ref.deaths - results.options[3].deaths)}`);
-    expect(row('peakIcuOccupancy')).toEqual(results.options.map((o) => formatPersons(o.healthcare!.icu.peakOccupancy)));
+    expect(row('deathsAverted')[3]).toBe(`+${print.persons(ref.deaths - results.options[3].deaths)}`);
+    expect(row('peakIcuOccupancy')).toEqual(results.options.map((o) => print.persons(o.healthcare!.icu.peakOccupancy)));
   });
 
   it('has hospital rows and the ICU chart only when the scenario has healthcare', () => {
@@ -91,6 +91,6 @@ describe('buildReportHtml', () => {
     expect(portrait.map((t) => t[0].length)).toEqual([5, 5, 2]);
     const landscape = tableCells(buildReportHtml(many, manyResults, meta({ orientation: 'landscape' })));
     expect(landscape.map((t) => t[0].length)).toEqual([8, 4]);
-    expect(landscape[1][0]).toEqual(manyResults.options.slice(8).map((o) => formatR(o.rStart)));
+    expect(landscape[1][0]).toEqual(manyResults.options.slice(8).map((o) => print.r(o.rStart)));
   });
 });

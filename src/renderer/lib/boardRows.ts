@@ -4,7 +4,7 @@
  * and the reference option come from the engine (`comparison`, `referenceIndex`).
  */
 import type { OptionResults, ScenarioResults } from '../../engine/index.ts';
-import { OUTCOMES, outcomeText, outcomesFor, overCapacity, isReference, shadeValue, type Outcome } from '../../report/outcomes.ts';
+import { OUTCOMES, isReferenceCell, outcomeText, outcomesFor, overCapacity, shadeValue, type Outcome } from '../../report/outcomes.ts';
 import { relativeChange } from '../../report/numberFormat.ts';
 import { changeShade } from './palette.ts';
 
@@ -44,7 +44,7 @@ export function boardCell(entry: Outcome, o: OptionResults, results: ScenarioRes
       : changeShade(relativeChange(mine.value, theirs.value), mine.lowerIsBetter);
   return {
     value: entry.read(o, results),
-    reference: entry.comparison === true && isReference(o, results),
+    reference: isReferenceCell(entry, o, results),
     text: outcomeText(entry, o, results, 'screen'),
     detail: entry.detail?.(o, results) ?? '',
     shade,

@@ -40,9 +40,14 @@ export async function buildReport(
 
 export type CsvExport = 'table' | 'daily-series';
 
-/** The CSV text of an export: the options table (one row per option) or the daily series (long format). */
-export function csvText(kind: CsvExport, results: ScenarioResults): string {
-  return kind === 'table' ? optionsTableCsv(results) : dailySeriesCsv(results);
+/**
+ * The CSV text of an export: the options table (one row per option) or the daily series (long
+ * format), headed by the scenario's fingerprint and the caution (results must be the engine's for
+ * exactly this scenario).
+ */
+export async function csvText(kind: CsvExport, scenario: Scenario, results: ScenarioResults): Promise<string> {
+  const source = { fingerprint: await scenarioFingerprint(scenario, APP_VERSION), appVersion: APP_VERSION };
+  return kind === 'table' ? optionsTableCsv(results, source) : dailySeriesCsv(results, source);
 }
 
 /**

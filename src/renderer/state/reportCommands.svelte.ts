@@ -58,7 +58,7 @@ class ReportCommands {
     const inputs = await this.freshInputs();
     if (inputs === null) return;
     const suggestedName = exportFileName(workspace.fileName, kind, 'csv');
-    this.tell(await host.exportCsv({ suggestedName, text: csvText(kind, inputs.results) }));
+    this.tell(await host.exportCsv({ suggestedName, text: await csvText(kind, inputs.scenario, inputs.results) }));
   }
 
   private async execute(command: ReportCommand): Promise<void> {

@@ -1,5 +1,5 @@
 /** Markdown rendering of the printed report (GitHub-style pipe tables). */
-import type { PrintedReport, TextTable } from './table-model.ts';
+import type { PrintedReport, TextTable } from './tableModel.ts';
 
 /** Escapes the characters that would break a Markdown table cell. */
 function cell(text: string): string {

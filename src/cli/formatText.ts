@@ -1,5 +1,5 @@
 /** Plain-text rendering of the printed report: columns padded with spaces, for a terminal. */
-import type { PrintedReport, TextTable } from './table-model.ts';
+import type { PrintedReport, TextTable } from './tableModel.ts';
 
 function renderTable(table: TextTable): string[] {
   const widths = table.header.map((h, c) => Math.max(h.length, ...table.rows.map((row) => row[c].length)));

@@ -1,0 +1,46 @@
+/**
+ * `mixwise run --format json`: the engine's `ScenarioResults` reduced to the numbers of the
+ * catalogue of outcomes (src/report/outcomes.ts). Each option carries its name, every outcome
+ * under its key (null where it does not apply, e.g. hospital outcomes without a `healthcare`
+ * section) and every by-band outcome as an array, one value per age band. Numbers are the
+ * engine's, at full precision. Nothing here computes a model quantity.
+ *
+ * Units: rates per day, times in days, prevalence, attack rates and shares as fractions 0-1,
+ * counts in persons (beds, doses).
+ */
+import type { ScenarioResults } from '../engine/index.ts';
+import { BAND_OUTCOMES, OUTCOMES } from '../report/outcomes.ts';
+import { CAUTION } from './caution.ts';
+import { reciprocityRows, type ReciprocityRow } from './reciprocity-notes.ts';
+
+/** One option: `name`, then one member per outcome key (number or null) and per by-band key (array). */
+export type OptionRow = { name: string } & Record<string, string | number | null | number[]>;
+
+export interface OptionsReport {
+  title: string;
+  ageBands: string[];
+  r0: number;
+  horizonDays: number;
+  referenceOption: string;
+  options: OptionRow[];
+  reciprocity: ReciprocityRow[];
+  caution: string;
+}
+
+export function optionsReport(results: ScenarioResults): OptionsReport {
+  return {
+    title: results.title,
+    ageBands: results.ageBands,
+    r0: results.r0,
+    horizonDays: results.options[0]?.series.days ?? 0,
+    referenceOption: results.options[results.referenceIndex]?.name ?? '',
+    options: results.options.map((o) => {
+      const row: OptionRow = { name: o.name };
+      for (const e of OUTCOMES) row[e.key] = e.read(o, results);
+      for (const b of BAND_OUTCOMES) row[b.key] = b.read(o, results);
+      return row;
+    }),
+    reciprocity: reciprocityRows(results.reciprocity, results.ageBands),
+    caution: CAUTION,
+  };
+}
