@@ -9,13 +9,14 @@ import { mkdirSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { screen } from '../src/report/numberFormat.ts';
+import { r0RoundedToFit } from '../src/renderer/lib/fitFromCounts.ts';
 import { demoScenario, engineRStart } from './engineReference.ts';
 import { ARTIFACTS, openApp, settled } from './helpers.ts';
 
 const CASES = 'resources/example-cases.csv';
 
 /** `npx mixwise fit CASES --scenario demo --format json` with extra arguments. */
-function cliFit(...extra: string[]): { r0: number; growthRatePerDay: number; window: { fromDay: number; toDay: number } } {
+function cliFit(...extra: string[]): { r0: number; r0Interval: [number, number]; growthRatePerDay: number; window: { fromDay: number; toDay: number } } {
   const out = execFileSync('npx', ['mixwise', 'fit', CASES, '--scenario', 'resources/demo-scenario.json', '--format', 'json', ...extra], { encoding: 'utf8' });
   return JSON.parse(out);
 }
@@ -44,9 +45,13 @@ async function typeDay(page: Page, testid: string, day: number) {
 test('the example counts fit to the same R0 as the CLI, for the whole file and a typed window', async ({ page }) => {
   const errors = await openFitPanel(page);
   await expect(page.getByTestId('fit-summary')).toContainText('example-cases.csv: 35 days, 2031-03-03 to 2031-04-06');
-  const whole = cliFit();
-  expect(await shownR0(page)).toBeCloseTo(whole.r0, 9);
+  // The example counts are overdispersed, so the panel fits them negative-binomially (see below).
+  const whole = cliFit('--family', 'negative-binomial');
+  await expect.poll(() => shownR0(page), { timeout: 20_000 }).toBeCloseTo(whole.r0, 9);
   await expect(page.getByTestId('fit-r0')).toHaveText(screen.r(whole.r0));
+  await page.getByTestId('fit-family').selectOption('poisson');
+  await fitted(page);
+  await expect.poll(() => shownR0(page), { timeout: 20_000 }).toBeCloseTo(cliFit().r0, 9);
   await expect(page.getByTestId('fit-dispersion')).toContainText('prefer the negative-binomial model');
 
   await typeDay(page, 'fit-from', 7);
@@ -88,7 +93,7 @@ test('dragging on the chart picks the window, and the fit matches the CLI for it
   const to = Number(await page.getByTestId('fit-to').inputValue());
   expect(to).toBeLessThan(31);
   expect(to - from).toBeGreaterThan(8);
-  const cli = cliFit('--from', String(from), '--to', String(to));
+  const cli = cliFit('--from', String(from), '--to', String(to), '--family', 'negative-binomial');
   expect(cli.window).toMatchObject({ fromDay: from, toDay: to });
   await expect.poll(() => shownR0(page), { timeout: 20_000 }).toBeCloseTo(cli.r0, 9);
 });
@@ -101,7 +106,7 @@ test('measures in force divide out as in `mixwise fit --measures-option`; Use th
   await typeDay(page, 'fit-to', 24);
   await page.getByTestId('fit-measures').selectOption(measured.name);
   await fitted(page);
-  const cli = cliFit('--to', '24', '--measures-option', measured.name);
+  const cli = cliFit('--to', '24', '--measures-option', measured.name, '--family', 'negative-binomial');
   await expect.poll(() => shownR0(page), { timeout: 20_000 }).toBeCloseTo(cli.r0, 9);
   await expect(page.getByTestId('fit-measures-note')).toContainText(`measures of option “${measured.name}”`);
   await page.screenshot({ path: `${ARTIFACTS}/fit-panel.png`, fullPage: true });
@@ -115,13 +120,14 @@ test('measures in force divide out as in `mixwise fit --measures-option`; Use th
   await expect(page.getByTestId('undo')).toBeDisabled();
   await page.getByTestId('fit-apply').click();
   await settled(page);
-  await expect(page.getByTestId('r0-input')).toHaveValue(String(Number(cli.r0.toPrecision(10))));
+  const written = r0RoundedToFit(cli.r0, cli.r0Interval);
+  await expect(page.getByTestId('r0-input')).toHaveValue(String(written));
   await expect(page.getByTestId('r0-fit-source')).toContainText('Fitted to example-cases.csv, 2031-03-03 to 2031-03-27');
   await expect(page.getByTestId('r0-fit-source')).toContainText(`measures of “${measured.name}” divided out`);
   await page.getByTestId('r0-fit-source').screenshot({ path: `${ARTIFACTS}/fit-r0-source.png` });
 
   await page.getByRole('tab', { name: 'Options board' }).click();
-  const expected = engineRStart({ ...scenario, disease: { ...scenario.disease, transmission: { kind: 'r0', r0: cli.r0 } } }, plain);
+  const expected = engineRStart({ ...scenario, disease: { ...scenario.disease, transmission: { kind: 'r0', r0: written } } }, plain);
   await expect.poll(async () => Number(await cell.getAttribute('data-value'))).toBeCloseTo(expected, 6);
   expect(expected).not.toBeCloseTo(before, 2);
 
@@ -148,4 +154,36 @@ test('a bad counts file shows a message naming the line and changes nothing', as
   await expect(page.getByTestId('fit-summary')).toContainText('example-cases.csv');
   expect(await shownR0(page)).toBe(r0Before);
   await expect(page.getByTestId('undo')).toBeDisabled();
+});
+
+test('overdispersed counts switch to the negative-binomial model and say so; the chosen file stays named; Use this R0 confirms beside the button with R0 rounded to the fit', async ({ page }) => {
+  await openApp(page);
+  await page.getByRole('tab', { name: 'Assumptions' }).click();
+  await page.getByTestId('fit-file').setInputFiles(CASES);
+  await fitted(page);
+  // The example counts vary more than Poisson allows: the panel moves to negative binomial and says why.
+  await expect(page.getByTestId('fit-family')).toHaveValue('negativeBinomial');
+  await expect(page.getByTestId('fit-family-note')).toContainText('negative-binomial');
+  await fitted(page);
+  const whole = cliFit('--family', 'negative-binomial');
+  await expect.poll(() => shownR0(page), { timeout: 20_000 }).toBeCloseTo(whole.r0, 9);
+  // The picker names the loaded file; the browser's own "No file chosen" box is not shown.
+  await expect(page.getByTestId('fit-file-name')).toHaveText('example-cases.csv');
+  await expect(page.getByTestId('fit-file')).toBeHidden();
+  // Choosing Poisson by hand sticks.
+  await page.getByTestId('fit-family').selectOption('poisson');
+  await fitted(page);
+  await expect(page.getByTestId('fit-family')).toHaveValue('poisson');
+  await page.getByTestId('fit-family').selectOption('negativeBinomial');
+  await fitted(page);
+
+  await page.getByTestId('fit-apply').click();
+  await settled(page);
+  await expect(page.getByTestId('fit-applied')).toContainText('R0 set to');
+  const written = await page.getByTestId('r0-input').inputValue();
+  const decimals = written.split('.')[1]?.length ?? 0;
+  expect(decimals).toBeGreaterThanOrEqual(1);
+  expect(decimals).toBeLessThanOrEqual(2);
+  expect(Number(written)).toBeCloseTo(whole.r0, 1);
+  await page.getByTestId('fit-panel').screenshot({ path: `${ARTIFACTS}/fit-panel-applied.png` });
 });

@@ -154,7 +154,7 @@ test('the priority order can be rearranged from the keyboard and by drag', async
   const death = page.getByTestId('efficacy-death');
   await death.fill('10');
   await death.press('Enter');
-  await expect(page.getByTestId('vaccination-panel').getByRole('alert')).toContainText('efficacyAgainstDeath must be at least efficacyAgainstInfection');
+  await expect(page.getByTestId('vaccination-panel').getByRole('alert')).toContainText('Efficacy against death must be at least efficacy against infection');
   await expect(page.getByTestId('priority-bands-0')).toHaveText(initial[last]);
 });
 

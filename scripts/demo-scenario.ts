@@ -182,7 +182,7 @@ export function buildDemoScenario(): ScenarioInput {
       { name: 'No measures', description: 'Contacts as usual throughout.', phases: [] },
       {
         name: 'Schools closed 8 weeks',
-        description: 'Schools shut from day 21 to day 77; children at home raise home contacts by a fifth.',
+        description: 'Schools shut on days 21 to 76 (eight weeks); children at home raise home contacts by a fifth.',
         phases: [{ fromDay: 21, toDay: 77, settingMultipliers: { school: 0, home: 1.2 } }],
       },
       {

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { relativeChange, screen } from '../../src/report/numberFormat.ts';
-import { changeShade, freeColourSlot, optionColour, optionDash, OPTION_COLOURS } from '../../src/renderer/lib/palette.ts';
+import { changeShade, freeColourSlot, optionColour, optionLine, OPTION_COLOURS } from '../../src/renderer/lib/palette.ts';
 import { commandForKey, keepsNativeUndo } from '../../src/renderer/lib/shortcuts.ts';
 import { totalOverBands } from '../../src/engine/bandTotals.ts';
 import { key } from '../helpers/keys.ts';
@@ -22,10 +22,17 @@ describe('format', () => {
 });
 
 describe('palette', () => {
-  it('gives each slot a colour, then dashes once colours run out', () => {
+  it('gives each slot a colour, and the report\'s dash and marker so lines differ without colour', () => {
     expect(new Set(OPTION_COLOURS).size).toBe(OPTION_COLOURS.length);
     expect(optionColour(0)).toBe(optionColour(OPTION_COLOURS.length));
-    expect(optionDash(0)).not.toEqual(optionDash(OPTION_COLOURS.length));
+    expect(optionLine(1).dash).toEqual([7, 4]);
+    expect(optionLine(0).dash).toEqual([]);
+    const firstFour = [0, 1, 2, 3].map((k) => `${optionLine(k).dash.join(' ')}/${optionLine(k).pointStyle}/${optionLine(k).rotation}`);
+    expect(new Set(firstFour).size).toBe(4);
+    expect(optionLine(5)).toMatchObject({ pointStyle: 'triangle', rotation: 180 });
+    // Same colour (slot 7 wraps to slot 0's colour) but a different dash or marker.
+    expect(optionLine(7).colour).toBe(optionLine(0).colour);
+    expect(`${optionLine(7).dash}/${optionLine(7).pointStyle}`).not.toBe(`${optionLine(0).dash}/${optionLine(0).pointStyle}`);
     expect(freeColourSlot([0, 1, 3])).toBe(2);
   });
 

@@ -36,7 +36,7 @@ export const phaseShading: Plugin = {
       ctx.fillStyle = span.colour;
       ctx.fillRect(left, top, right - left, bottom - top);
       ctx.fillStyle = '#333';
-      ctx.font = '11px system-ui, sans-serif';
+      ctx.font = '12px system-ui, sans-serif';
       ctx.fillText(span.label, left + 4, top + 12);
     }
     ctx.restore();

@@ -61,10 +61,27 @@ export function recordOf(answer: FitAnswer, sourceFile: string, startDate: strin
   return fitRecordOf({ sourceFile, startDate, fit: answer.fit, r0: answer.r0, ...(answer.measures === undefined ? {} : { measures: answer.measures }) });
 }
 
-/** A copy of the scenario whose transmission is fixed by the fitted R0, with the record kept beside it. */
+/**
+ * R0 rounded to the digits its 95% interval supports: one decimal place beyond the first one the
+ * interval's half-width reaches (half-width 0.17 → 2 decimals, 0.02 → 3), at least 1 and at most 3
+ * decimals; 2 decimals when the interval is open. Rounding to the uncertainty plus one digit is
+ * common practice for reported estimates.
+ */
+export function r0RoundedToFit(r0: number, interval: readonly [number | null, number | null]): number {
+  const [lo, hi] = interval;
+  const half = lo !== null && hi !== null && Number.isFinite(lo) && Number.isFinite(hi) ? (hi - lo) / 2 : Number.NaN;
+  const decimals = half > 0 ? Math.min(3, Math.max(1, 1 - Math.floor(Math.log10(half)))) : 2;
+  return Number(r0.toFixed(decimals));
+}
+
+/**
+ * A copy of the scenario whose transmission is fixed by the fitted R0 (rounded to what the fit
+ * supports), with the record, carrying that same R0, kept beside it.
+ */
 export function scenarioWithFittedR0(scenario: Scenario, record: FitRecord): Scenario {
+  const r0 = r0RoundedToFit(record.r0, record.r0Interval);
   const next = structuredClone(scenario);
-  next.disease.transmission = { kind: 'r0', r0: record.r0 };
-  next.disease.fitRecord = record;
+  next.disease.transmission = { kind: 'r0', r0 };
+  next.disease.fitRecord = { ...record, r0 };
   return next;
 }

@@ -5,19 +5,42 @@
  * One list for the app and the printed report (src/report/palette.ts).
  * Each option holds a colour slot for life, so it keeps its colour across every view.
  */
-import { OPTION_COLOURS } from '../../report/palette.ts';
+import { OPTION_COLOURS, optionStyle, type Marker } from '../../report/palette.ts';
 
 export { OPTION_COLOURS };
-
-/** Dash patterns used once the colours run out (slot >= 7), so lines stay distinguishable. */
-const DASHES: number[][] = [[], [6, 4], [2, 3], [10, 3, 2, 3]];
 
 export function optionColour(slot: number): string {
   return OPTION_COLOURS[slot % OPTION_COLOURS.length];
 }
 
-export function optionDash(slot: number): number[] {
-  return DASHES[Math.floor(slot / OPTION_COLOURS.length) % DASHES.length];
+/** chart.js point style (and rotation in degrees) for each of the report's marker shapes. */
+const POINT_STYLES: Record<Marker, { pointStyle: 'circle' | 'rect' | 'triangle' | 'rectRot' | 'crossRot'; rotation: number }> = {
+  circle: { pointStyle: 'circle', rotation: 0 },
+  square: { pointStyle: 'rect', rotation: 0 },
+  triangle: { pointStyle: 'triangle', rotation: 0 },
+  diamond: { pointStyle: 'rectRot', rotation: 0 },
+  cross: { pointStyle: 'crossRot', rotation: 0 },
+  triangleDown: { pointStyle: 'triangle', rotation: 180 },
+};
+
+export interface OptionLine {
+  colour: string;
+  /** Canvas line dash, e.g. [7, 4] ([] = solid). */
+  dash: number[];
+  pointStyle: 'circle' | 'rect' | 'triangle' | 'rectRot' | 'crossRot';
+  /** Marker rotation in degrees (180 turns the triangle down). */
+  rotation: number;
+}
+
+/**
+ * How the option in colour slot `slot` is drawn in the app's charts: the printed report's colour,
+ * dash pattern and marker (src/report/palette.ts), so options stay apart in grey and for
+ * colour-blind readers, and the app and the report agree.
+ */
+export function optionLine(slot: number): OptionLine {
+  const style = optionStyle(slot);
+  const dash = style.dash === '' ? [] : style.dash.split(' ').map(Number);
+  return { colour: style.colour, dash, ...POINT_STYLES[style.marker] };
 }
 
 /** The lowest colour slot not yet used (so a new option never takes a colour already on screen). */

@@ -3,7 +3,7 @@
  * window and the fit survive switching views. Fitting runs in a worker (fitClient.ts); the
  * newest request's answer is the one kept.
  */
-import { dailyTotals, type CaseSeries, type CountModel, type DailyCounts } from '../../engine/fitting/index.ts';
+import { dailyTotals, OVERDISPERSION_THRESHOLD, type CaseSeries, type CountModel, type DailyCounts } from '../../engine/fitting/index.ts';
 import type { Scenario } from '../../engine/scenario.ts';
 import { FitClient } from '../lib/fitClient.ts';
 import type { FitOutcome } from '../lib/fitFromCounts.ts';
@@ -15,6 +15,12 @@ class FitPanelState {
   fromDay = $state(0);
   toDay = $state(0);
   family = $state<CountModel>('poisson');
+  /** True once the analyst picks the count model; until then an overdispersed Poisson fit moves to negative binomial. */
+  familyChosen = $state(false);
+  /** Why the count model was changed for the analyst, or null. */
+  familyNote = $state<string | null>(null);
+  /** "R0 set to ..." after Use this R0, shown beside the button; cleared by a new file. */
+  applied = $state<string | null>(null);
   dayOfWeek = $state(false);
   logScale = $state(true);
   /** Option whose measures were in force during the window; '' for none. */
@@ -33,9 +39,26 @@ class FitPanelState {
     this.counts = counts;
     this.fileName = fileName;
     this.outcome = null;
+    this.family = 'poisson';
+    this.familyChosen = false;
+    this.familyNote = null;
+    this.applied = null;
     this.lastKey = '';
     this.fromDay = Math.min(...counts.day);
     this.toDay = Math.max(...counts.day);
+  }
+
+  /**
+   * Counts that vary more than Poisson allows (Pearson ratio above the threshold) get the
+   * negative-binomial model, whose interval accounts for it, unless the analyst chose the model.
+   */
+  private preferNegativeBinomial(): void {
+    const outcome = this.outcome;
+    if (this.familyChosen || this.family !== 'poisson' || outcome === null || !outcome.ok) return;
+    const ratio = outcome.value.fit.dispersion.pearsonRatio;
+    if (ratio === null || !(ratio > OVERDISPERSION_THRESHOLD)) return;
+    this.family = 'negativeBinomial';
+    this.familyNote = `The counts vary more than Poisson allows (dispersion ${ratio.toFixed(2)}, above ${OVERDISPERSION_THRESHOLD}), so the negative-binomial model is used; its interval is wider. Pick Poisson to compare.`;
   }
 
   /**
@@ -52,10 +75,18 @@ class FitPanelState {
     this.client ??= new FitClient((outcome) => {
       this.outcome = outcome;
       this.busy = false;
+      this.preferNegativeBinomial();
     });
     this.busy = true;
     this.client.fit({ counts, fromDay: this.fromDay, toDay: this.toDay, family: this.family, dayOfWeek: this.dayOfWeek, measuresOption: measures, scenario });
   }
+}
+
+/** The count model picked by the analyst (no automatic change after this). */
+export function chooseFamily(state: FitPanelState, family: CountModel): void {
+  state.family = family;
+  state.familyChosen = true;
+  state.familyNote = null;
 }
 
 export const fitPanel = new FitPanelState();

@@ -8,6 +8,7 @@ import type { Scenario } from '../../engine/scenario.ts';
 import type { ScenarioResults } from '../../engine/results.ts';
 import { validateScenario, parseScenarioText, formatProblem } from '../../engine/validation.ts';
 import { EngineClient } from '../lib/engineClient.ts';
+import { problemInWords } from '../lib/problemWords.ts';
 import type { OrdersInfo } from '../lib/engineProtocol.ts';
 import { pushHistory, redoHistory, startHistory, undoHistory, type HistoryState } from '../lib/history.ts';
 import { documentFor, replaceScenario, type WorkingDocument } from '../lib/scenarioEdits.ts';
@@ -130,7 +131,8 @@ class Workspace {
   commit(next: WorkingDocument, mergeKey: string | null = null): string[] {
     if (next === this.history.present) return [];
     const check = validateScenario(next.scenario);
-    if (!check.ok) return check.problems.map(formatProblem);
+    // Problems of an edit are shown next to its field: in the app's words, not the file's paths.
+    if (!check.ok) return check.problems.map((p) => problemInWords(p, next.scenario));
     this.history = pushHistory(this.history, { ...next, scenario: check.scenario }, mergeKey, performance.now());
     this.afterChange();
     return [];
