@@ -234,3 +234,25 @@ describe('property: any valid order and supply keeps every compartment non-negat
     );
   });
 });
+
+describe('a vaccine with no effect', () => {
+  // Efficacy 0 against infection, death and admission: whatever the doses and the protection
+  // type, the epidemic must be the one without vaccination, through every vaccination
+  // compartment (waiting, protected, immune) of the model.
+  it.each(['leaky', 'allOrNothing'] as const)('%s: the same infections, deaths and admissions by band as no vaccination', (protection) => {
+    const s = demoScenario();
+    const c = s.vaccinationCampaigns[0];
+    const noEffect = valid({
+      ...s,
+      vaccinationCampaigns: [{ ...c, efficacyAgainstInfection: 0, efficacyAgainstDeath: 0, efficacyAgainstAdmission: 0, protection }],
+      referenceOption: undefined,
+      options: [{ name: 'none' }, { name: 'vaccinated', vaccinationCampaign: c.name }],
+    } as ScenarioInput);
+    const [none, vaccinated] = runScenario(noEffect).options;
+    expect(vaccinated.vaccination!.doses).toBeGreaterThan(1e5);
+    none.infectionsByBand.forEach((x, i) => expect(Math.abs(vaccinated.infectionsByBand[i] - x)).toBeLessThan(1e-5 * s.populationPersons[i]));
+    expect(Math.abs(vaccinated.deaths - none.deaths)).toBeLessThan(1e-5 * none.deaths);
+    expect(Math.abs(vaccinated.healthcare!.admissions - none.healthcare!.admissions)).toBeLessThan(1e-5 * none.healthcare!.admissions);
+    expect(Math.abs(vaccinated.peakDay - none.peakDay)).toBeLessThanOrEqual(1);
+  });
+});
