@@ -122,6 +122,36 @@ describe('mixwise run, text formats', () => {
   });
 });
 
+describe('mixwise run on a published worked example', () => {
+  // Independent anchor for the whole path file -> engine -> JSON: the two-band example of
+  // shared/CHECKS.md items 5-6. Next-generation matrix K = [[1.8, 0.3], [0.9, 1.2]], R0 = 2.1
+  // (Diekmann, Heesterbeek & Roberts 2010, J R Soc Interface 7:873); multi-group final size
+  // z = (0.886884, 0.647720), overall 0.707511 (Ma & Earn 2006, Bull Math Biol 68:679; Andreasen
+  // 2011, Bull Math Biol 73:2305) [derived].
+  it('prints R0 = 2.1 and the final-size attack rates', () => {
+    const scenario = {
+      format: 'mixwise-scenario', version: 1, title: 'two bands',
+      ageBands: [{ label: 'child', lowerAgeYears: 0 }, { label: 'adult', lowerAgeYears: 18 }],
+      populationPersons: [250, 750],
+      settings: [{ name: 'all', contactsPerDay: [[18, 9], [3, 12]] }],
+      disease: { transmission: { kind: 'r0', r0: 2.1 }, latentPeriodDays: 3, infectiousPeriodDays: 5 },
+      severity: { infectionFatalityRatio: [0.001, 0.01], source: 'test value' },
+      initialState: { infectedPersons: [1e-6, 3e-6] },
+      horizonDays: 2000,
+      options: [{ name: 'none' }],
+    };
+    const out = runCli('run', writeTemp('two-band.json', scenario), '--format', 'json');
+    expect(out.code).toBe(0);
+    const report = JSON.parse(out.stdout);
+    expect(report.r0).toBeCloseTo(2.1, 12);
+    expect(report.options[0].attackRateByBand[0]).toBeCloseTo(0.886884, 5);
+    expect(report.options[0].attackRateByBand[1]).toBeCloseTo(0.64772, 5);
+    expect(report.options[0].attackRate).toBeCloseTo(0.707511, 5);
+    // Deaths = sum of IFR x infections: 0.001 x 250 z_1 + 0.01 x 750 z_2.
+    expect(report.options[0].deaths).toBeCloseTo(0.001 * 250 * 0.886884 + 0.01 * 750 * 0.64772, 3);
+  });
+});
+
 describe('mixwise run --out', () => {
   it('writes the file, prints nothing and leaves no temporary file', () => {
     const dir = tempDir();
