@@ -152,4 +152,18 @@ describe('the engine against the model written out independently, solved by odex
     const last = reference.get(s.horizonDays)!;
     o.infectionsByBand.forEach((x, i) => expect(Math.abs(x - s.initialState.infectedPersons[i] - model.at(last, i).cumulative)).toBeLessThan(1e-5 * s.populationPersons[i]));
   });
+
+  it('agrees when the seeds start infectious rather than latent', () => {
+    const seededInfectious = valid({ ...s, horizonDays: 60, options: [s.options[0]], initialState: { ...s.initialState, infectedCompartment: 'infectious' } });
+    const reference = referenceModel(seededInfectious).solve(seededInfectious.options[0], 60);
+    const o = runScenario(seededInfectious).options[0];
+    const n = o.series.bands;
+    for (const day of [2, 10, 30, 60]) {
+      for (let i = 0; i < n; i++) {
+        const ref = model.at(reference.get(day)!, i);
+        expect(Math.abs(o.series.susceptible[day * n + i] - ref.susceptible)).toBeLessThan(1e-5 * s.populationPersons[i]);
+        expect(Math.abs(o.series.prevalence[day * n + i] - ref.infected)).toBeLessThan(1e-5 * s.populationPersons[i]);
+      }
+    }
+  });
 });
