@@ -36,6 +36,24 @@ describe('final size, one group', () => {
     expect(o.finalSize?.attackRate).toBeCloseTo(z, 6);
   });
 
+  it('with prior immunity p: z = (1 - p)(1 - exp(-R0 z)), R0 = 2.5, p = 0.3 -> z = 0.498889', () => {
+    // The same relation with the initial susceptible fraction s0 = 1 - p (Ma & Earn 2006, Bull
+    // Math Biol 68:679, one group); z counts infections over the whole population.
+    let lo = 1e-9;
+    let hi = 0.7;
+    for (let k = 0; k < 200; k++) {
+      const mid = (lo + hi) / 2;
+      if (mid - 0.7 * (1 - Math.exp(-2.5 * mid)) < 0) lo = mid;
+      else hi = mid;
+    }
+    const z = (lo + hi) / 2;
+    expect(z).toBeCloseTo(0.498889, 6); // [derived]
+    const base = oneBand({ r0: 2.5, seed: 1e-4, horizon: 1500 });
+    const o = runScenario(valid({ ...base, initialState: { ...base.initialState, priorImmunityFraction: [0.3] } })).options[0];
+    expect(o.attackRate).toBeCloseTo(z, 5);
+    expect(o.finalSize?.attackRate).toBeCloseTo(z, 9);
+  });
+
   it('holds with Erlang stages, which change timing but not the final size', () => {
     const o = runScenario(oneBand({ r0: 2, seed: 1e-4, latentStages: 3, infectiousStages: 4, horizon: 1500 })).options[0];
     expect(o.attackRate).toBeCloseTo(oneGroupFinalSize(2), 5);
