@@ -21,7 +21,8 @@ const S = 'src/engine/seir.ts';
 const D = 'src/engine/dopri5.ts';
 const I = 'src/engine/integrateOption.ts';
 const N = 'src/engine/ngm.ts';
-const P = 'src/engine/prepare.ts';
+const P = 'src/engine/initialState.ts';
+const CAL = 'src/engine/calibration.ts';
 const SIM = 'src/engine/simulate.ts';
 const F = 'src/engine/finalSize.ts';
 const G = 'src/engine/growth.ts';
@@ -81,10 +82,10 @@ export const MUTANTS: Mutant[] = [
   { id: 'ngm-power-rowscale', file: N, find: 'if (rowScale !== null) acc *= rowScale[i];', replace: 'if (rowScale !== null) acc *= rowScale[0];', what: 'R(t) scales every row by band 0 susceptibles' },
   { id: 'ngm-bracket-high', file: N, find: 'return 0.5 * (low + high);', replace: 'return high;', what: 'upper bracket instead of the midpoint' },
   // Calibration and initial state
-  { id: 'prep-no-immunity', file: P, find: 'const immune = n * (init.priorImmunityFraction?.[i] ?? 0);', replace: 'const immune = 0;', what: 'prior immunity ignored' },
+  { id: 'prep-no-immunity', file: P, find: 'return s.populationPersons[i] * (s.initialState.priorImmunityFraction?.[i] ?? 0);', replace: 'return 0;', what: 'prior immunity ignored' },
   { id: 'prep-seeds-kept', file: P, find: 'Math.max(0, n - immune - seed)', replace: 'Math.max(0, n - immune)', what: 'seeds not taken from the susceptibles' },
-  { id: 'prep-doubling-full', file: P, find: 'beta = rTarget / reproductionPerUnitBeta(s, bp, initialSusceptible);', replace: 'beta = rTarget / perBetaFull;', what: 'doubling time calibrated at full susceptibility' },
-  { id: 'prep-seed-latent', file: P, find: "(init.infectedCompartment === 'latent' ? L.latent : L.infectious)", replace: 'L.latent', what: 'seeds always latent' },
+  { id: 'prep-doubling-full', file: CAL, find: 'beta = rTarget / reproductionAtUnitTransmission(s, bands, null, initialSusceptibleOf(s));', replace: 'beta = rTarget / perBetaFull;', what: 'doubling time calibrated at full susceptibility' },
+  { id: 'prep-seed-latent', file: P, find: "(init.infectedCompartment === 'latent' ? layout.latent : layout.infectious)", replace: 'layout.latent', what: 'seeds always latent' },
   // Outcomes
   { id: 'sim-no-seed-incidence', file: SIM, find: 'for (let i = 0; i < n; i++) incidence[i] += p.seeds[i];', replace: '', what: 'seeds missing from day-0 incidence' },
   { id: 'sim-deaths-no-protection', file: SIM, find: '(x - (1 - deathFactor) * protectedByBand[i]) * p.infectionFatalityRatio[i]', replace: 'x * p.infectionFatalityRatio[i]', what: 'vaccine protection against death ignored in deaths by band' },

@@ -3,9 +3,7 @@
  * Each writes through `Output` and returns its exit code; file and usage faults are thrown
  * as `CliError` and reported by main.
  */
-import { reciprocityBySetting, runScenario } from '../engine/index.ts';
-import type { Scenario } from '../engine/scenario.ts';
-import { formatProblem, parseScenarioText, type Problem } from '../engine/validation.ts';
+import { formatProblem, parseScenarioText, reciprocityBySetting, runScenario, type Calibration, type Scenario, type ValidationResult } from '../engine/index.ts';
 import type { OutputFormat } from './args.ts';
 import { EXIT_CODES, type ExitCode } from './errors.ts';
 import { readTextFile, writeFileAtomically } from './files.ts';
@@ -18,24 +16,25 @@ export interface Output {
   err(text: string): void;
 }
 
-type Loaded = { ok: true; scenario: Scenario } | { ok: false; problems: Problem[] };
-
-function loadScenario(file: string): Loaded {
+function loadScenario(file: string): ValidationResult {
   return parseScenarioText(readTextFile(file));
 }
 
-/** The valid scenario in `file`, or null after writing each of its problems as a `mixwise: FILE: ...` line on stderr. */
-export function loadScenarioOrComplain(io: Output, file: string): Scenario | null {
+/**
+ * The valid scenario in `file` with its calibration, or null after writing each of its problems
+ * as a `mixwise: FILE: ...` line on stderr.
+ */
+export function loadScenarioOrComplain(io: Output, file: string): { scenario: Scenario; calibration: Calibration } | null {
   const loaded = loadScenario(file);
-  if (loaded.ok) return loaded.scenario;
+  if (loaded.ok) return loaded;
   for (const p of loaded.problems) io.err(`mixwise: ${file}: ${formatProblem(p)}\n`);
   return null;
 }
 
 export function runCommand(io: Output, file: string, format: OutputFormat, out: string | null): ExitCode {
-  const scenario = loadScenarioOrComplain(io, file);
-  if (scenario === null) return EXIT_CODES.invalidScenario;
-  const text = formatReport(runScenario(scenario), format, csvSourceOf(scenario));
+  const loaded = loadScenarioOrComplain(io, file);
+  if (loaded === null) return EXIT_CODES.invalidScenario;
+  const text = formatReport(runScenario(loaded.scenario, loaded.calibration), format, csvSourceOf(loaded.scenario));
   if (out === null) io.out(text);
   else writeFileAtomically(out, text);
   return EXIT_CODES.ok;

@@ -113,8 +113,9 @@ export function fitCommand(io: Output, words: readonly string[]): ExitCode {
     return EXIT_CODES.ok;
   }
   const args = parseFitArgs(words);
-  const scenario = loadScenarioOrComplain(io, args.scenarioFile);
-  if (scenario === null) return EXIT_CODES.invalidScenario;
+  const loaded = loadScenarioOrComplain(io, args.scenarioFile);
+  if (loaded === null) return EXIT_CODES.invalidScenario;
+  const { scenario } = loaded;
   const cases = parseCaseCountsCsv(readTextFile(args.casesFile));
   if (!cases.ok) {
     for (const p of cases.problems) io.err(`mixwise: ${args.casesFile}: ${formatCsvProblem(p)}\n`);

@@ -25,9 +25,10 @@ const processContext: ReportContext = { env: process.env, now: () => new Date() 
 async function report(io: Output, args: ReportArgs, context: ReportContext): Promise<ExitCode> {
   // Look for Chromium before the model runs, so a missing browser is reported at once.
   const chromium = args.format === 'pdf' ? findChromium(context.env) : null;
-  const scenario = loadScenarioOrComplain(io, args.file);
-  if (scenario === null) return EXIT_CODES.invalidScenario;
-  const results = runScenario(scenario);
+  const loaded = loadScenarioOrComplain(io, args.file);
+  if (loaded === null) return EXIT_CODES.invalidScenario;
+  const { scenario } = loaded;
+  const results = runScenario(scenario, loaded.calibration);
   const fingerprint = await scenarioFingerprint(scenario, packageJson.version);
   const source = { fingerprint, appVersion: packageJson.version };
   let text: string;

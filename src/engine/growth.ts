@@ -13,6 +13,7 @@
  * eigenvalue of the linearised age-structured infected subsystem equals the r solving
  * rho(K) M(r) = 1 (tested against a direct eigen computation in test/engine/growth.test.ts).
  */
+import type { Scenario } from './scenario.ts';
 
 /** The periods that shape the generation interval (days, stage counts). */
 export interface Periods {
@@ -20,6 +21,17 @@ export interface Periods {
   infectiousPeriodDays: number;
   latentStages: number;
   infectiousStages: number;
+}
+
+/** The periods of a scenario's disease. */
+export function periodsOf(s: Scenario): Periods {
+  const d = s.disease;
+  return {
+    latentPeriodDays: d.latentPeriodDays,
+    infectiousPeriodDays: d.infectiousPeriodDays,
+    latentStages: d.latentStages,
+    infectiousStages: d.infectiousStages,
+  };
 }
 
 /** Slowest possible decay: growth rates must exceed -min(k_E/T_E, k_I/T_I), per day. */

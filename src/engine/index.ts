@@ -1,7 +1,11 @@
 /** The Mixwise engine: pure TypeScript, no platform imports. */
 export * from './scenario.ts';
 export * from './results.ts';
-export { validateScenario, parseScenarioText, formatProblem, formatPath, ScenarioError, type Problem, type ValidationResult } from './validation.ts';
+export { validateScenario, parseScenarioText, ScenarioError, type ValidationResult } from './validation.ts';
+export { formatProblem, formatPath, type Problem } from './problems.ts';
+export { calibrateTransmission, calibrationProblem, LARGEST_TRANSMISSION_RATE_PER_DAY, type Calibration } from './calibration.ts';
+export { reproductionNumber, reproductionAtUnitTransmission } from './reproductionNumber.ts';
+export { initialStateOf, initialSusceptibleOf } from './initialState.ts';
 export { runScenario, runOptions, referenceIndexOf, reciprocityBySetting, compareWithReference } from './run.ts';
 export { effectiveContactMatrix, reciprocityCheck, correctReciprocity } from './contacts.ts';
 export { phaseAt, changeDays, measuresConstant } from './phases.ts';
@@ -11,9 +15,10 @@ export {
   generationIntervalTransform,
   doublingTimeDays,
   halvingTimeDays,
+  periodsOf,
   type Periods,
 } from './growth.ts';
-export { prepareScenario, periodsOf, type PreparedScenario } from './prepare.ts';
+export { prepareScenario, type PreparedScenario } from './prepare.ts';
 export { simulateOption } from './simulate.ts';
 export { finalSizeByBand } from './finalSize.ts';
 export { nextGenerationMatrix, dominantEigenvalue } from './ngm.ts';

@@ -2,7 +2,7 @@
  * Integrates one option segment by segment and keeps the daily state the outcomes need.
  */
 import { DEFAULT_TOLERANCES, Dopri5Workspace, integrate } from './dopri5.ts';
-import { initialStateOf } from './prepare.ts';
+import { initialStateOf } from './initialState.ts';
 import type { PreparedScenario } from './prepare.ts';
 import { protectedRisk, seirRightHandSide, stateLayout } from './seir.ts';
 import type { Segment } from './segments.ts';

@@ -11,8 +11,7 @@
  * expected YLL of burden-of-disease work: Murray & Lopez 1996, The Global Burden of Disease).
  */
 import { z } from 'zod';
-import type { Scenario } from './scenario.ts';
-import type { Problem } from './validation.ts';
+import type { Problem } from './problems.ts';
 
 const nonNegative = z.number({ message: 'must be a number' }).min(0, { message: 'must be >= 0' });
 
@@ -29,6 +28,9 @@ export const lifeTableSchema = z.object({
 });
 
 export type LifeTable = z.output<typeof lifeTableSchema>;
+
+/** The part of a scenario YLL needs (written out so the scenario schema can import this module without a cycle). */
+type LifeTableInputs = { lifeTable?: LifeTable; ageBands: readonly { lowerAgeYears: number }[] };
 
 /**
  * Default: the GBD 2019 reference life table (both sexes; the lowest observed mortality rates at
@@ -68,7 +70,7 @@ export function bandMidAges(lowerAgesYears: readonly number[]): number[] {
 }
 
 /** e(a_i) for each band of the scenario, years: its own `lifeTable`, else the default. */
-export function remainingLifeExpectancyByBand(s: Scenario): Float64Array {
+export function remainingLifeExpectancyByBand(s: LifeTableInputs): Float64Array {
   const table = s.lifeTable ?? DEFAULT_LIFE_TABLE;
   return Float64Array.from(bandMidAges(s.ageBands.map((b) => b.lowerAgeYears)), (age) => remainingLifeExpectancyAt(table, age));
 }
@@ -79,7 +81,7 @@ export function yearsOfLifeLostByBand(deathsByBand: readonly number[], remaining
 }
 
 /** The table's ages must increase row by row. */
-export function lifeTableProblems(s: Scenario): Problem[] {
+export function lifeTableProblems(s: LifeTableInputs): Problem[] {
   const rows = s.lifeTable?.rows ?? [];
   const problems: Problem[] = [];
   for (let k = 1; k < rows.length; k++) {

@@ -3,6 +3,7 @@
  * scenario gives the same numbers, bit for bit.
  */
 import { reciprocityCheck } from './contacts.ts';
+import type { Calibration } from './calibration.ts';
 import { prepareScenario } from './prepare.ts';
 import type { Comparison, OptionResults, ReciprocityCheck, ScenarioResults } from './results.ts';
 import type { Scenario } from './scenario.ts';
@@ -39,10 +40,10 @@ export function compareWithReference(option: OptionResults, reference: OptionRes
 
 /**
  * Runs the options at `optionIndices` (all by default). Comparisons with the reference option are
- * filled when the reference is among them.
+ * filled when the reference is among them. `calibration`: the one `validateScenario` returned.
  */
-export function runOptions(s: Scenario, optionIndices: readonly number[] = s.options.map((_, k) => k)): ScenarioResults {
-  const prepared = prepareScenario(s);
+export function runOptions(s: Scenario, optionIndices: readonly number[] = s.options.map((_, k) => k), calibration?: Calibration): ScenarioResults {
+  const prepared = prepareScenario(s, calibration);
   const referenceIndex = referenceIndexOf(s);
   const options = optionIndices.map((k) => simulateOption(prepared, s.options[k]));
   const reference = options[optionIndices.indexOf(referenceIndex)];
@@ -58,7 +59,7 @@ export function runOptions(s: Scenario, optionIndices: readonly number[] = s.opt
   };
 }
 
-/** Runs every option of a validated scenario. */
-export function runScenario(s: Scenario): ScenarioResults {
-  return runOptions(s);
+/** Runs every option of a validated scenario (`calibration`: the one `validateScenario` returned). */
+export function runScenario(s: Scenario, calibration?: Calibration): ScenarioResults {
+  return runOptions(s, undefined, calibration);
 }

@@ -7,7 +7,7 @@
  */
 import { z } from 'zod';
 import { campaignSchema } from './vaccination/schema.ts';
-import { fitRecordSchema } from './fitting/fitRecord.ts';
+import { fitRecordSchema } from './fitting/fitRecordSchema.ts';
 import { lifeTableSchema } from './lifeExpectancy.ts';
 import { uncertaintySchema } from './uncertainty/schema.ts';
 import { DEFAULT_ADMISSION_DELAY, DEFAULT_ICU_PATIENT_WARD_STAY, DEFAULT_ICU_STAY, DEFAULT_WARD_STAY } from './healthcare/defaults.ts';
@@ -59,7 +59,7 @@ export const diseaseSchema = z.object({
   /** h_j, relative infectiousness by band (1 = reference). */
   relativeInfectiousness: z.array(nonNegative).optional(),
   source: z.string().default(''),
-  /** Optional: how R0 was fitted to daily case counts (see src/engine/fitting/fitRecord.ts). */
+  /** Optional: how R0 was fitted to daily case counts (see src/engine/fitting/fitRecordSchema.ts). */
   fitRecord: fitRecordSchema.optional(),
 });
 

@@ -14,10 +14,10 @@ import { doublingTimeDays, growthRateFromR, halvingTimeDays } from './growth.ts'
 import { healthcareDemand } from './healthcare/demand.ts';
 import { integrateOption } from './integrateOption.ts';
 import { yearsOfLifeLostByBand } from './lifeExpectancy.ts';
-import { nextGenerationMatrixInto, spectralRadius } from './ngm.ts';
 import { hasTriggers, measuresConstant, phaseAt } from './phases.ts';
 import type { PreparedScenario } from './prepare.ts';
 import { reproductionByDay } from './reproduction.ts';
+import { reproductionNumber } from './reproductionNumber.ts';
 import type { DailySeries, OptionResults, VaccinationOutcomes } from './results.ts';
 import type { PolicyOption } from './scenario.ts';
 import { type Segment, segmentsOf } from './segments.ts';
@@ -107,9 +107,7 @@ export function simulateOption(p: PreparedScenario, option: PolicyOption): Optio
   const triggers = triggered === null ? [] : triggered.measures.controller.outcomes(H);
   const burden = measureBurden(s, option, triggers);
 
-  const kStart = nextGenerationMatrixInto(new Float64Array(n * n), segments[0].transmission, p.initialSusceptible, p.periods.infectiousPeriodDays);
-  // Certified to 1e-12 by the Collatz-Wielandt bracket; ml-matrix is the fallback inside.
-  const rStart = spectralRadius(kStart, n, new Float64Array(n).fill(1 / n), new Float64Array(n), 1e-12);
+  const rStart = reproductionNumber(segments[0].transmission, p.initialSusceptible, p.periods.infectiousPeriodDays);
   const growthRatePerDay = growthRateFromR(rStart, p.periods);
 
   let peakDay = 0;

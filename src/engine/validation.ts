@@ -6,38 +6,16 @@
  * `populationPersons[3] must be >= 0, got -12`. A user's mistake is never a stack trace.
  */
 import type { z } from 'zod';
+import { type Calibration, calibrateTransmission, calibrationProblem } from './calibration.ts';
 import { healthcareProblems } from './healthcare/validation.ts';
 import { lifeTableProblems } from './lifeExpectancy.ts';
-import { calibrationProblem } from './prepare.ts';
+import { formatPath, formatProblem, type Problem } from './problems.ts';
 import { vaccinationProblems } from './vaccination/validation.ts';
 import { uncertaintyProblems } from './uncertainty/validation.ts';
 import { HOSPITAL_TRIGGER_QUANTITIES, scenarioSchema, type Scenario, type Trigger } from './scenario.ts';
 
-export interface Problem {
-  /** JSON path in the file, e.g. `settings[1].contactsPerDay[2][0]`. */
-  path: string;
-  /** The rule broken, e.g. `must be >= 0`. */
-  rule: string;
-  /** The offending value, as JSON text (absent when the field is missing). */
-  value?: string;
-}
-
-export type ValidationResult = { ok: true; scenario: Scenario } | { ok: false; problems: Problem[] };
-
-/** Renders a path like ['settings', 1, 'contactsPerDay', 2, 0] as `settings[1].contactsPerDay[2][0]`. */
-export function formatPath(path: readonly PropertyKey[]): string {
-  let out = '';
-  for (const key of path) {
-    if (typeof key === 'number') out += `[${key}]`;
-    else out += out === '' ? String(key) : `.${String(key)}`;
-  }
-  return out === '' ? '(file)' : out;
-}
-
-/** One line per problem: `path rule, got value`. */
-export function formatProblem(p: Problem): string {
-  return p.value === undefined ? `${p.path} ${p.rule}` : `${p.path} ${p.rule}, got ${p.value}`;
-}
+/** A valid scenario comes with its calibration, to hand to `prepareScenario` / `runScenario`. */
+export type ValidationResult = { ok: true; scenario: Scenario; calibration: Calibration } | { ok: false; problems: Problem[] };
 
 function showValue(v: unknown): string | undefined {
   if (v === undefined) return undefined;
@@ -203,8 +181,9 @@ export function validateScenario(input: unknown): ValidationResult {
   if (!parsed.success) return { ok: false, problems: structuralProblems(input, parsed.error.issues) };
   const problems = crossFieldProblems(parsed.data);
   if (problems.length > 0) return { ok: false, problems };
-  const calibration = calibrationProblem(parsed.data);
-  return calibration !== null ? { ok: false, problems: [calibration] } : { ok: true, scenario: parsed.data };
+  const calibration = calibrateTransmission(parsed.data);
+  const problem = calibrationProblem(parsed.data, calibration);
+  return problem !== null ? { ok: false, problems: [problem] } : { ok: true, scenario: parsed.data, calibration };
 }
 
 /** Parses JSON text and validates it; a JSON syntax error is reported as one problem. */

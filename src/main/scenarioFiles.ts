@@ -4,8 +4,7 @@
  */
 import { readFile, stat } from 'node:fs/promises';
 import { basename } from 'node:path';
-import { parseScenarioText } from '../engine/validation.ts';
-import { formatProblem } from '../engine/validation.ts';
+import { formatProblem, parseScenarioText } from '../engine/index.ts';
 import { writeFileAtomic } from '../shared/atomicWrite.ts';
 import type { OpenedScenarioFile } from '../preload/api.ts';
 

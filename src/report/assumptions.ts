@@ -16,20 +16,7 @@ import type { ScenarioResults } from '../engine/results.ts';
 import type { Delay, Scenario } from '../engine/scenario.ts';
 import { fitRecordRows } from './fitRecord.ts';
 import { print } from './numberFormat.ts';
-
-export interface ParameterRow {
-  parameter: string;
-  value: string;
-  unit: string;
-  source: string;
-  /** A note printed in small type under the value (e.g. a fit's dispersion). */
-  smallPrint?: string;
-}
-
-export interface BandTable {
-  header: string[];
-  rows: string[][];
-}
+import type { BandTable, ParameterRow } from './reportTypes.ts';
 
 const FROM_FILE = 'Scenario file';
 export const HOSPITAL_DEFAULT_SOURCE =

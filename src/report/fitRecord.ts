@@ -5,9 +5,9 @@
  * and the measures divided out. Nothing is re-computed here: every figure is the record's.
  * An interval end stored as null is unbounded ("no bound").
  */
-import { fitRecordMatches, type FitRecord } from '../engine/fitting/fitRecord.ts';
+import { fitRecordMatches, type FitRecord } from '../engine/fitting/index.ts';
 import type { Scenario } from '../engine/scenario.ts';
-import type { ParameterRow } from './assumptions.ts';
+import type { ParameterRow } from './reportTypes.ts';
 import { print } from './numberFormat.ts';
 
 /** Source column of every fit row. */

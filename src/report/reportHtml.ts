@@ -6,7 +6,7 @@
  */
 import type { ScenarioResults } from '../engine/results.ts';
 import type { Scenario } from '../engine/scenario.ts';
-import { bandTable, parameterRows, type ParameterRow } from './assumptions.ts';
+import { bandTable, parameterRows } from './assumptions.ts';
 import { CAUTION, CAUTION_PARAGRAPHS, MODEL_LIMITS } from './cautions.ts';
 import { byAgeCharts, curveCharts, type ReportChart, type StyleOf } from './charts.ts';
 import { escapeMarkup as esc } from './escape.ts';
@@ -16,7 +16,7 @@ import { optionSummaries, type OptionSummary } from './measures.ts';
 import { columnGroups, optionsTable, type OptionsTable } from './optionsTable.ts';
 import { optionStyleOf } from './palette.ts';
 import { printCss } from './printCss.ts';
-import { OPTION_COLUMNS_PER_TABLE, type ReportMeta } from './reportTypes.ts';
+import { OPTION_COLUMNS_PER_TABLE, type ParameterRow, type ReportMeta } from './reportTypes.ts';
 import { legendSwatchSvg } from './svgLineChart.ts';
 
 const pad2 = (n: number): string => String(n).padStart(2, '0');

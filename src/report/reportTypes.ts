@@ -1,3 +1,21 @@
+/** Types the report's modules share: page settings, report metadata and table rows. */
+
+/** One row of the assumptions table: an input parameter with its value, unit and source. */
+export interface ParameterRow {
+  parameter: string;
+  value: string;
+  unit: string;
+  source: string;
+  /** A note printed in small type under the value (e.g. a fit's dispersion). */
+  smallPrint?: string;
+}
+
+/** The by-band inputs as one table of text cells. */
+export interface BandTable {
+  header: string[];
+  rows: string[][];
+}
+
 /** Paper and page settings of a printed report. */
 export const PAPERS = ['A4', 'Letter'] as const;
 export type Paper = (typeof PAPERS)[number];

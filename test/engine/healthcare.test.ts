@@ -16,7 +16,8 @@ import {
 import { prepareHealthcare } from '../../src/engine/healthcare/prepare.ts';
 import { runScenario } from '../../src/engine/run.ts';
 import type { ScenarioInput } from '../../src/engine/scenario.ts';
-import { formatProblem, validateScenario } from '../../src/engine/validation.ts';
+import { formatProblem } from '../../src/engine/problems.ts';
+import { validateScenario } from '../../src/engine/validation.ts';
 
 type HealthcareInput = NonNullable<ScenarioInput['healthcare']>;
 

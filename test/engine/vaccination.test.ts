@@ -2,7 +2,8 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { Dopri5Workspace, integrate } from '../../src/engine/dopri5.ts';
-import { initialStateOf, prepareScenario } from '../../src/engine/prepare.ts';
+import { initialStateOf } from '../../src/engine/initialState.ts';
+import { prepareScenario } from '../../src/engine/prepare.ts';
 import { runScenario } from '../../src/engine/run.ts';
 import type { CampaignInput, ScenarioInput } from '../../src/engine/scenario.ts';
 import { seirRightHandSide, stateLayout } from '../../src/engine/seir.ts';

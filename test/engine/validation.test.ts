@@ -1,6 +1,8 @@
 /** Scenario validation: every problem names its path, the rule and the value. */
 import { describe, expect, it } from 'vitest';
-import { formatProblem, parseScenarioText, validateScenario } from '../../src/engine/validation.ts';
+import { formatProblem } from '../../src/engine/problems.ts';
+import { parseScenarioText, validateScenario } from '../../src/engine/validation.ts';
+import { prepareScenario } from '../../src/engine/prepare.ts';
 import { demoScenario } from '../helpers/demo.ts';
 
 const demoJson = () => JSON.parse(JSON.stringify(demoScenario())) as Record<string, any>;
@@ -12,6 +14,18 @@ const lines = (input: unknown) => {
 describe('validateScenario', () => {
   it('accepts the demo', () => {
     expect(validateScenario(demoJson()).ok).toBe(true);
+  });
+
+  it('returns the calibration, which prepareScenario uses instead of calibrating again', () => {
+    const r = validateScenario(demoJson());
+    if (!r.ok) throw new Error('demo must be valid');
+    // R0 = beta x R at unit transmission, so the calibrated pair reproduces the file's R0.
+    const t = r.scenario.disease.transmission;
+    if (t.kind === 'r0') expect(r.calibration.r0).toBeCloseTo(t.r0, 10);
+    expect(prepareScenario(r.scenario).beta).toBeCloseTo(r.calibration.beta, 14);
+    const given = { beta: 2 * r.calibration.beta, r0: 2 * r.calibration.r0 };
+    const p = prepareScenario(r.scenario, given);
+    expect([p.beta, p.r0]).toEqual([given.beta, given.r0]);
   });
 
   it('names path, rule and value for a negative population', () => {

@@ -1,9 +1,9 @@
 /** The fit record printed under the R0 assumption, per-option colour slots, and the band table's no-wrap labels. */
 import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
-import { fitRecordSchema, type FitRecord } from '../../src/engine/fitting/fitRecord.ts';
+import { fitRecordSchema, type FitRecord } from '../../src/engine/fitting/fitRecordSchema.ts';
 import { dailyTotals, fitGrowth, fitRecordOf, parseCaseCountsCsv, r0FromFit } from '../../src/engine/fitting/index.ts';
-import { periodsOf } from '../../src/engine/prepare.ts';
+import { periodsOf } from '../../src/engine/growth.ts';
 import { runScenario } from '../../src/engine/run.ts';
 import type { Scenario } from '../../src/engine/scenario.ts';
 import { parameterRows } from '../../src/report/assumptions.ts';

@@ -11,7 +11,8 @@ import { readFileSync, readdirSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import Ajv2020 from 'ajv/dist/2020.js';
 import { describe, expect, it } from 'vitest';
-import { validateScenario, formatProblem } from '../../src/engine/validation.ts';
+import { formatProblem } from '../../src/engine/problems.ts';
+import { validateScenario } from '../../src/engine/validation.ts';
 import { scenarioJsonSchema, scenarioJsonSchemaText } from '../../scripts/scenario-json-schema.ts';
 import { demoScenarioText, POPULATION_75_PLUS_SPLIT } from '../../scripts/demo-scenario.ts';
 

@@ -2,65 +2,13 @@
  * Where a scenario's R0 came from when it was fitted to case counts: an optional record kept in
  * `disease.fitRecord` so the report and the assumptions view can print the source, window,
  * count model, growth rate, doubling time and R0 with their 95% intervals, and the measures
- * divided out. Interval ends that are unbounded are written as null (JSON has no infinity).
- * The record describes the fit; `fitRecordMatches` tells whether the scenario still uses its R0.
+ * divided out (schema: fitRecordSchema.ts). The record describes the fit; `fitRecordMatches` tells whether the scenario still uses its R0.
  */
-import { z } from 'zod';
+import type { FitRecord } from './fitRecordSchema.ts';
 import type { GrowthFit } from './fitGrowth.ts';
 import type { MeasuresRatio } from './measuresRatio.ts';
 import type { R0FromFit } from './r0FromFit.ts';
 import { epochDayToIsoDate, isoDateToEpochDay } from './isoDate.ts';
-
-const finite = z.number({ message: 'must be a number' });
-/** A number, or null for an unbounded interval end. */
-const bound = finite.nullable();
-const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, { message: 'must be a date written YYYY-MM-DD' });
-
-export const fitRecordSchema = z.object({
-  /** Name of the case-count file the fit used (no folder). */
-  sourceFile: z.string().min(1, { message: 'must not be empty' }),
-  /** Fitting window, case-file day numbers (both inclusive), and its dates when the file had dates. */
-  window: z.object({
-    fromDay: z.number().int({ message: 'must be a whole day number' }),
-    toDay: z.number().int({ message: 'must be a whole day number' }),
-    fromDate: isoDate.optional(),
-    toDate: isoDate.optional(),
-    daysUsed: z.number().int().min(0).optional(),
-    cases: z.number().int().min(0).optional(),
-  }),
-  family: z.enum(['poisson', 'negativeBinomial']),
-  /** Whether weekday reporting factors were fitted. */
-  dayOfWeek: z.boolean().default(false),
-  /** Fitted exponential growth rate r, per day, and its 95% interval. */
-  growthRatePerDay: finite,
-  growthRateInterval: z.tuple([bound, bound]),
-  /** Which method gave the interval for r. */
-  intervalMethod: z.string().default('profile likelihood'),
-  /** ln 2 / r in days; null when not growing. */
-  doublingTimeDays: bound,
-  doublingTimeInterval: z.tuple([bound, bound]).nullable().default(null),
-  /** R0 set from the fit (without measures) and its 95% interval. */
-  r0: finite.gt(0, { message: 'must be > 0' }),
-  r0Interval: z.tuple([bound, bound]),
-  /** NB2 dispersion alpha (negative binomial) and the Pearson ratio of the Poisson fit. */
-  dispersion: z.object({ negativeBinomialAlpha: bound, pearsonRatio: bound }).optional(),
-  /** Measures in force during the window, divided out of R to give R0. */
-  measures: z
-    .object({
-      option: z.string().min(1),
-      phaseFromDay: z.number().int().nullable(),
-      phaseToDay: z.number().int().nullable(),
-      ratio: finite.gt(0, { message: 'must be > 0' }),
-      reproductionNumberInWindow: finite.min(0),
-    })
-    .optional(),
-  /** Plain sentence on measures ('' when none were in force). */
-  measuresNote: z.string().default(''),
-  /** Plain-language method notes (regression, interval, Euler-Lotka relation). */
-  methodNotes: z.array(z.string()).default([]),
-});
-
-export type FitRecord = z.output<typeof fitRecordSchema>;
 
 const orNull = (x: number | null): number | null => (x === null || !Number.isFinite(x) ? null : x);
 

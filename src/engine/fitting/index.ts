@@ -19,4 +19,5 @@ export { r0FromFit, type R0FromFit, type R0FromFitResult } from './r0FromFit.ts'
 export { growthStatus, timeScales, type GrowthStatus, type TimeScales } from './timeScales.ts';
 export { CHI_SQUARE_1_DF_95 } from './profileInterval.ts';
 export { measuresRatioForOption, measuresRatioOfPhase, type MeasuresRatio, type MeasuresRatioResult } from './measuresRatio.ts';
-export { caseDayDate, fitRecordMatches, fitRecordOf, fitRecordSchema, type FitRecord, type FitRecordInput } from './fitRecord.ts';
+export { caseDayDate, fitRecordMatches, fitRecordOf, type FitRecordInput } from './fitRecord.ts';
+export { fitRecordSchema, type FitRecord } from './fitRecordSchema.ts';

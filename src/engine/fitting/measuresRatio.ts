@@ -10,20 +10,11 @@
  * gives R0 (r0FromFit). Which phase: the one an option has in force on the window's first day,
  * counting case days and scenario days from the same day 0.
  */
+import { initialSusceptibleOf } from '../initialState.ts';
 import { phaseAt } from '../phases.ts';
-import { prepareScenario } from '../prepare.ts';
-import { dominantEigenvalue, nextGenerationMatrixInto } from '../ngm.ts';
+import { reproductionAtUnitTransmission } from '../reproductionNumber.ts';
 import type { Phase, Scenario } from '../scenario.ts';
-import { transmissionMatrixInto } from '../transmission.ts';
-
-/** Dominant NGM eigenvalue at transmission rate 1 and the initial susceptibles, under `phase` (null = none). */
-function eigenvalueAtUnitBeta(scenario: Scenario, phase: Phase | null): number {
-  const prepared = prepareScenario(scenario);
-  const n = prepared.bands.bands;
-  const m = transmissionMatrixInto(new Float64Array(n * n), scenario, prepared.bands, 1, phase);
-  const k = nextGenerationMatrixInto(new Float64Array(n * n), m, prepared.initialSusceptible, scenario.disease.infectiousPeriodDays);
-  return dominantEigenvalue(k, n);
-}
+import { bandParameters } from '../transmission.ts';
 
 export interface MeasuresRatio {
   /** ρ (dimensionless); 1 when the option has no phase in force on `day`. */
@@ -43,7 +34,9 @@ export type MeasuresRatioResult = { ok: true; value: MeasuresRatio } | { ok: fal
 /** ρ for an explicit phase (null gives 1). Throws nothing; 0 / 0 (no transmission at all) gives NaN. */
 export function measuresRatioOfPhase(scenario: Scenario, phase: Phase | null): number {
   if (phase === null) return 1;
-  return eigenvalueAtUnitBeta(scenario, phase) / eigenvalueAtUnitBeta(scenario, null);
+  const bands = bandParameters(scenario);
+  const susceptible = initialSusceptibleOf(scenario);
+  return reproductionAtUnitTransmission(scenario, bands, phase, susceptible) / reproductionAtUnitTransmission(scenario, bands, null, susceptible);
 }
 
 /** ρ for the phase option `optionName` has in force on `day` (the fitting window's first day). */

@@ -21,7 +21,14 @@
  * 80 up takes 80+). A wide top band therefore gets the value of its youngest ages; give the
  * ratios explicitly if that understates it.
  */
-import type { Delay, Scenario } from '../scenario.ts';
+/**
+ * A gamma delay as the scenario's `delaySchema` reads it (mean in days, shape). Written out here
+ * rather than imported so the scenario schema can take its defaults from this module without an
+ * import cycle.
+ */
+type Delay = Readonly<{ meanDays: number; shape: number }>;
+/** The part of a scenario the default ratios need. */
+type Banded = { ageBands: readonly { label: string; lowerAgeYears: number }[] };
 
 /** Report 9 Table 1 (Ferguson et al. 2020): lower ages of the ten-year bands, years. */
 export const REPORT9_LOWER_AGES = [0, 10, 20, 30, 40, 50, 60, 70, 80] as const;
@@ -58,12 +65,12 @@ export function report9BandOf(lowerAgeYears: number): number {
 }
 
 /** Default IHR by scenario band, fraction: symptomatic share x Report 9 hospitalised % / 100. */
-export function defaultInfectionHospitalisationRatio(s: Pick<Scenario, 'ageBands'>): number[] {
+export function defaultInfectionHospitalisationRatio(s: Banded): number[] {
   return s.ageBands.map((b) => (SYMPTOMATIC_SHARE * REPORT9_HOSPITALISED_PERCENT_OF_SYMPTOMATIC[report9BandOf(b.lowerAgeYears)]) / 100);
 }
 
 /** Default share of admissions needing ICU by scenario band, fraction: Report 9 critical care % / 100. */
-export function defaultIcuShareOfAdmissions(s: Pick<Scenario, 'ageBands'>): number[] {
+export function defaultIcuShareOfAdmissions(s: Banded): number[] {
   return s.ageBands.map((b) => REPORT9_CRITICAL_CARE_PERCENT_OF_HOSPITALISED[report9BandOf(b.lowerAgeYears)] / 100);
 }
 

@@ -3,7 +3,7 @@
  * capacity not below usual capacity. Called by `crossFieldProblems` in validation.ts.
  */
 import type { Scenario } from '../scenario.ts';
-import type { Problem } from '../validation.ts';
+import type { Problem } from '../problems.ts';
 
 export function healthcareProblems(s: Scenario): Problem[] {
   const h = s.healthcare;

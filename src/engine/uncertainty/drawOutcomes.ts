@@ -12,7 +12,8 @@ import { prepareScenario, type PreparedScenario } from '../prepare.ts';
 import type { OptionResults } from '../results.ts';
 import type { PolicyOption, Scenario } from '../scenario.ts';
 import { simulateOption } from '../simulate.ts';
-import { formatProblem, validateScenario } from '../validation.ts';
+import { formatProblem } from '../problems.ts';
+import { validateScenario } from '../validation.ts';
 import { applyDraw } from './applyDraw.ts';
 import { hypercubePoint, latinHypercube, type LatinHypercube } from './latinHypercube.ts';
 import { distributionQuantile } from './quantiles.ts';
@@ -86,7 +87,7 @@ export function preparedScenarioOfDraw(p: PreparedDraws, draw: number): { ok: tr
   const drawn = applyDraw(p.scenario, p.uncertainty.parameters.map((q) => q.name), values);
   const checked = validateScenario(drawn);
   if (!checked.ok) return { ok: false, reason: formatProblem(checked.problems[0]) };
-  return { ok: true, prepared: prepareScenario(checked.scenario) };
+  return { ok: true, prepared: prepareScenario(checked.scenario, checked.calibration) };
 }
 
 function failure(draw: number, err: unknown): DrawResult {
@@ -119,7 +120,7 @@ export function evaluateOptionUnderDraw(p: PreparedDraws, draw: number, option: 
     const drawn = applyDraw(withOption, p.uncertainty.parameters.map((q) => q.name), values);
     const checked = validateScenario(drawn);
     if (!checked.ok) return { ok: false, reason: formatProblem(checked.problems[0]) };
-    return { ok: true, outcomes: outcomeVector(simulateOption(prepareScenario(checked.scenario), checked.scenario.options[0])) };
+    return { ok: true, outcomes: outcomeVector(simulateOption(prepareScenario(checked.scenario, checked.calibration), checked.scenario.options[0])) };
   } catch (err) {
     return { ok: false, reason: `the run failed: ${err instanceof Error ? err.message : String(err)}` };
   }

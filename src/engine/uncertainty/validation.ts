@@ -3,7 +3,7 @@
  * once, names that refer to something real (a setting, the way transmission is given, a hospital
  * section, a vaccination campaign), and distributions whose bounds are in order.
  */
-import type { Problem } from '../validation.ts';
+import type { Problem } from '../problems.ts';
 import type { Scenario } from '../scenario.ts';
 import { truncatedMass } from './quantiles.ts';
 import { CONTACT_SCALE_PREFIX, type Distribution } from './schema.ts';

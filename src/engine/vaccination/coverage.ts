@@ -9,9 +9,9 @@
  * grows, so T is found by bisection. Doses count as protecting at once (no delay): this is a
  * planning figure for the order, not a date.
  */
-import { nextGenerationMatrixInto, spectralRadius } from '../ngm.ts';
 import { phaseAt } from '../phases.ts';
 import type { PreparedScenario } from '../prepare.ts';
+import { reproductionNumber } from '../reproductionNumber.ts';
 import type { PolicyOption } from '../scenario.ts';
 import { transmissionMatrixInto } from '../transmission.ts';
 import type { Campaign } from './schema.ts';
@@ -46,9 +46,6 @@ export function coverageNeededForRBelowOne(p: PreparedScenario, option: PolicyOp
   const n = p.bands.bands;
   const population = p.bands.population;
   const m = transmissionMatrixInto(new Float64Array(n * n), p.scenario, p.bands, p.beta, phaseAt(option, 0));
-  const k = new Float64Array(n * n);
-  const vector = new Float64Array(n);
-  const scratch = new Float64Array(n);
   const effective = new Float64Array(n);
   const rAfter = (total: number): number => {
     const doses = allocateDoses(c, population, total);
@@ -56,9 +53,7 @@ export function coverageNeededForRBelowOne(p: PreparedScenario, option: PolicyOp
       const s = p.initialSusceptible[i];
       effective[i] = population[i] > 0 ? s * (1 - (c.efficacyAgainstInfection * doses[i]) / population[i]) : 0;
     }
-    nextGenerationMatrixInto(k, m, effective, p.periods.infectiousPeriodDays);
-    vector.fill(1 / n);
-    return spectralRadius(k, n, vector, scratch, 1e-12);
+    return reproductionNumber(m, effective, p.periods.infectiousPeriodDays);
   };
   let ceiling = 0;
   for (let i = 0; i < n; i++) ceiling += (c.uptakeCeiling[i] ?? 0) * population[i];

@@ -3,9 +3,8 @@
  * "Adult" means a band whose lower age bound is 20 years or more (our convention, stated in the
  * app's model notes).
  */
-import { nextGenerationMatrixInto, spectralRadius } from '../ngm.ts';
 import type { PreparedScenario } from '../prepare.ts';
-import { transmissionMatrixInto } from '../transmission.ts';
+import { reproductionAtUnitTransmission } from '../reproductionNumber.ts';
 
 export const ADULT_AGE_YEARS = 20;
 
@@ -29,11 +28,8 @@ function bandsBy(lowerAges: readonly number[], keep: (age: number) => boolean, a
  * v_i / N_i, the relative chance that a person in band i is infected in the growing epidemic.
  */
 export function perCapitaInfectionShare(p: PreparedScenario): Float64Array {
-  const n = p.bands.bands;
-  const m = transmissionMatrixInto(new Float64Array(n * n), p.scenario, p.bands, p.beta, null);
-  const k = nextGenerationMatrixInto(new Float64Array(n * n), m, p.bands.population, p.periods.infectiousPeriodDays);
-  const v = new Float64Array(n).fill(1 / n);
-  spectralRadius(k, n, v, new Float64Array(n), 1e-12);
+  const v = new Float64Array(p.bands.bands);
+  reproductionAtUnitTransmission(p.scenario, p.bands, null, p.bands.population, v);
   return v.map((x, i) => (p.bands.population[i] > 0 ? x / p.bands.population[i] : 0));
 }
 

@@ -1,6 +1,6 @@
 /** Cross-field rules of vaccination campaigns (band counts, orders, names, efficacies). */
 import type { Scenario } from '../scenario.ts';
-import type { Problem } from '../validation.ts';
+import type { Problem } from '../problems.ts';
 
 export function vaccinationProblems(s: Scenario): Problem[] {
   const problems: Problem[] = [];

@@ -4,7 +4,7 @@
  * discarding clears the copy.
  */
 import type { WorkingDocument } from './scenarioEdits.ts';
-import { validateScenario } from '../../engine/validation.ts';
+import { validateScenario } from '../../engine/index.ts';
 
 const KEY = 'mixwise.autosave';
 

@@ -1,6 +1,6 @@
 /** The bundled demo scenario (resources/demo-scenario.json), validated like any opened file. */
 import demoText from '../../../resources/demo-scenario.json?raw';
-import { parseScenarioText, formatProblem } from '../../engine/validation.ts';
+import { parseScenarioText, formatProblem } from '../../engine/index.ts';
 import type { Scenario } from '../../engine/scenario.ts';
 
 export const DEMO_FILE_NAME = 'demo-scenario.json';

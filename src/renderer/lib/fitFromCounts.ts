@@ -15,7 +15,7 @@ import {
   type MeasuresRatio,
   type R0FromFit,
 } from '../../engine/fitting/index.ts';
-import { periodsOf } from '../../engine/prepare.ts';
+import { periodsOf } from '../../engine/index.ts';
 import type { Scenario } from '../../engine/scenario.ts';
 
 export interface FitRequest {

@@ -3,7 +3,7 @@
  * a download to save, `window.print()` to print. Recent files are copies kept in this
  * browser's local storage, since a web page cannot reopen a path on disk.
  */
-import { parseScenarioText, formatProblem } from '../../engine/validation.ts';
+import { parseScenarioText, formatProblem } from '../../engine/index.ts';
 import type { MixwiseHost, OpenedScenarioFile, RecentFile, SaveOutcome } from '../../preload/api.ts';
 
 const RECENT_KEY = 'mixwise.recent';

@@ -6,7 +6,7 @@
 import { tick } from 'svelte';
 import type { Scenario } from '../../engine/scenario.ts';
 import type { ScenarioResults } from '../../engine/results.ts';
-import { validateScenario, parseScenarioText, formatProblem } from '../../engine/validation.ts';
+import { validateScenario, parseScenarioText, formatProblem } from '../../engine/index.ts';
 import { EngineClient } from '../lib/engineClient.ts';
 import { problemInWords } from '../lib/problemWords.ts';
 import type { OrdersInfo } from '../lib/engineProtocol.ts';

@@ -2,7 +2,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { dailyTotals, fitGrowth, fitRecordMatches, fitRecordOf, measuresRatioForOption, parseCaseCountsCsv, r0FromFit, type GrowthFit } from '../../../src/engine/fitting/index.ts';
-import { periodsOf } from '../../../src/engine/prepare.ts';
+import { periodsOf } from '../../../src/engine/growth.ts';
 import { parseScenarioText, validateScenario } from '../../../src/engine/validation.ts';
 import { demoScenario } from '../../helpers/demo.ts';
 

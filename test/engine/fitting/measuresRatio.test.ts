@@ -7,7 +7,7 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { runScenario } from '../../../src/engine/run.ts';
 import { dailyTotals, fitGrowth, measuresRatioForOption, measuresRatioOfPhase, parseCaseCountsCsv, r0FromFit } from '../../../src/engine/fitting/index.ts';
-import { periodsOf } from '../../../src/engine/prepare.ts';
+import { periodsOf } from '../../../src/engine/growth.ts';
 import type { Phase } from '../../../src/engine/scenario.ts';
 import { demoScenario } from '../../helpers/demo.ts';
 import { twoBand } from '../../helpers/scenarios.ts';
