@@ -7,21 +7,7 @@
  * D is a date (YYYY-MM-DD, when the file has dates) or a day number. The words are split by
  * words.ts, as for every command.
  */
-import { periodsOf } from '../engine/index.ts';
-import {
-  dailyTotals,
-  fitGrowth,
-  formatCsvProblem,
-  isoDateToEpochDay,
-  measuresRatioForOption,
-  parseCaseCountsCsv,
-  r0FromFit,
-  type CaseSeries,
-  type CountModel,
-  type GrowthFit,
-  type MeasuresRatio,
-  type R0FromFit,
-} from '../engine/fitting/index.ts';
+import { periodsOf, dailyTotals, fitGrowth, formatCsvProblem, isoDateToEpochDay, measuresRatioForOption, parseCaseCountsCsv, r0FromFit, type CaseSeries, type CountModel, type GrowthFit, type MeasuresRatio, type R0FromFit } from '../engine/index.ts';
 import { CAUTION } from './caution.ts';
 import { loadScenarioOrComplain, type Output } from './commands.ts';
 import { EXIT_CODES, type ExitCode } from './errors.ts';

@@ -6,19 +6,7 @@
  * scenario (unknown option or outcome, an option without a campaign, groups that miss or repeat
  * a band) is one line per problem and exit code 2, like an invalid scenario.
  */
-import {
-  inThreadEvaluator,
-  ORDER_OUTCOMES,
-  parseGroupSpec,
-  prepareOrderSearch,
-  priorityOf,
-  searchOrders,
-  type OrderOutcomes,
-  type OrderSearchJob,
-  type OrderSearchResult,
-  type OrderSearchSettings,
-} from '../engine/index.ts';
-import type { Scenario } from '../engine/index.ts';
+import { inThreadEvaluator, ORDER_OUTCOMES, parseGroupSpec, prepareOrderSearch, priorityOf, searchOrders, type OrderOutcomes, type OrderSearchJob, type OrderSearchResult, type OrderSearchSettings, type Scenario } from '../engine/index.ts';
 import { orderText } from '../report/orderText.ts';
 import { CAUTION } from './caution.ts';
 import { loadScenarioOrComplain, type Output } from './commands.ts';

@@ -2,7 +2,7 @@
  * Notes on contact matrices that do not balance (N_i C_ij != N_j C_ji). The engine uses the
  * matrices as given; the note tells the analyst how far off they are and where.
  */
-import type { ReciprocityCheck } from '../engine/results.ts';
+import type { ReciprocityCheck } from '../engine/index.ts';
 import { print } from '../report/numberFormat.ts';
 
 export interface ReciprocityRow {

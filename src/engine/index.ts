@@ -36,3 +36,4 @@ export {
   type LifeTable,
 } from './lifeExpectancy.ts';
 export * from './uncertainty/index.ts';
+export * from './fitting/index.ts';

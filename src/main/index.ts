@@ -6,7 +6,7 @@
 import { app, BrowserWindow, dialog, Menu, net, protocol, session, shell } from 'electron';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
-import { IPC, type MenuCommand, type RecentFile } from '../preload/api.ts';
+import { IPC, type MenuCommand, type RecentFile } from '../shared/hostApi.ts';
 import { APP_ENTRY_URL, APP_SCHEME, assetPathFor, mimeTypeFor } from './appProtocol.ts';
 import { CONTENT_SECURITY_POLICY, isAllowedNavigation } from './contentSecurity.ts';
 import { registerIpcHandlers } from './ipcHandlers.ts';

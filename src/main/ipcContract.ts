@@ -4,7 +4,7 @@
  * payload must match the channel's zod schema. Plain functions, unit-tested.
  */
 import { z } from 'zod';
-import { IPC } from '../preload/api.ts';
+import { IPC } from '../shared/hostApi.ts';
 import { PAPERS } from '../report/reportTypes.ts';
 import { isAllowedNavigation } from './contentSecurity.ts';
 

@@ -5,7 +5,7 @@
  */
 import { BrowserWindow, dialog, ipcMain, type IpcMainEvent, type IpcMainInvokeEvent } from 'electron';
 import { basename } from 'node:path';
-import { IPC, type OpenedScenarioFile, type RecentFile, type SaveOutcome } from '../preload/api.ts';
+import { IPC, type OpenedScenarioFile, type RecentFile, type SaveOutcome } from '../shared/hostApi.ts';
 import { checkIpcMessage, type IpcChannel, type IpcPayload } from './ipcContract.ts';
 import { readScenarioFile, saveScenarioText } from './scenarioFiles.ts';
 import { writeFileAtomic } from '../shared/atomicWrite.ts';

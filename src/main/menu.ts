@@ -5,7 +5,7 @@
  * web mode, so each shortcut has exactly one path.
  */
 import type { MenuItemConstructorOptions } from 'electron';
-import type { MenuCommand, RecentFile } from '../preload/api.ts';
+import type { MenuCommand, RecentFile } from '../shared/hostApi.ts';
 
 export interface MenuActions {
   send(command: MenuCommand): void;

@@ -6,7 +6,7 @@ import { readFile } from 'node:fs/promises';
 import { basename } from 'node:path';
 import { z } from 'zod';
 import { writeFileAtomic } from '../shared/atomicWrite.ts';
-import type { RecentFile } from '../preload/api.ts';
+import type { RecentFile } from '../shared/hostApi.ts';
 
 export const MAX_RECENT = 8;
 

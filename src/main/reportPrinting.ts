@@ -10,7 +10,7 @@
  */
 import type { BrowserWindowConstructorOptions, PrintToPDFOptions, WebContentsPrintOptions } from 'electron';
 import { randomBytes } from 'node:crypto';
-import type { ReportDocument } from '../preload/api.ts';
+import type { ReportDocument } from '../shared/hostApi.ts';
 import { APP_SCHEME } from './appProtocol.ts';
 import { LOCKED_DOWN_WEB_PREFERENCES } from './windowOptions.ts';
 

@@ -4,7 +4,7 @@
  */
 import { BrowserWindow, type WebContents } from 'electron';
 import { ReportPages, reportPageHeaders, reportPrintOptions, reportWindowOptions, printFailureMessage } from './reportPrinting.ts';
-import type { ReportDocument } from '../preload/api.ts';
+import type { ReportDocument } from '../shared/hostApi.ts';
 
 const pages = new ReportPages();
 

@@ -6,7 +6,7 @@ import { readFile, stat } from 'node:fs/promises';
 import { basename } from 'node:path';
 import { formatProblem, parseScenarioText } from '../engine/index.ts';
 import { writeFileAtomic } from '../shared/atomicWrite.ts';
-import type { OpenedScenarioFile } from '../preload/api.ts';
+import type { OpenedScenarioFile } from '../shared/hostApi.ts';
 
 /** Largest scenario file accepted, bytes (a 16-band scenario is ~30 kB; common practice margin). */
 export const MAX_SCENARIO_BYTES = 5 * 1024 * 1024;

@@ -3,7 +3,7 @@
  * to the main process over the channels in api.ts; main validates every message again.
  */
 import { contextBridge, ipcRenderer } from 'electron';
-import { HOST_GLOBAL, IPC, MENU_COMMANDS, type MenuCommand, type MixwiseHost } from './api.ts';
+import { HOST_GLOBAL, IPC, MENU_COMMANDS, type MenuCommand, type MixwiseHost } from '../shared/hostApi.ts';
 
 const host: MixwiseHost = {
   kind: 'desktop',

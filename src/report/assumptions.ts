@@ -4,16 +4,7 @@
  * hospital ratios left out of the file are the program defaults, named as such with their source.
  * The only figures derived here are summaries of inputs (totals, mean contacts per person).
  */
-import {
-  DEFAULT_ADMISSION_DELAY,
-  DEFAULT_ICU_PATIENT_WARD_STAY,
-  DEFAULT_ICU_STAY,
-  DEFAULT_WARD_STAY,
-  defaultIcuShareOfAdmissions,
-  defaultInfectionHospitalisationRatio,
-} from '../engine/healthcare/defaults.ts';
-import type { ScenarioResults } from '../engine/results.ts';
-import type { Delay, Scenario } from '../engine/scenario.ts';
+import { DEFAULT_ADMISSION_DELAY, DEFAULT_ICU_PATIENT_WARD_STAY, DEFAULT_ICU_STAY, DEFAULT_WARD_STAY, defaultIcuShareOfAdmissions, defaultInfectionHospitalisationRatio, type ScenarioResults, type Delay, type Scenario } from '../engine/index.ts';
 import { fitRecordRows } from './fitRecord.ts';
 import { print } from './numberFormat.ts';
 import type { BandTable, ParameterRow } from './reportTypes.ts';

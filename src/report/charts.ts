@@ -3,8 +3,7 @@
  * deaths per day, ICU beds in use against capacity when present) and profiles by age band
  * (attack rate, deaths). Totals over bands are plain sums of the engine's by-band series.
  */
-import { totalOverBands } from '../engine/bandTotals.ts';
-import type { OptionResults, ScenarioResults } from '../engine/results.ts';
+import { totalOverBands, type OptionResults, type ScenarioResults } from '../engine/index.ts';
 import { formatAxisValue, print } from './numberFormat.ts';
 import { optionStyle, type OptionStyle } from './palette.ts';
 import { lineChartSvg, type ChartSeries } from './svgLineChart.ts';

@@ -5,8 +5,7 @@
  * and the measures divided out. Nothing is re-computed here: every figure is the record's.
  * An interval end stored as null is unbounded ("no bound").
  */
-import { fitRecordMatches, type FitRecord } from '../engine/fitting/index.ts';
-import type { Scenario } from '../engine/scenario.ts';
+import { fitRecordMatches, type FitRecord, type Scenario } from '../engine/index.ts';
 import type { ParameterRow } from './reportTypes.ts';
 import { print } from './numberFormat.ts';
 

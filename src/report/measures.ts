@@ -6,7 +6,7 @@
  * up to but not including `toDay`; the summary prints both ends included (fromDay to toDay - 1),
  * cut to the horizon. Settings not named in a phase stay at 100% of usual contacts.
  */
-import type { AgeFactor, Campaign, Phase, PolicyOption, Scenario } from '../engine/scenario.ts';
+import type { AgeFactor, Campaign, Phase, PolicyOption, Scenario } from '../engine/index.ts';
 import { print } from './numberFormat.ts';
 
 export interface PhaseSummary {

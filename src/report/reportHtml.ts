@@ -4,8 +4,7 @@
  * results and the report settings; the CLI writes it to a file or prints it to PDF, the app can
  * show or print the same string.
  */
-import type { ScenarioResults } from '../engine/results.ts';
-import type { Scenario } from '../engine/scenario.ts';
+import type { ScenarioResults, Scenario } from '../engine/index.ts';
 import { bandTable, parameterRows } from './assumptions.ts';
 import { CAUTION, CAUTION_PARAGRAPHS, MODEL_LIMITS } from './cautions.ts';
 import { byAgeCharts, curveCharts, type ReportChart, type StyleOf } from './charts.ts';

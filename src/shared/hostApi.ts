@@ -4,7 +4,7 @@
  *
  * This file holds types and channel names only, so main, preload and renderer can all import it.
  */
-import type { Orientation as ReportOrientation, Paper as ReportPaper } from '../report/reportTypes.ts';
+import type { Orientation as ReportOrientation, Paper as ReportPaper } from '../report/index.ts';
 
 /** A scenario file the user picked: its display name, where it lives (desktop only) and its text. */
 export interface OpenedScenarioFile {

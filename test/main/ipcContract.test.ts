@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { checkIpcMessage, isIpcChannel } from '../../src/main/ipcContract.ts';
-import { IPC } from '../../src/preload/api.ts';
+import { IPC } from '../../src/shared/hostApi.ts';
 
 const app = { frameUrl: 'mixwise://app/index.html', isMainFrame: true };
 

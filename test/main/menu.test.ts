@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import type { MenuItemConstructorOptions } from 'electron';
 import { menuTemplate } from '../../src/main/menu.ts';
-import type { MenuCommand } from '../../src/preload/api.ts';
+import type { MenuCommand } from '../../src/shared/hostApi.ts';
 
 function items(template: MenuItemConstructorOptions[], label: string): MenuItemConstructorOptions[] {
   const menu = template.find((m) => m.label === label);

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { checkIpcMessage, MAX_CSV_CHARS, MAX_REPORT_HTML_CHARS } from '../../src/main/ipcContract.ts';
-import { IPC } from '../../src/preload/api.ts';
+import { IPC } from '../../src/shared/hostApi.ts';
 
 const app = { frameUrl: 'mixwise://app/index.html', isMainFrame: true };
 const html = '<!DOCTYPE html>\n<html lang="en"><head><style>body{}</style></head><body><p>R 2.50</p></body></html>\n';

@@ -11,7 +11,7 @@ import {
   reportWindowOptions,
 } from '../../src/main/reportPrinting.ts';
 import { isAllowedNavigation } from '../../src/main/contentSecurity.ts';
-import type { MenuCommand } from '../../src/preload/api.ts';
+import type { MenuCommand } from '../../src/shared/hostApi.ts';
 
 describe('the hidden report window', () => {
   it('runs no script and no Node, sandboxed, isolated, hidden, without a preload', () => {

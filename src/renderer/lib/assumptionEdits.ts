@@ -5,15 +5,7 @@
  * Each edit helper returns new values and leaves its input untouched; the view commits the
  * resulting scenario through the workspace (validated, one undo step).
  */
-import type { Campaign, Delay, Healthcare, Scenario } from '../../engine/scenario.ts';
-import {
-  DEFAULT_ADMISSION_DELAY,
-  DEFAULT_ICU_PATIENT_WARD_STAY,
-  DEFAULT_ICU_STAY,
-  DEFAULT_WARD_STAY,
-  defaultIcuShareOfAdmissions,
-  defaultInfectionHospitalisationRatio,
-} from '../../engine/healthcare/defaults.ts';
+import { DEFAULT_ADMISSION_DELAY, DEFAULT_ICU_PATIENT_WARD_STAY, DEFAULT_ICU_STAY, DEFAULT_WARD_STAY, defaultIcuShareOfAdmissions, defaultInfectionHospitalisationRatio, type Campaign, type Delay, type Healthcare, type Scenario } from '../../engine/index.ts';
 import { HOSPITAL_DEFAULT_SOURCE } from '../../report/assumptions.ts';
 import { screen } from '../../report/numberFormat.ts';
 import { groupLabel } from './priorityOrder.ts';

@@ -4,8 +4,7 @@
  * "compare orders" (one copy of an option per template). Names follow the scenario rules:
  * campaign names are unique and options refer to a campaign by name.
  */
-import type { Scenario } from '../../engine/scenario.ts';
-import { ADULT_AGE_YEARS } from '../../engine/vaccination/orders.ts';
+import { ADULT_AGE_YEARS, type Scenario } from '../../engine/index.ts';
 import { freeColourSlot } from './palette.ts';
 import { uniqueOptionName, type WorkingDocument } from './scenarioEdits.ts';
 

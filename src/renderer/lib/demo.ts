@@ -1,7 +1,6 @@
 /** The bundled demo scenario (resources/demo-scenario.json), validated like any opened file. */
 import demoText from '../../../resources/demo-scenario.json?raw';
-import { parseScenarioText, formatProblem } from '../../engine/index.ts';
-import type { Scenario } from '../../engine/scenario.ts';
+import { parseScenarioText, formatProblem, type Scenario } from '../../engine/index.ts';
 
 export const DEMO_FILE_NAME = 'demo-scenario.json';
 

@@ -4,18 +4,7 @@
  * `orders` answers with the vaccination order templates and the coverage needed for R < 1; it
  * waits until no run is going, so it never delays the redraw after an edit (newest request only).
  */
-import {
-  compareWithReference,
-  coverageNeededForRBelowOne,
-  ORDER_TEMPLATES,
-  prepareScenario,
-  priorityFromTemplate,
-  reciprocityBySetting,
-  referenceIndexOf,
-  simulateOption,
-} from '../../engine/index.ts';
-import type { OptionResults } from '../../engine/results.ts';
-import type { Scenario } from '../../engine/scenario.ts';
+import { compareWithReference, coverageNeededForRBelowOne, ORDER_TEMPLATES, prepareScenario, priorityFromTemplate, reciprocityBySetting, referenceIndexOf, simulateOption, type OptionResults, type Scenario } from '../../engine/index.ts';
 import { transferablesOf, type EngineReply, type EngineRequest, type OrdersInfo } from './engineProtocol.ts';
 
 let newestRunId = -1;

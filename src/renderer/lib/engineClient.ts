@@ -3,8 +3,7 @@
  * the callback only for the newest run; older replies are ignored. `orders(scenario, option)`
  * does the same for vaccination order templates and coverage needed (newest request wins).
  */
-import type { Scenario } from '../../engine/scenario.ts';
-import type { ScenarioResults } from '../../engine/results.ts';
+import type { Scenario, ScenarioResults } from '../../engine/index.ts';
 import type { EngineReply, EngineRequest, OrdersInfo } from './engineProtocol.ts';
 
 export interface EngineCallbacks {

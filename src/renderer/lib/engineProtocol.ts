@@ -10,9 +10,7 @@
  * `priorityFromTemplate`) and the coverage needed for R < 1 under one option's campaign
  * (`coverageNeededForRBelowOne`); replies carry their `requestId`, the newest one wins.
  */
-import type { Scenario } from '../../engine/scenario.ts';
-import type { ScenarioResults } from '../../engine/results.ts';
-import type { CoverageNeeded, OrderTemplate } from '../../engine/vaccination/index.ts';
+import type { Scenario, ScenarioResults, CoverageNeeded, OrderTemplate } from '../../engine/index.ts';
 
 export type EngineRequest =
   | { type: 'run'; runId: number; scenario: Scenario }

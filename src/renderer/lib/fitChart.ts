@@ -4,7 +4,7 @@
  * with the fitting window shaded and pickable by dragging (windowPicker.ts).
  */
 import type { ChartConfiguration } from 'chart.js';
-import type { DailyCounts, FittedPoint } from '../../engine/fitting/index.ts';
+import type { DailyCounts, FittedPoint } from '../../engine/index.ts';
 import { windowPicker } from './windowPicker.ts';
 
 export interface CountsChartInput {

@@ -3,20 +3,7 @@
  * (counts, window, count model, measures option) in, the fit, R0 and measures ratio out; and the
  * scenario edit that applies the fitted R0 with its record. No model math of its own.
  */
-import {
-  fitGrowth,
-  fitRecordOf,
-  measuresRatioForOption,
-  r0FromFit,
-  type CountModel,
-  type DailyCounts,
-  type FitRecord,
-  type GrowthFit,
-  type MeasuresRatio,
-  type R0FromFit,
-} from '../../engine/fitting/index.ts';
-import { periodsOf } from '../../engine/index.ts';
-import type { Scenario } from '../../engine/scenario.ts';
+import { fitGrowth, fitRecordOf, measuresRatioForOption, r0FromFit, periodsOf, type CountModel, type DailyCounts, type FitRecord, type GrowthFit, type MeasuresRatio, type R0FromFit, type Scenario } from '../../engine/index.ts';
 
 export interface FitRequest {
   counts: DailyCounts;

@@ -4,8 +4,7 @@
  * last day") and the rule with any other field it names put the same way. Paths the table does not
  * know fall back to their last field name spelt out in words.
  */
-import type { Problem } from '../../engine/validation.ts';
-import type { Scenario } from '../../engine/scenario.ts';
+import type { Problem, Scenario } from '../../engine/index.ts';
 
 /** Field names as words, for labels and for fields named inside a rule. */
 const FIELD_WORDS: Record<string, string> = {

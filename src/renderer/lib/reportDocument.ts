@@ -2,10 +2,9 @@
  * The report and its exports for the scenario on screen, built with the same code as
  * `mixwise report` (src/report), so the app, the CLI and a printout agree to the character.
  */
-import type { ScenarioResults } from '../../engine/results.ts';
-import type { Scenario } from '../../engine/scenario.ts';
+import type { ScenarioResults, Scenario } from '../../engine/index.ts';
 import { buildReportHtml, dailySeriesCsv, optionsTableCsv, scenarioFingerprint, shortFingerprint, type Orientation, type Paper } from '../../report/index.ts';
-import type { ReportDocument } from '../../preload/api.ts';
+import type { ReportDocument } from '../../shared/hostApi.ts';
 import { APP_VERSION } from './appVersion.ts';
 
 export interface ReportSettings {

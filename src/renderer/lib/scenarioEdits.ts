@@ -5,7 +5,7 @@
  * The working document is the validated scenario plus one colour slot per option, moved
  * along with its option so an option keeps its colour when others are added, moved or deleted.
  */
-import type { Phase, PolicyOption, Scenario } from '../../engine/scenario.ts';
+import type { Phase, PolicyOption, Scenario } from '../../engine/index.ts';
 import { freeColourSlot } from './palette.ts';
 
 export interface WorkingDocument {

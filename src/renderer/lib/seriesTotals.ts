@@ -2,8 +2,7 @@
  * Daily series summed over age bands, for the Curves view. The engine stores series
  * band-major per day (`[d * bands + i]`, see results.ts); this only adds the bands up.
  */
-import { totalOverBands } from '../../engine/bandTotals.ts';
-import type { DailySeries, OptionResults } from '../../engine/results.ts';
+import { totalOverBands, type DailySeries, type OptionResults } from '../../engine/index.ts';
 
 export type CurveMetric = 'prevalence' | 'incidence' | 'deaths' | 'rt' | 'wardOccupancy' | 'icuOccupancy';
 

@@ -2,7 +2,7 @@
  * Keyboard shortcuts: the same keys in the desktop app (where the menu shows them) and in
  * web mode. Ctrl on Windows/Linux, Cmd on macOS.
  */
-import type { MenuCommand } from '../../preload/api.ts';
+import type { MenuCommand } from '../../shared/hostApi.ts';
 
 export interface KeyPress {
   key: string;

@@ -4,7 +4,7 @@
  * browser's local storage, since a web page cannot reopen a path on disk.
  */
 import { parseScenarioText, formatProblem } from '../../engine/index.ts';
-import type { MixwiseHost, OpenedScenarioFile, RecentFile, SaveOutcome } from '../../preload/api.ts';
+import type { MixwiseHost, OpenedScenarioFile, RecentFile, SaveOutcome } from '../../shared/hostApi.ts';
 
 const RECENT_KEY = 'mixwise.recent';
 const RECENT_COPY = (key: string) => `mixwise.recent.${key}`;

@@ -3,8 +3,7 @@
  * window and the fit survive switching views. Fitting runs in a worker (fitClient.ts); the
  * newest request's answer is the one kept.
  */
-import { dailyTotals, OVERDISPERSION_THRESHOLD, type CaseSeries, type CountModel, type DailyCounts } from '../../engine/fitting/index.ts';
-import type { Scenario } from '../../engine/scenario.ts';
+import { dailyTotals, OVERDISPERSION_THRESHOLD, type CaseSeries, type CountModel, type DailyCounts, type Scenario } from '../../engine/index.ts';
 import { FitClient } from '../lib/fitClient.ts';
 import type { FitOutcome } from '../lib/fitFromCounts.ts';
 

@@ -4,7 +4,7 @@
  * until the engine has caught up with the latest edit, so what is printed always belongs to the
  * scenario on screen, and reports the outcome in the app's notice line.
  */
-import type { MenuCommand, SaveOutcome } from '../../preload/api.ts';
+import type { MenuCommand, SaveOutcome } from '../../shared/hostApi.ts';
 import { host } from '../lib/host.ts';
 import { buildReport, csvText, exportFileName, type CsvExport } from '../lib/reportDocument.ts';
 import { reportSettings } from './reportSettings.svelte.ts';

@@ -4,9 +4,7 @@
  * Components read this and call its actions; they do no model math.
  */
 import { tick } from 'svelte';
-import type { Scenario } from '../../engine/scenario.ts';
-import type { ScenarioResults } from '../../engine/results.ts';
-import { validateScenario, parseScenarioText, formatProblem } from '../../engine/index.ts';
+import { validateScenario, parseScenarioText, formatProblem, type Scenario, type ScenarioResults } from '../../engine/index.ts';
 import { EngineClient } from '../lib/engineClient.ts';
 import { problemInWords } from '../lib/problemWords.ts';
 import type { OrdersInfo } from '../lib/engineProtocol.ts';
@@ -15,7 +13,7 @@ import { documentFor, replaceScenario, type WorkingDocument } from '../lib/scena
 import { clearAutosave, loadAutosave, storeAutosave, type AutosavedCopy } from '../lib/autosave.ts';
 import { DEMO_FILE_NAME, demoScenario } from '../lib/demo.ts';
 import { host } from '../lib/host.ts';
-import type { RecentFile } from '../../preload/api.ts';
+import type { RecentFile } from '../../shared/hostApi.ts';
 
 export type ViewName = 'board' | 'curves' | 'by-age' | 'assumptions' | 'report';
 export type Notice = { kind: 'info' | 'error'; text: string };
