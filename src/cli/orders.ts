@@ -143,8 +143,9 @@ async function orders(io: Output, words: readonly string[]): Promise<ExitCode> {
     return EXIT_CODES.ok;
   }
   const args = parseOrdersArgs(words);
-  const scenario = loadScenarioOrComplain(io, args.file);
-  if (scenario === null) return EXIT_CODES.invalidScenario;
+  const loaded = loadScenarioOrComplain(io, args.file);
+  if (loaded === null) return EXIT_CODES.invalidScenario;
+  const { scenario } = loaded;
   const job = prepareJob(scenario, args);
   const settings = Object.fromEntries(Object.entries(args.settings).filter(([, v]) => v !== undefined)) as Partial<OrderSearchSettings>;
   const result = await searchOrders(job, inThreadEvaluator(job), settings);

@@ -4,7 +4,7 @@
  * ranges may be joined with "+", e.g. "3+5-6"). The search orders these groups; a group's bands
  * share its doses in proportion to the people eligible, as in any campaign (dosePlan.ts).
  */
-import type { Problem } from '../validation.ts';
+import type { Problem } from '../problems.ts';
 import type { Campaign } from './schema.ts';
 
 /** Band groups from a spec like "0-3,4-9,10-12,13-15"; null when the text is not of that form. */

@@ -5,7 +5,7 @@
  */
 import { prepareScenario } from '../prepare.ts';
 import type { Scenario } from '../scenario.ts';
-import type { Problem } from '../validation.ts';
+import type { Problem } from '../problems.ts';
 import { ORDER_OUTCOMES, type OrderOutcome, type OrderSearchJob } from './orderEvaluation.ts';
 import { groupProblems } from './orderGroups.ts';
 
