@@ -22,8 +22,10 @@ export type NumberStyle = 'screen' | 'print';
  * - `days`: a duration in days (one decimal unless whole)
  * - `day`: a day number of the horizon (day 0 = the scenario's first day)
  * - `ratio`: a dimensionless ratio such as R, two decimals (a unit such as "per 1,000 doses" may follow)
+ * - `date`: a day number of the horizon written as its calendar date (ISO 8601) when the scenario's
+ *   start date is known (`ValueContext`), else as a day
  */
-export type ValueKind = 'count' | 'change' | 'fraction' | 'ratePerDay' | 'days' | 'day' | 'ratio';
+export type ValueKind = 'count' | 'change' | 'fraction' | 'ratePerDay' | 'days' | 'day' | 'ratio' | 'date';
 
 /** Shown for a number that is not finite. */
 export const NOT_A_NUMBER = '–';
@@ -164,8 +166,26 @@ export interface ValueFormat {
   digits?: number;
 }
 
+/** What some kinds need besides the number. */
+export interface ValueContext {
+  /** The scenario's day 0 as an ISO 8601 date ("2026-03-01"), for `date`. */
+  startDate?: string | null;
+}
+
+const DAY_MS = 86_400_000;
+
+/** The calendar date of day `day` after `startDate` (both ISO 8601, UTC); null when the start date is not a date. */
+export function dateOfDay(startDate: string, day: number): string | null {
+  const m = /^(\d{4})-(\d{2})-(\d{2})$/.exec(startDate);
+  if (m === null || !Number.isInteger(day)) return null;
+  const start = Date.UTC(Number(m[1]), Number(m[2]) - 1, Number(m[3]));
+  const back = new Date(start);
+  if (back.getUTCMonth() !== Number(m[2]) - 1 || back.getUTCDate() !== Number(m[3])) return null;
+  return new Date(start + day * DAY_MS).toISOString().slice(0, 10);
+}
+
 /** A number written by its kind in the given style. */
-export function formatValue(format: ValueFormat, value: number, style: NumberStyle): string {
+export function formatValue(format: ValueFormat, value: number, style: NumberStyle, context: ValueContext = {}): string {
   const { kind, unit = '', digits = 2 } = format;
   const f = numberFormatter(style);
   if (!Number.isFinite(value)) return NOT_A_NUMBER;
@@ -185,6 +205,10 @@ export function formatValue(format: ValueFormat, value: number, style: NumberSty
       return f.day(value);
     case 'ratio':
       return withUnit(f.decimal(value, digits));
+    case 'date': {
+      const date = context.startDate == null ? null : dateOfDay(context.startDate, value);
+      return date ?? f.day(value);
+    }
   }
 }
 
@@ -196,10 +220,10 @@ export interface Interval {
 }
 
 /** An interval written like its value: screen "1,234 persons (1,100–1,400)", print "1,234 (1,100 to 1,400)". */
-export function formatInterval(format: ValueFormat, interval: Interval, style: NumberStyle): string {
-  const bare = (x: number) => formatValue({ ...format, unit: '' }, x, style);
+export function formatInterval(format: ValueFormat, interval: Interval, style: NumberStyle, context: ValueContext = {}): string {
+  const bare = (x: number) => formatValue({ ...format, unit: '' }, x, style, context);
   const range = style === 'screen' ? `${bare(interval.low)}–${bare(interval.high)}` : `${bare(interval.low)} to ${bare(interval.high)}`;
-  return `${formatValue(format, interval.median, style)} (${range})`;
+  return `${formatValue(format, interval.median, style, context)} (${range})`;
 }
 
 /** A short chart axis value: 0, 950, 12k, 1.5M (same in both styles). */

@@ -9,7 +9,7 @@
  * Pure TypeScript: no DOM, no Node.
  */
 import type { BedDemand, OptionResults, ScenarioResults } from '../engine/index.ts';
-import { screen, type NumberStyle, type ValueFormat, formatValue, numberFormatter, type NumberFormatter } from './numberFormat.ts';
+import { screen, type NumberStyle, type ValueContext, type ValueFormat, formatValue, numberFormatter, type NumberFormatter } from './numberFormat.ts';
 
 export type OutcomeGroup = 'spread' | 'hospital' | 'vaccination';
 
@@ -555,13 +555,13 @@ export function isReferenceCell(entry: Outcome, o: OptionResults, results: Scena
  * "reference" for a comparison in the reference's own column, else the value in the style (with its unit
  * on screen).
  */
-export function outcomeText(entry: Outcome, o: OptionResults, results: ScenarioResults, style: NumberStyle): string {
+export function outcomeText(entry: Outcome, o: OptionResults, results: ScenarioResults, style: NumberStyle, context: ValueContext = {}): string {
   if (!appliesTo(entry, o)) return NOT_APPLICABLE[style];
   if (isReferenceCell(entry, o, results)) return REFERENCE_CELL;
   if (entry.text !== undefined) return entry.text(o, numberFormatter(style));
   const value = entry.read(o, results);
   if (value === null) return entry.whenNull ?? NOT_APPLICABLE[style];
-  return formatValue(entry, value, style);
+  return formatValue(entry, value, style, context);
 }
 
 /** The number a row is shaded by (its own, or that of `shadeBy`). */

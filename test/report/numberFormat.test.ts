@@ -56,6 +56,15 @@ describe('formatValue by kind', () => {
     expect(formatInterval({ kind: 'fraction' }, { median: 0.5, low: 0.45, high: 0.55 }, 'print')).toBe('50.0% (45.0% to 55.0%)');
   });
 
+  it('writes a day of the horizon as its date when the start date is known', () => {
+    expect(formatValue({ kind: 'date' }, 45, 'screen', { startDate: '2026-02-01' })).toBe('2026-03-18');
+    expect(formatValue({ kind: 'date' }, 0, 'print', { startDate: '2024-02-29' })).toBe('2024-02-29');
+    expect(formatValue({ kind: 'date' }, 365, 'print', { startDate: '2023-03-01' })).toBe('2024-02-29');
+    expect(formatValue({ kind: 'date' }, 45, 'screen')).toBe('day 45');
+    expect(formatValue({ kind: 'date' }, 45, 'print', { startDate: '2026-02-30' })).toBe('45');
+    expect(formatInterval({ kind: 'date' }, { median: 10, low: 5, high: 20 }, 'print', { startDate: '2026-12-25' })).toBe('2027-01-04 (2026-12-30 to 2027-01-14)');
+  });
+
   it('shortens axis values', () => {
     expect([0, 950, 12_345, 1_500_000, 0.25].map(formatAxisValue)).toEqual(['0', '950', '12k', '1.5M', '0.25']);
   });
