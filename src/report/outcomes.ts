@@ -11,13 +11,14 @@
 import type { BedDemand, OptionResults, ScenarioResults } from '../engine/index.ts';
 import { screen, type NumberStyle, type ValueContext, type ValueFormat, formatValue, numberFormatter, type NumberFormatter } from './numberFormat.ts';
 
-export type OutcomeGroup = 'spread' | 'hospital' | 'vaccination';
+export type OutcomeGroup = 'spread' | 'hospital' | 'vaccination' | 'measures';
 
 /** Group headings, in the order groups are shown. */
 export const OUTCOME_GROUP_TITLES: Record<OutcomeGroup, string> = {
   spread: 'Spread and deaths',
   hospital: 'Hospital and ICU',
   vaccination: 'Vaccination',
+  measures: 'Measures and what they cost',
 };
 
 /**
@@ -26,8 +27,10 @@ export const OUTCOME_GROUP_TITLES: Record<OutcomeGroup, string> = {
  * - `campaign`: the option has a vaccination campaign
  * - `constantMeasures`: the option's measures never change (final-size check)
  * - `surgeCapacity`: the scenario gives an ICU surge capacity
+ * - `measures`: the option has at least one phase
+ * - `triggers`: the option has at least one phase switched by a trigger
  */
-export type Requirement = 'healthcare' | 'campaign' | 'constantMeasures' | 'surgeCapacity';
+export type Requirement = 'healthcare' | 'campaign' | 'constantMeasures' | 'surgeCapacity' | 'measures' | 'triggers';
 
 /**
  * Where an outcome is shown besides CSV and JSON, which carry every outcome:
@@ -507,7 +510,91 @@ export const OUTCOMES: readonly Outcome[] = [
     shownOn: ['board'],
     read: (o) => o.vaccination?.dosesToNonSusceptibleShare ?? null,
   },
+  {
+    key: 'rUnderMeasures',
+    column: 'r_under_measures',
+    label: 'R under measures',
+    printLabel: 'R when the first phase starts',
+    hint: 'R with each phase\'s measures and the susceptibles on the day it starts (in brackets: at full susceptibility)',
+    group: 'measures',
+    kind: 'ratio',
+    lowerIsBetter: true,
+    requires: ['measures'],
+    shownOn: ['board', 'table', 'terminal'],
+    read: (o) => firstPhase(o)?.rAtPhaseStart ?? null,
+    text: (o, f) =>
+      phasesByStart(o)
+        .map((p) => `${f.style === 'screen' ? 'from ' : ''}day ${p.startDay}: ${f.r(p.rAtPhaseStart)} (${f.r(p.rMeasuresOnly)})`)
+        .join(f.style === 'screen' ? ' · ' : '; '),
+  },
+  {
+    key: 'daysUnderMeasures',
+    column: 'days_under_measures',
+    label: 'Days under measures',
+    printLabel: 'Days under measures',
+    hint: 'Days on which any phase\'s measures were in force, fixed or switched by a trigger',
+    group: 'measures',
+    kind: 'days',
+    lowerIsBetter: null,
+    requires: ['measures'],
+    shownOn: ['board', 'table', 'terminal'],
+    read: (o) => o.daysUnderMeasures,
+  },
+  {
+    key: 'switchesOn',
+    column: 'switches_on',
+    label: 'Times switched on',
+    printLabel: 'Times triggered measures came into force',
+    hint: 'How often the triggers put their measures in force over the horizon (all triggered phases)',
+    group: 'measures',
+    kind: 'count',
+    lowerIsBetter: null,
+    requires: ['triggers'],
+    shownOn: ['board', 'table', 'terminal'],
+    read: (o) => o.triggers.reduce((acc, t) => acc + t.switchesOn, 0),
+  },
+  {
+    key: 'daysInForce',
+    column: 'days_in_force',
+    label: 'Days triggered measures held',
+    printLabel: 'Days triggered measures were in force',
+    hint: 'Days on which measures switched by a trigger were in force (all triggered phases together, days counted once per phase)',
+    group: 'measures',
+    kind: 'days',
+    lowerIsBetter: null,
+    requires: ['triggers'],
+    shownOn: ['board', 'table'],
+    read: (o) => o.triggers.reduce((acc, t) => acc + t.daysInForce, 0),
+  },
+  {
+    key: 'contactsRemoved',
+    column: 'contacts_removed_full_closure_days',
+    label: 'Contacts removed',
+    printLabel: 'Contacts removed, full-closure days by setting',
+    hint: 'Usual contacts the measures removed over the horizon, by setting, counted as days of complete closure of that setting (negative: contacts added)',
+    group: 'measures',
+    kind: 'days',
+    lowerIsBetter: null,
+    requires: ['measures'],
+    shownOn: ['board', 'table', 'terminal'],
+    read: (o) => Object.values(o.measureBurden.fullClosureDays).reduce((acc, x) => acc + x, 0),
+    text: (o, f) => {
+      const parts = Object.entries(o.measureBurden.fullClosureDays)
+        .filter(([, x]) => Math.abs(x) >= 0.05)
+        .map(([setting, x]) => `${setting} ${f.days(x)}`);
+      return parts.length === 0 ? f.days(0) : parts.join(f.style === 'screen' ? ' · ' : '; ');
+    },
+  },
 ];
+
+/** The option's phases in the order they start. */
+function phasesByStart(o: OptionResults): OptionResults['rByPhase'] {
+  return [...o.rByPhase].sort((a, b) => a.startDay - b.startDay);
+}
+
+function firstPhase(o: OptionResults): OptionResults['rByPhase'][number] | undefined {
+  return phasesByStart(o)[0];
+}
 
 /** The outcome with this key; throws for an unknown key (a programming error). */
 export function outcome(key: string): Outcome {
@@ -527,6 +614,10 @@ function holds(requirement: Requirement, o: OptionResults): boolean {
       return o.finalSize !== null;
     case 'surgeCapacity':
       return o.healthcare !== null && o.healthcare.icu.surgeCapacityBeds !== null;
+    case 'measures':
+      return o.rByPhase.length > 0;
+    case 'triggers':
+      return o.triggers.length > 0;
   }
 }
 

@@ -22,7 +22,15 @@ describe('catalogue of outcomes', () => {
   it('every entry reads a finite value from the demo results for some option it applies to', () => {
     // The demo plus one option strict enough to shrink, so halving time has a value too.
     const strict = { name: 'Strict', description: '', phases: [{ fromDay: 0, toDay: scenario.horizonDays, settingMultipliers: { home: 0.3, school: 0, work: 0.1, other: 0.1 }, ageFactors: [], caseIsolation: 0 }] };
-    const results = runScenario({ ...scenario, options: [...scenario.options, strict] });
+    // And one whose measures are switched by a trigger, for the trigger outcomes.
+    const triggered = {
+      name: 'When ICU fills',
+      description: '',
+      phases: [
+        { fromDay: 0, toDay: scenario.horizonDays, trigger: { quantity: 'icuOccupancy' as const, onAbove: 50, offBelow: 20, minimumDaysOn: 14, lagDays: 3 }, settingMultipliers: { school: 0 }, ageFactors: [], caseIsolation: 0 },
+      ],
+    };
+    const results = runScenario({ ...scenario, options: [...scenario.options, strict, triggered] });
     for (const e of OUTCOMES) {
       const values = results.options.filter((o) => appliesTo(e, o)).map((o) => e.read(o, results));
       expect(values.some((v) => v !== null && Number.isFinite(v)), e.key).toBe(true);
