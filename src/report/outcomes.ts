@@ -520,7 +520,7 @@ export const OUTCOMES: readonly Outcome[] = [
     kind: 'ratio',
     lowerIsBetter: true,
     requires: ['measures'],
-    shownOn: ['board', 'table', 'terminal'],
+    shownOn: ['board', 'table'],
     read: (o) => firstPhase(o)?.rAtPhaseStart ?? null,
     text: (o, f) =>
       phasesByStart(o)
@@ -537,7 +537,7 @@ export const OUTCOMES: readonly Outcome[] = [
     kind: 'days',
     lowerIsBetter: null,
     requires: ['measures'],
-    shownOn: ['board', 'table', 'terminal'],
+    shownOn: ['board', 'table'],
     read: (o) => o.daysUnderMeasures,
   },
   {
@@ -550,7 +550,7 @@ export const OUTCOMES: readonly Outcome[] = [
     kind: 'count',
     lowerIsBetter: null,
     requires: ['triggers'],
-    shownOn: ['board', 'table', 'terminal'],
+    shownOn: ['board', 'table'],
     read: (o) => o.triggers.reduce((acc, t) => acc + t.switchesOn, 0),
   },
   {
@@ -576,7 +576,7 @@ export const OUTCOMES: readonly Outcome[] = [
     kind: 'days',
     lowerIsBetter: null,
     requires: ['measures'],
-    shownOn: ['board', 'table', 'terminal'],
+    shownOn: ['board', 'table'],
     read: (o) => Object.values(o.measureBurden.fullClosureDays).reduce((acc, x) => acc + x, 0),
     text: (o, f) => {
       const parts = Object.entries(o.measureBurden.fullClosureDays)
