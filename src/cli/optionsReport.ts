@@ -8,13 +8,19 @@
  * Units: rates per day, times in days, prevalence, attack rates and shares as fractions 0-1,
  * counts in persons (beds, doses).
  */
-import type { ScenarioResults } from '../engine/index.ts';
+import type { OptionResults, ScenarioResults } from '../engine/index.ts';
 import { BAND_OUTCOMES, OUTCOMES } from '../report/outcomes.ts';
 import { CAUTION } from './caution.ts';
 import { reciprocityRows, type ReciprocityRow } from './reciprocity-notes.ts';
 
-/** One option: `name`, then one member per outcome key (number or null) and per by-band key (array). */
-export type OptionRow = { name: string } & Record<string, string | number | null | number[]>;
+/**
+ * One option: `name`, one member per outcome key (number or null) and per by-band key (array),
+ * and the structured details of its measures: `triggers` (what each triggered phase did, with the
+ * stretches it was in force), `rByPhase` and `measureBurden` (see the engine's `OptionResults`).
+ */
+export type OptionRow = { name: string } & Record<string, string | number | null | number[] | MeasureDetails[keyof MeasureDetails]>;
+
+type MeasureDetails = Pick<OptionResults, 'triggers' | 'rByPhase' | 'measureBurden'>;
 
 export interface OptionsReport {
   title: string;
@@ -38,6 +44,9 @@ export function optionsReport(results: ScenarioResults): OptionsReport {
       const row: OptionRow = { name: o.name };
       for (const e of OUTCOMES) row[e.key] = e.read(o, results);
       for (const b of BAND_OUTCOMES) row[b.key] = b.read(o, results);
+      row.triggers = o.triggers;
+      row.rByPhase = o.rByPhase;
+      row.measureBurden = o.measureBurden;
       return row;
     }),
     reciprocity: reciprocityRows(results.reciprocity, results.ageBands),
