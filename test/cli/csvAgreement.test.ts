@@ -42,8 +42,8 @@ describe('catalogue keys are the JSON keys of mixwise run --format json', () => 
   const json = JSON.parse(runCli('run', DEMO, '--format', 'json').stdout);
   const results = runScenario(demoScenario());
 
-  it('each option has name, every outcome key and every by-band key, and nothing else', () => {
-    const expected = ['name', ...OUTCOMES.map((e) => e.key), ...BAND_OUTCOMES.map((b) => b.key)].sort();
+  it('each option has name, every outcome key, every by-band key and its measure details, and nothing else', () => {
+    const expected = ['name', ...OUTCOMES.map((e) => e.key), ...BAND_OUTCOMES.map((b) => b.key), 'triggers', 'rByPhase', 'measureBurden'].sort();
     for (const option of json.options) expect(Object.keys(option).sort()).toEqual(expected);
   });
 
