@@ -5,7 +5,7 @@
 import { describe, expect, it } from 'vitest';
 import { runScenario } from '../../src/engine/run.ts';
 import { correctReciprocity } from '../../src/engine/contacts.ts';
-import { growthRateFromR, reproductionNumberFromGrowthRate } from '../../src/engine/growth.ts';
+import { doublingTimeDays, generationIntervalTransform, growthRateFromR, halvingTimeDays, reproductionNumberFromGrowthRate } from '../../src/engine/growth.ts';
 import { oneBand, twoBand, valid } from '../helpers/scenarios.ts';
 
 /** Root of z = 1 - exp(-R0 z) in (0, 1) by bisection: an independent solve of the relation. */
@@ -105,6 +105,25 @@ describe('growth rate and R (Wallinga & Lipsitch 2007, Proc R Soc B 274:599)', (
     const o = runScenario(oneBand({ r0: 2.5 })).options[0];
     expect(o.growthRatePerDay).toBeCloseTo(0.146989, 5);
     expect(o.doublingTimeDays).toBeCloseTo(4.7156, 3);
+  });
+
+  it('M(r) near r = 0 has slope minus the mean generation interval, T_E + T_I (k_I + 1) / (2 k_I)', () => {
+    // M is the Laplace transform of the generation-interval density, so M(0) = 1 and M'(0) = -T_G.
+    // For SEIR with Erlang(k_I) infectious periods T_G = T_E + T_I (k_I + 1) / (2 k_I)
+    // (Svensson 2007, Math Biosci 208:300; from memory): 3 + 5 x 4/6 = 6.333 d for k_I = 3.
+    // Central difference at |r T_I| = 5e-7, where the engine uses its series near 0.
+    const periods = { latentPeriodDays: 3, infectiousPeriodDays: 5, latentStages: 2, infectiousStages: 3 };
+    const h = 1e-7;
+    expect(generationIntervalTransform(0, periods)).toBe(1);
+    const slope = (generationIntervalTransform(h, periods) - generationIntervalTransform(-h, periods)) / (2 * h);
+    expect(slope).toBeCloseTo(-(3 + (5 * 4) / 6), 6);
+  });
+
+  it('neither doubling nor halving time without growth or decline', () => {
+    expect(doublingTimeDays(0)).toBeNull();
+    expect(halvingTimeDays(0)).toBeNull();
+    expect(doublingTimeDays(-0.1)).toBeNull();
+    expect(halvingTimeDays(0.1)).toBeNull();
   });
 
   it('the simulated epidemic grows at that rate in its early phase', () => {
