@@ -67,6 +67,29 @@ describe('final size with vaccinated fractions (two-band example of shared/CHECK
   });
 });
 
+describe('deaths and admissions with protection against infection and against severe outcomes', () => {
+  // Efficacy against an outcome is the cut in a protected person's risk of that outcome, infection
+  // included: (1 - e_D) = (1 - e_I) f_D, so an infected protected person dies with relative risk
+  // f_D = (1 - e_D) / (1 - e_I) (the usual reading of efficacy as 1 - relative risk; Halloran,
+  // Longini & Struchiner 2010, Design and Analysis of Vaccine Studies, Springer; from memory). Split the final size
+  // of the relation above into unvaccinated and protected infections and weight the latter by f.
+  // Admission efficacy not given: it is taken equal to the efficacy against death (schema default).
+  it('leaky, e_I = 0.7, e_D = 0.9: deaths and admissions by the split final size', () => {
+    const A = [[1.8, 0.9], [0.3, 1.2]]; // beta D C with beta = 0.02, D = 5
+    const coverage = [0.3, 0.4];
+    const base = twoBandVaccinated([0.3, 0.4], 0.7, 'leaky', { efficacyAgainstDeath: 0.9 });
+    const s = valid({ ...base, healthcare: { infectionHospitalisationRatio: [0.01, 0.05], capacity: { wardBeds: 10, icuBeds: 2 } } } as ScenarioInput);
+    const o = runScenario(s).options[1];
+    const z = vaccinatedFinalSize(A, coverage, 0.7, 'leaky');
+    const lambda = A.map((row) => row[0] * z[0] + row[1] * z[1]);
+    const f = (1 - 0.9) / (1 - 0.7);
+    const weighted = lambda.map((L, i) => s.populationPersons[i] * ((1 - coverage[i]) * -Math.expm1(-L) + f * coverage[i] * -Math.expm1(-0.3 * L)));
+    const ifr = s.severity.infectionFatalityRatio;
+    expect(o.deaths / (ifr[0] * weighted[0] + ifr[1] * weighted[1])).toBeCloseTo(1, 4);
+    expect(o.healthcare!.admissions / (0.01 * weighted[0] + 0.05 * weighted[1])).toBeCloseTo(1, 4);
+  });
+});
+
 describe('herd-immunity threshold with vaccination (Anderson & May 1991, Infectious Diseases of Humans)', () => {
   it('uniform, perfect vaccination needs 1 - 1/R0 of the population for R = 1', () => {
     const s = twoBandVaccinated([1, 1], 1, 'leaky');
