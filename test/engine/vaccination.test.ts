@@ -71,8 +71,9 @@ describe('deaths and admissions with protection against infection and against se
   // Efficacy against an outcome is the cut in a protected person's risk of that outcome, infection
   // included: (1 - e_D) = (1 - e_I) f_D, so an infected protected person dies with relative risk
   // f_D = (1 - e_D) / (1 - e_I) (the usual reading of efficacy as 1 - relative risk; Halloran,
-  // Longini & Struchiner 2010, Design and Analysis of Vaccine Studies, Springer; from memory). Split the final size
-  // of the relation above into unvaccinated and protected infections and weight the latter by f.
+  // Longini & Struchiner 2010, Design and Analysis of Vaccine Studies, Springer; from memory).
+  // Split the final size of the relation above into unvaccinated and protected infections and
+  // weight the latter by f.
   // Admission efficacy not given: it is taken equal to the efficacy against death (schema default).
   it('leaky, e_I = 0.7, e_D = 0.9: deaths and admissions by the split final size', () => {
     const A = [[1.8, 0.9], [0.3, 1.2]]; // beta D C with beta = 0.02, D = 5
