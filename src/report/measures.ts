@@ -6,15 +6,57 @@
  * up to but not including `toDay`; the summary prints both ends included (fromDay to toDay - 1),
  * cut to the horizon. Settings not named in a phase stay at 100% of usual contacts.
  */
-import type { AgeFactor, Campaign, Phase, PolicyOption, Scenario } from '../engine/index.ts';
+import type { AgeFactor, Campaign, Phase, PolicyOption, Scenario, ScenarioResults, Trigger, TriggerOutcome, TriggerQuantity } from '../engine/index.ts';
 import { print } from './numberFormat.ts';
 
 export interface PhaseSummary {
-  /** "Days 21 to 76 (56 days)" or "Whole horizon (days 0 to 364)". */
+  /** "Days 21 to 76 (56 days)" or "Whole horizon (days 0 to 364)"; with a trigger, the window it may act in. */
   when: string;
   /** "school contacts 0% of usual (closed); home contacts 120% of usual". */
   what: string;
+  /** For a triggered phase: its rule in words ("in force when ICU occupancy exceeds 80 beds; ..."); else null. */
+  rule: string | null;
+  /** For a triggered phase with results: what it did ("switched on 2 times, first on day 45, in force 63 days"); else null. */
+  fired: string | null;
 }
+
+/** What a trigger watches, in words, with the unit of its thresholds. */
+const QUANTITY_WORDS: Record<TriggerQuantity, { name: string; unit: string }> = {
+  infectiousPer100k: { name: 'the number of people infectious', unit: 'per 100,000 population' },
+  dailyInfectionsPer100k: { name: 'new infections a day', unit: 'per 100,000 population' },
+  dailyAdmissions: { name: 'hospital admissions a day', unit: 'admissions' },
+  wardOccupancy: { name: 'ward occupancy', unit: 'beds' },
+  icuOccupancy: { name: 'ICU occupancy', unit: 'beds' },
+};
+
+/**
+ * A trigger's rule in words, e.g. "in force when ICU occupancy exceeds 80 beds, lifted when it
+ * falls below 40 beds, decided each day with a 3-day lag, at least 14 days at a time".
+ */
+export function triggerRuleText(t: Trigger): string {
+  const { name, unit } = QUANTITY_WORDS[t.quantity];
+  const value = (x: number) => `${print.decimal(x, Number.isInteger(x) ? 0 : 1)} ${unit}`;
+  const lag = t.lagDays === 0 ? 'taking effect the same day' : `with a ${t.lagDays}-day lag`;
+  const minimum = t.minimumDaysOn > 0 ? `, at least ${t.minimumDaysOn} days at a time` : '';
+  return `in force when ${name} exceeds ${value(t.onAbove)}, lifted when it falls below ${value(t.offBelow)}, decided each day ${lag}${minimum}`;
+}
+
+/** What a trigger did over the horizon, in words. */
+export function triggerFiredText(t: TriggerOutcome): string {
+  if (t.switchesOn === 0) return 'never came into force';
+  const times = t.switchesOn === 1 ? 'once' : `${t.switchesOn} times`;
+  return `came into force ${times}, first on day ${t.firstOnDay}, in force ${t.daysInForce} ${t.daysInForce === 1 ? 'day' : 'days'} in all`;
+}
+
+/**
+ * The trigger rule (src/engine/triggers.ts), in words for the report: how measures switched by
+ * what the epidemic does are decided.
+ */
+export const TRIGGER_RULE_WORDS =
+  'Measures with a trigger are decided once a day, on the monitored quantity read that day (daily counts and bed occupancy: those of the day before). ' +
+  'When they are not in force and the quantity is above the switch-on level, they come into force after the lag; ' +
+  'when they are in force, have been for at least the minimum number of days, and the quantity is below the switch-off level, they lift after the lag. ' +
+  'While a decided change waits for its lag, no new decision is taken. Outside the phase\'s days they are not in force.';
 
 export interface OptionSummary {
   name: string;
@@ -85,12 +127,21 @@ export function campaignText(campaign: Campaign, bandLabels: readonly string[]):
   );
 }
 
-export function optionSummary(option: PolicyOption, scenario: Scenario, isReference: boolean): OptionSummary {
+/** `triggers`: the option's results, to say what each trigger did (omit for the rule alone). */
+export function optionSummary(option: PolicyOption, scenario: Scenario, isReference: boolean, triggers: readonly TriggerOutcome[] = []): OptionSummary {
   const labels = scenario.ageBands.map((b) => b.label);
   const phases: PhaseSummary[] = [];
-  for (const phase of [...option.phases].sort((a, b) => a.fromDay - b.fromDay)) {
+  const ordered = option.phases.map((phase, index) => ({ phase, index })).sort((a, b) => a.phase.fromDay - b.phase.fromDay);
+  for (const { phase, index } of ordered) {
     const when = phaseWhenText(phase, scenario.horizonDays);
-    if (when !== null) phases.push({ when, what: phaseMeasuresText(phase, labels) });
+    if (when === null) continue;
+    const outcome = triggers.find((t) => t.phase === index);
+    phases.push({
+      when: phase.trigger === undefined ? when : `${when}, when triggered`,
+      what: phaseMeasuresText(phase, labels),
+      rule: phase.trigger === undefined ? null : triggerRuleText(phase.trigger),
+      fired: outcome === undefined ? null : triggerFiredText(outcome),
+    });
   }
   const campaign = option.vaccinationCampaign === undefined ? undefined : scenario.vaccinationCampaigns.find((c) => c.name === option.vaccinationCampaign);
   return {
@@ -103,7 +154,7 @@ export function optionSummary(option: PolicyOption, scenario: Scenario, isRefere
   };
 }
 
-/** Summaries of every option, in the scenario's order. */
-export function optionSummaries(scenario: Scenario, referenceIndex: number): OptionSummary[] {
-  return scenario.options.map((o, k) => optionSummary(o, scenario, k === referenceIndex));
+/** Summaries of every option, in the scenario's order; with `results`, what each trigger did. */
+export function optionSummaries(scenario: Scenario, referenceIndex: number, results?: ScenarioResults): OptionSummary[] {
+  return scenario.options.map((o, k) => optionSummary(o, scenario, k === referenceIndex, results?.options[k]?.triggers ?? []));
 }

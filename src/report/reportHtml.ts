@@ -11,7 +11,7 @@ import { byAgeCharts, curveCharts, type ReportChart, type StyleOf } from './char
 import { escapeMarkup as esc } from './escape.ts';
 import { FIT_SOURCE, R0_CHANGED_AFTER_FIT } from './fitRecord.ts';
 import { shortFingerprint } from './fingerprint.ts';
-import { optionSummaries, type OptionSummary } from './measures.ts';
+import { optionSummaries, type OptionSummary, TRIGGER_RULE_WORDS } from './measures.ts';
 import { columnGroups, optionsTable, type OptionsTable } from './optionsTable.ts';
 import { optionStyleOf } from './palette.ts';
 import { printCss } from './printCss.ts';
@@ -37,7 +37,9 @@ function summaryHtml(summary: OptionSummary, index: number, styleOf: StyleOf): s
   const measures =
     summary.noMeasures !== null
       ? `<p>${esc(summary.noMeasures)}</p>`
-      : `<ul>${summary.phases.map((p) => `<li><strong>${esc(p.when)}:</strong> ${esc(p.what)}.</li>`).join('')}</ul>`;
+      : `<ul>${summary.phases
+          .map((p) => `<li><strong>${esc(p.when)}:</strong> ${esc(p.what)}${p.rule === null ? '' : ` — ${esc(p.rule)}`}.${p.fired === null ? '' : ` It ${esc(p.fired)}.`}</li>`)
+          .join('')}</ul>`;
   const vaccination = summary.vaccination === null ? '' : `<p><strong>Vaccination:</strong> ${esc(summary.vaccination)}.</p>`;
   return `<section class="option-summary"><h3>${legendSwatchSvg(styleOf(index))} ${esc(summary.name)}${tag}</h3>${description}${measures}${vaccination}</section>`;
 }
@@ -101,7 +103,7 @@ export function buildReportHtml(scenario: Scenario, results: ScenarioResults, me
   const table = optionsTable(results);
   const legend = legendHtml(results, styleOf);
   const charts = (list: ReportChart[]) => list.map((c) => chartHtml(c, legend)).join('');
-  const summaries = optionSummaries(scenario, results.referenceIndex).map((summary, k) => summaryHtml(summary, k, styleOf)).join('');
+  const summaries = optionSummaries(scenario, results.referenceIndex, results).map((summary, k) => summaryHtml(summary, k, styleOf)).join('');
   return `<!DOCTYPE html>
 <html lang="en">
 <head>
@@ -129,6 +131,7 @@ export function buildReportHtml(scenario: Scenario, results: ScenarioResults, me
 <h2>1. The options</h2>
 <p class="notes">Day numbers count from day 0, the first day of the scenario; both ends of a period are included. Contacts not mentioned stay as usual (100%).</p>
 ${summaries}
+${scenario.options.some((o) => o.phases.some((p) => p.trigger !== undefined)) ? `<p class="notes">${esc(TRIGGER_RULE_WORDS)}</p>` : ''}
 </section>
 <section id="table">
 <h2>2. Policy options table</h2>

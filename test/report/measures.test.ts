@@ -1,7 +1,13 @@
 import { describe, expect, it } from 'vitest';
 import type { PolicyOption } from '../../src/engine/scenario.ts';
+import { runScenario } from '../../src/engine/index.ts';
 import { optionSummaries, optionSummary, phaseWhenText } from '../../src/report/measures.ts';
+import { buildReportHtml } from '../../src/report/reportHtml.ts';
+import { demoScenario } from '../helpers/demo.ts';
+import type { ReportMeta } from '../../src/report/reportTypes.ts';
 import { demo } from './helpers.ts';
+
+const META: ReportMeta = { appVersion: '1.2.3', generatedAt: new Date(2031, 4, 6, 7, 8), fingerprint: 'f'.repeat(64), paper: 'A4', orientation: 'portrait' };
 
 describe('option summaries', () => {
   const { scenario, results } = demo();
@@ -10,8 +16,8 @@ describe('option summaries', () => {
   it('describe each demo option in plain words', () => {
     expect(summaries.map((s) => s.name)).toEqual(scenario.options.map((o) => o.name));
     expect(summaries[0]).toMatchObject({ isReference: true, phases: [], noMeasures: 'No contact measures: contacts as usual for all 365 days.', vaccination: null });
-    expect(summaries[1].phases).toEqual([{ when: 'Days 21 to 76 (56 days)', what: 'school contacts 0% of usual (closed); home contacts 120% of usual' }]);
-    expect(summaries[2].phases).toEqual([{ when: 'Whole horizon (days 0 to 364)', what: 'work contacts 50% of usual' }]);
+    expect(summaries[1].phases).toEqual([{ when: 'Days 21 to 76 (56 days)', what: 'school contacts 0% of usual (closed); home contacts 120% of usual', rule: null, fired: null }]);
+    expect(summaries[2].phases).toEqual([{ when: 'Whole horizon (days 0 to 364)', what: 'work contacts 50% of usual', rule: null, fired: null }]);
     expect(summaries[3].phases[0].what).toBe('work contacts of ages 70-74, 75+ at 25% of usual; other contacts of ages 70-74, 75+ at 25% of usual');
     expect(summaries[1].isReference).toBe(false);
     const vaccinated = summaries.find((s, k) => scenario.options[k].vaccinationCampaign !== undefined);
@@ -31,9 +37,51 @@ describe('option summaries', () => {
     };
     const s = optionSummary(option, scenario, false);
     expect(s.phases).toEqual([
-      { when: 'Day 10 only', what: 'no change to contacts' },
-      { when: 'Days 300 to 364 (65 days)', what: 'other contacts 33.3% of usual; infectiousness of cases cut by 30% (isolation)' },
+      { when: 'Day 10 only', what: 'no change to contacts', rule: null, fired: null },
+      { when: 'Days 300 to 364 (65 days)', what: 'other contacts 33.3% of usual; infectiousness of cases cut by 30% (isolation)', rule: null, fired: null },
     ]);
     expect(phaseWhenText(option.phases[0], 365)).toBeNull();
   });
 });
+
+describe('triggered phases in words', () => {
+  const scenario = demoForTriggers();
+  const results = runScenario(scenario);
+  const summary = optionSummaries(scenario, 0, results)[1];
+
+  it('says the rule the way an agency writes it', () => {
+    expect(summary.phases[0].when).toBe('Whole horizon (days 0 to 364), when triggered');
+    expect(summary.phases[0].rule).toBe('in force when ICU occupancy exceeds 80 beds, lifted when it falls below 40 beds, decided each day with a 3-day lag, at least 14 days at a time');
+    expect(summary.phases[0].what).toBe('school contacts 0% of usual (closed); work contacts 60% of usual');
+  });
+
+  it('says when it fired, from the engine results', () => {
+    const t = results.options[1].triggers[0];
+    expect(t.switchesOn).toBeGreaterThan(0);
+    expect(summary.phases[0].fired).toBe(`came into force ${t.switchesOn === 1 ? 'once' : `${t.switchesOn} times`}, first on day ${t.firstOnDay}, in force ${t.daysInForce} days in all`);
+  });
+
+  it('prints the rule and what happened in the report', () => {
+    const html = buildReportHtml(scenario, results, META);
+    expect(html).toContain('in force when ICU occupancy exceeds 80 beds');
+    expect(html).toContain('Measures with a trigger are decided once a day');
+    expect(html).toContain(`first on day ${results.options[1].triggers[0].firstOnDay}`);
+  });
+});
+
+function demoForTriggers() {
+  const demo = demoScenario();
+  return {
+    ...demo,
+    options: [
+      demo.options[0],
+      {
+        name: 'Close schools when ICU fills',
+        description: '',
+        phases: [
+          { fromDay: 0, toDay: 365, trigger: { quantity: 'icuOccupancy' as const, onAbove: 80, offBelow: 40, minimumDaysOn: 14, lagDays: 3 }, settingMultipliers: { school: 0, work: 0.6 }, ageFactors: [], caseIsolation: 0 },
+        ],
+      },
+    ],
+  };
+}
