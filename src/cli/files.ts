@@ -5,6 +5,7 @@
  */
 import { readFileSync } from 'node:fs';
 import { writeFileAtomicSync } from '../shared/atomicWrite.ts';
+import { decodeUtf8Text } from '../shared/textFile.ts';
 import { CliError, EXIT_CODES } from './errors.ts';
 
 /** Plain words for the file-system error codes a user is likely to meet. */
@@ -29,12 +30,17 @@ function reason(err: unknown): string {
   }
 }
 
+/** The text of a UTF-8 file (a byte order mark dropped); any other encoding is refused in one line. */
 export function readTextFile(path: string): string {
+  let bytes: Uint8Array;
   try {
-    return readFileSync(path, 'utf8');
+    bytes = readFileSync(path);
   } catch (err) {
     throw new CliError(`cannot read ${path}: ${reason(err)}`, EXIT_CODES.fileError);
   }
+  const decoded = decodeUtf8Text(bytes);
+  if (!decoded.ok) throw new CliError(`${path} ${decoded.rule}`, EXIT_CODES.invalidScenario);
+  return decoded.text;
 }
 
 /** Writes `content` (text as UTF-8, or bytes such as a PDF) to `path` atomically. */

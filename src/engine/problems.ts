@@ -22,7 +22,12 @@ export function formatPath(path: readonly PropertyKey[]): string {
   return out === '' ? '(file)' : out;
 }
 
-/** One line per problem: `path rule, got value`. */
+/** Control characters from the file (in names quoted in a rule or value) as \uXXXX escapes. */
+function escapeControls(text: string): string {
+  return text.replace(/[\u0000-\u001f\u007f]/g, (c) => `\\u${c.charCodeAt(0).toString(16).padStart(4, '0')}`);
+}
+
+/** One line per problem: `path rule, got value`; never a raw control character. */
 export function formatProblem(p: Problem): string {
-  return p.value === undefined ? `${p.path} ${p.rule}` : `${p.path} ${p.rule}, got ${p.value}`;
+  return escapeControls(p.value === undefined ? `${p.path} ${p.rule}` : `${p.path} ${p.rule}, got ${p.value}`);
 }

@@ -6,6 +6,25 @@
  * path, the rule and the value (see `validation.ts`).
  */
 import { z } from 'zod';
+import {
+  MAX_AGE_YEARS,
+  MAX_BEDS,
+  MAX_CONTACT_MULTIPLIER,
+  MAX_CONTACTS_PER_DAY,
+  MAX_DAY_NUMBER,
+  MAX_DELAY_MEAN_DAYS,
+  MAX_DELAY_SHAPE,
+  MAX_DOUBLING_TIME_DAYS,
+  MAX_PERIOD_DAYS,
+  MAX_POPULATION_PERSONS,
+  MAX_R0,
+  MAX_RELATIVE_FACTOR,
+  MIN_DELAY_SHAPE,
+  MIN_DOUBLING_TIME_DAYS,
+  MIN_PERIOD_DAYS,
+  aboveZero,
+  between,
+} from './limits.ts';
 import { campaignSchema } from './vaccination/schema.ts';
 import { fitRecordSchema } from './fitting/fitRecordSchema.ts';
 import { lifeTableSchema } from './lifeExpectancy.ts';
@@ -16,48 +35,51 @@ export const SCENARIO_FORMAT = 'mixwise-scenario';
 export const SCENARIO_VERSION = 1;
 
 const nonNegative = z.number({ message: 'must be a number' }).min(0, { message: 'must be >= 0' });
-const positive = z.number({ message: 'must be a number' }).gt(0, { message: 'must be > 0' });
 const fraction = z.number({ message: 'must be a number' }).min(0, { message: 'must be a fraction between 0 and 1' }).max(1, { message: 'must be a fraction between 0 and 1' });
-const wholeDay = z.number().int({ message: 'must be a whole number of days' }).min(0, { message: 'must be >= 0' });
+const wholeDay = z
+  .number()
+  .int({ message: 'must be a whole number of days' })
+  .min(0, { message: 'must be >= 0' })
+  .max(MAX_DAY_NUMBER, { message: `must be at most ${MAX_DAY_NUMBER} (a day number)` });
 
 /** One age band: a label for display and the lower age bound in years. */
 export const ageBandSchema = z.object({
   label: z.string().min(1, { message: 'must not be empty' }),
-  lowerAgeYears: nonNegative,
+  lowerAgeYears: between(0, MAX_AGE_YEARS, 'years'),
 });
 
 /** A setting (home, school, work, other, or the scenario's own) and its contact matrix. */
 export const settingSchema = z.object({
   name: z.string().min(1, { message: 'must not be empty' }),
   /** C^s_ij: mean daily contacts one person in band i has with people in band j here (contacts per day). */
-  contactsPerDay: z.array(z.array(nonNegative)),
+  contactsPerDay: z.array(z.array(between(0, MAX_CONTACTS_PER_DAY, 'contacts per day'))),
 });
 
 /** Transmission is fixed by R0, or by an observed doubling time before any measure. */
 export const transmissionSchema = z.discriminatedUnion('kind', [
-  z.object({ kind: z.literal('r0'), r0: positive }),
-  z.object({ kind: z.literal('doublingTime'), doublingTimeDays: positive }),
+  z.object({ kind: z.literal('r0'), r0: aboveZero(MAX_R0, '') }),
+  z.object({ kind: z.literal('doublingTime'), doublingTimeDays: between(MIN_DOUBLING_TIME_DAYS, MAX_DOUBLING_TIME_DAYS, 'days') }),
 ]);
 
 /** A delay distribution: gamma with the given mean (days) and shape (1 = exponential). */
 export const delaySchema = z.object({
-  meanDays: nonNegative,
-  shape: positive.default(1),
+  meanDays: between(0, MAX_DELAY_MEAN_DAYS, 'days'),
+  shape: between(MIN_DELAY_SHAPE, MAX_DELAY_SHAPE, '').default(1),
 });
 
 export const diseaseSchema = z.object({
   transmission: transmissionSchema,
   /** Mean latent (exposed, not yet infectious) period, days. */
-  latentPeriodDays: positive,
+  latentPeriodDays: between(MIN_PERIOD_DAYS, MAX_PERIOD_DAYS, 'days'),
   /** Mean infectious period D, days. */
-  infectiousPeriodDays: positive,
+  infectiousPeriodDays: between(MIN_PERIOD_DAYS, MAX_PERIOD_DAYS, 'days'),
   /** Erlang stage counts: change timing and growth, not R0. */
   latentStages: z.number().int().min(1).max(20).default(1),
   infectiousStages: z.number().int().min(1).max(20).default(1),
   /** u_i, relative susceptibility by band (1 = reference). */
-  relativeSusceptibility: z.array(nonNegative).optional(),
+  relativeSusceptibility: z.array(between(0, MAX_RELATIVE_FACTOR, '')).optional(),
   /** h_j, relative infectiousness by band (1 = reference). */
-  relativeInfectiousness: z.array(nonNegative).optional(),
+  relativeInfectiousness: z.array(between(0, MAX_RELATIVE_FACTOR, '')).optional(),
   source: z.string().default(''),
   /** Optional: how R0 was fitted to daily case counts (see src/engine/fitting/fitRecordSchema.ts). */
   fitRecord: fitRecordSchema.optional(),
@@ -73,7 +95,7 @@ export const severitySchema = z.object({
 
 export const initialStateSchema = z.object({
   /** Persons infected on day 0, by band. */
-  infectedPersons: z.array(nonNegative),
+  infectedPersons: z.array(between(0, MAX_POPULATION_PERSONS, 'persons')),
   /** Where the initial infections sit: just infected (latent) or already infectious. */
   infectedCompartment: z.enum(['latent', 'infectious']).default('latent'),
   /** Fraction of each band immune on day 0 (prior infection), 0-1. */
@@ -86,7 +108,7 @@ export const ageFactorSchema = z.object({
   /** Band indices (0-based) the factor applies to. */
   bands: z.array(z.number().int().min(0)).min(1, { message: 'must name at least one band' }),
   /** Multiplier on those bands' contacts in that setting, 0 = none. */
-  factor: nonNegative,
+  factor: between(0, MAX_CONTACT_MULTIPLIER, ''),
 });
 
 /** What a trigger watches (see src/engine/triggers.ts for how each is read on a decision day). */
@@ -120,7 +142,7 @@ export const phaseSchema = z.object({
   /** Optional: switch these measures by a monitored quantity instead of on every day of the phase. */
   trigger: triggerSchema.optional(),
   /** Multiplier by setting name; a setting not named stays at 1. 0 = closed, >1 allowed. */
-  settingMultipliers: z.record(z.string(), nonNegative).default({}),
+  settingMultipliers: z.record(z.string(), between(0, MAX_CONTACT_MULTIPLIER, '')).default({}),
   ageFactors: z.array(ageFactorSchema).default([]),
   /** Fraction by which the infectiousness of cases is cut by isolation, 0-1. */
   caseIsolation: fraction.default(0),
@@ -136,10 +158,10 @@ export const policyOptionSchema = z.object({
 
 /** Beds available. Surge levels, when given, count all beds at full surge (not extra beds). */
 export const bedCapacitySchema = z.object({
-  wardBeds: nonNegative,
-  icuBeds: nonNegative,
-  wardSurgeBeds: nonNegative.optional(),
-  icuSurgeBeds: nonNegative.optional(),
+  wardBeds: between(0, MAX_BEDS, 'beds'),
+  icuBeds: between(0, MAX_BEDS, 'beds'),
+  wardSurgeBeds: between(0, MAX_BEDS, 'beds').optional(),
+  icuSurgeBeds: between(0, MAX_BEDS, 'beds').optional(),
 });
 
 /**
@@ -175,7 +197,7 @@ export const scenarioSchema = z.object({
   notes: z.string().default(''),
   ageBands: z.array(ageBandSchema).min(1, { message: 'must list at least one age band' }),
   /** Persons by band: 0 (an empty band) or at least 1 (smaller counts make 1/N overflow). */
-  populationPersons: z.array(nonNegative.refine((x) => x <= 0 || x >= 1, { message: 'must be 0 or at least 1 person' })),
+  populationPersons: z.array(between(0, MAX_POPULATION_PERSONS, 'persons').refine((x) => x <= 0 || x >= 1, { message: 'must be 0 or at least 1 person' })),
   settings: z.array(settingSchema).min(1, { message: 'must list at least one setting' }),
   disease: diseaseSchema,
   severity: severitySchema,

@@ -9,7 +9,9 @@ import type { z } from 'zod';
 import { type Calibration, calibrateTransmission, calibrationProblem } from './calibration.ts';
 import { healthcareProblems } from './healthcare/validation.ts';
 import { lifeTableProblems } from './lifeExpectancy.ts';
+import { jsonValueProblems, readJsonText } from './jsonText.ts';
 import { formatPath, formatProblem, type Problem } from './problems.ts';
+import { isReservedName, strictInputProblems } from './strictInput.ts';
 import { vaccinationProblems } from './vaccination/validation.ts';
 import { uncertaintyProblems } from './uncertainty/validation.ts';
 import { HOSPITAL_TRIGGER_QUANTITIES, scenarioSchema, type Scenario, type Trigger } from './scenario.ts';
@@ -19,6 +21,7 @@ export type ValidationResult = { ok: true; scenario: Scenario; calibration: Cali
 
 function showValue(v: unknown): string | undefined {
   if (v === undefined) return undefined;
+  if (typeof v === 'number' && !Number.isFinite(v)) return String(v);
   const text = JSON.stringify(v);
   if (text === undefined) return String(v);
   return text.length > 60 ? `${text.slice(0, 57)}...` : text;
@@ -43,6 +46,7 @@ const TYPE_WORDS: Record<string, string> = {
 };
 
 function ruleOf(issue: z.core.$ZodIssue, value: unknown): string {
+  if (issue.code === 'invalid_type' && typeof value === 'number' && !Number.isFinite(value)) return 'must be a finite number';
   if (issue.code === 'invalid_type') {
     const kind = TYPE_WORDS[issue.expected] ?? issue.expected;
     return value === undefined ? `is required (${kind})` : `must be ${kind}`;
@@ -50,7 +54,6 @@ function ruleOf(issue: z.core.$ZodIssue, value: unknown): string {
   if (issue.code === 'invalid_value') {
     return `must be ${issue.values.map((v) => JSON.stringify(v)).join(' or ')}`;
   }
-  if (issue.code === 'unrecognized_keys') return `has unknown field(s) ${issue.keys.join(', ')}`;
   if (issue.code === 'invalid_union') return /^must /.test(issue.message) ? issue.message : 'does not match any allowed form';
   const msg = issue.message;
   if (/^must |^is |^has /.test(msg)) return msg;
@@ -59,8 +62,9 @@ function ruleOf(issue: z.core.$ZodIssue, value: unknown): string {
   return msg.charAt(0).toLowerCase() + msg.slice(1);
 }
 
+/** zod's issues as problems; unknown fields are left to strictInput.ts, which names each one. */
 function structuralProblems(input: unknown, issues: readonly z.core.$ZodIssue[]): Problem[] {
-  return issues.map((issue) => {
+  return issues.filter((issue) => issue.code !== 'unrecognized_keys').map((issue) => {
     const value = valueAt(input, issue.path);
     return { path: formatPath(issue.path), rule: ruleOf(issue, value), value: showValue(value) };
   });
@@ -101,6 +105,9 @@ export function crossFieldProblems(s: Scenario): Problem[] {
   s.settings.forEach((setting, k) => {
     if (settingNames.has(setting.name)) {
       problems.push({ path: `settings[${k}].name`, rule: 'must be unique', value: JSON.stringify(setting.name) });
+    }
+    if (isReservedName(setting.name)) {
+      problems.push({ path: `settings[${k}].name`, rule: 'must not be a name JavaScript objects reserve (constructor, toString, __proto__ ...); choose another', value: JSON.stringify(setting.name) });
     }
     settingNames.add(setting.name);
     const m = setting.contactsPerDay;
@@ -161,6 +168,8 @@ export function crossFieldProblems(s: Scenario): Problem[] {
         }
         f.bands.forEach((b, bi) => {
           if (b >= n) problems.push({ path: `${at}.ageFactors[${a}].bands[${bi}]`, rule: `must be a band index below ${n}`, value: String(b) });
+          const first = f.bands.indexOf(b);
+          if (first !== bi) problems.push({ path: `${at}.ageFactors[${a}].bands[${bi}]`, rule: `must not repeat a band (already at bands[${first}]; the factor would apply twice)`, value: String(b) });
         });
       });
     });
@@ -175,26 +184,35 @@ export function crossFieldProblems(s: Scenario): Problem[] {
   return problems;
 }
 
-/** Validates parsed JSON as a scenario, listing every problem. */
+/** Problems listed one per line; the rest are counted in one closing line. */
+export const MAX_LISTED_PROBLEMS = 30;
+
+function listed(problems: Problem[]): Problem[] {
+  if (problems.length <= MAX_LISTED_PROBLEMS) return problems;
+  const rest = problems.length - MAX_LISTED_PROBLEMS;
+  return [...problems.slice(0, MAX_LISTED_PROBLEMS), { path: '(file)', rule: `has ${rest} more problem${rest === 1 ? '' : 's'} not listed` }];
+}
+
+/** Validates parsed JSON as a scenario, listing every problem (at most MAX_LISTED_PROBLEMS, and a count of the rest). */
 export function validateScenario(input: unknown): ValidationResult {
+  // Depth and non-finite numbers first: the steps below may recurse into what they are given.
+  const valueProblems = jsonValueProblems(input);
+  if (valueProblems.length > 0) return { ok: false, problems: valueProblems };
   const parsed = scenarioSchema.safeParse(input);
-  if (!parsed.success) return { ok: false, problems: structuralProblems(input, parsed.error.issues) };
+  const strict = strictInputProblems(scenarioSchema, input);
+  if (!parsed.success) return { ok: false, problems: listed([...structuralProblems(input, parsed.error.issues), ...strict]) };
+  if (strict.length > 0) return { ok: false, problems: strict };
   const problems = crossFieldProblems(parsed.data);
-  if (problems.length > 0) return { ok: false, problems };
+  if (problems.length > 0) return { ok: false, problems: listed(problems) };
   const calibration = calibrateTransmission(parsed.data);
   const problem = calibrationProblem(parsed.data, calibration);
   return problem !== null ? { ok: false, problems: [problem] } : { ok: true, scenario: parsed.data, calibration };
 }
 
-/** Parses JSON text and validates it; a JSON syntax error is reported as one problem. */
+/** Parses JSON text and validates it; a JSON syntax error is reported as one problem (one line, with its line and column). */
 export function parseScenarioText(text: string): ValidationResult {
-  let json: unknown;
-  try {
-    json = JSON.parse(text.charCodeAt(0) === 0xfeff ? text.slice(1) : text);
-  } catch (err) {
-    return { ok: false, problems: [{ path: '(file)', rule: `must be valid JSON (${(err as Error).message})` }] };
-  }
-  return validateScenario(json);
+  const json = readJsonText(text);
+  return json.ok ? validateScenario(json.value) : json;
 }
 
 /** Thrown by engine entry points handed an unvalidated scenario. */

@@ -6,6 +6,7 @@ import { readFile, stat } from 'node:fs/promises';
 import { basename } from 'node:path';
 import { formatProblem, parseScenarioText } from '../engine/index.ts';
 import { writeFileAtomic } from '../shared/atomicWrite.ts';
+import { decodeUtf8Text } from '../shared/textFile.ts';
 import type { OpenedScenarioFile } from '../shared/hostApi.ts';
 
 /** Largest scenario file accepted, bytes (a 16-band scenario is ~30 kB; common practice margin). */
@@ -15,7 +16,9 @@ export async function readScenarioFile(path: string): Promise<OpenedScenarioFile
   const info = await stat(path);
   if (!info.isFile()) throw new Error(`${path} is not a file`);
   if (info.size > MAX_SCENARIO_BYTES) throw new Error(`${basename(path)} is larger than ${MAX_SCENARIO_BYTES / 1024 / 1024} MB`);
-  return { name: basename(path), path, text: await readFile(path, 'utf8') };
+  const decoded = decodeUtf8Text(await readFile(path));
+  if (!decoded.ok) throw new Error(`${basename(path)} ${decoded.rule}`);
+  return { name: basename(path), path, text: decoded.text };
 }
 
 /** Validation problems of a scenario text, one line each (empty when valid). */

@@ -43,7 +43,7 @@ describe('mixwise check', () => {
     const file = writeTemp('broken.json', '{"format": "mixwise-scenario",');
     const { code, stdout } = runCli('check', file);
     expect(code).toBe(2);
-    expect(stdout).toMatch(/^.*broken\.json: \(file\) must be valid JSON \(.*\)\n.*broken\.json is not valid: 1 problem\n$/);
+    expect(stdout).toMatch(/^.*broken\.json: \(file\) must be valid JSON; at line \d+, column \d+ it [^\n]*\n.*broken\.json is not valid: 1 problem\n$/);
   });
 
   it('accepts a UTF-8 byte-order mark', () => {

@@ -93,7 +93,7 @@ describe.concurrent('bin/mixwise.mjs', () => {
     const file = writeTemp('bad.json', bad);
     const r = await mixwise('check', file);
     expect(r.code).toBe(2);
-    expect(r.stdout).toContain(`${file}: disease.latentPeriodDays must be > 0, got -3`);
+    expect(r.stdout).toContain(`${file}: disease.latentPeriodDays must be at least 0.1 days, got -3`);
     expect(r.stderr).toBe('');
   });
 });

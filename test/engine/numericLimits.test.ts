@@ -11,8 +11,9 @@ import { runScenario } from '../../src/engine/index.ts';
 import { dominantEigenvalue, nextGenerationMatrixInto } from '../../src/engine/ngm.ts';
 import { bandParameters, transmissionMatrixInto } from '../../src/engine/transmission.ts';
 import { demoScenario } from '../helpers/demo.ts';
-import type { Phase, Setting } from '../../src/engine/scenario.ts';
-import { oneBand } from '../helpers/scenarios.ts';
+import type { Phase, ScenarioInput, Setting } from '../../src/engine/scenario.ts';
+import { oneBand, valid } from '../helpers/scenarios.ts';
+import { dosePlan, dosesByBandUntil } from '../../src/engine/vaccination/dosePlan.ts';
 
 const SMALLEST_NORMAL = 2.2250738585072014e-308;
 const isSubnormal = (x: number): boolean => x !== 0 && Math.abs(x) < SMALLEST_NORMAL;
@@ -82,4 +83,34 @@ describe('engine numeric limits', () => {
     const periods = { latentPeriodDays: 3, infectiousPeriodDays: 5, latentStages: 20, infectiousStages: 20 };
     for (const r of [1e-300, 0.5, 2, 1e10, 1e300]) expect(Number.isFinite(growthRateFromR(r, periods))).toBe(true);
   });
+
+  it('gives every dose of a huge daily supply (1e20 a day made the campaign vanish)', () => {
+    // Validation now stops such a supply; the plan must still not lose doses to rounding.
+    const campaign = { ...valid(withCampaign(1e4)).vaccinationCampaigns[0], schedule: [{ fromDay: 30, dosesPerDay: 1e20 }] };
+    const plan = dosePlan(campaign, [1000, 2000], 100);
+    const doses = dosesByBandUntil(plan, 2, 100);
+    // Within rounding of t + 1e-6 days - t (a relative 1e-9).
+    expect(doses[0]).toBeCloseTo(500, 5);
+    expect(doses[1]).toBeCloseTo(1600, 5);
+    expect(plan.every((piece) => piece.toDay > piece.fromDay)).toBe(true);
+  });
 });
+
+function withCampaign(dosesPerDay: number): ScenarioInput {
+  return {
+    format: 'mixwise-scenario',
+    version: 1,
+    title: 'two bands, one campaign',
+    ageBands: [{ label: 'young', lowerAgeYears: 0 }, { label: 'old', lowerAgeYears: 60 }],
+    populationPersons: [1000, 2000],
+    settings: [{ name: 'all', contactsPerDay: [[5, 2], [1, 4]] }],
+    disease: { transmission: { kind: 'r0', r0: 2 }, latentPeriodDays: 3, infectiousPeriodDays: 5 },
+    severity: { infectionFatalityRatio: [0.001, 0.01], source: 'test value' },
+    initialState: { infectedPersons: [1, 1] },
+    horizonDays: 100,
+    options: [{ name: 'vaccinate', vaccinationCampaign: 'c' }],
+    vaccinationCampaigns: [
+      { name: 'c', schedule: [{ fromDay: 30, dosesPerDay }], uptakeCeiling: [0.5, 0.8], efficacyAgainstInfection: 0.5, efficacyAgainstDeath: 0.8, priority: [[1], [0]] },
+    ],
+  };
+}

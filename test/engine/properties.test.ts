@@ -6,12 +6,13 @@
  */
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
+import { MIN_PERIOD_DAYS } from '../../src/engine/limits.ts';
 import { integratorStepsSoFar } from '../../src/engine/dopri5.ts';
 import { runScenario } from '../../src/engine/run.ts';
 import type { Scenario, ScenarioInput } from '../../src/engine/scenario.ts';
 import { validateScenario } from '../../src/engine/validation.ts';
 
-const positive = (max: number) => fc.double({ min: 0.05, max, noNaN: true });
+const positive = (max: number) => fc.double({ min: MIN_PERIOD_DAYS, max, noNaN: true });
 const unit = fc.double({ min: 0, max: 1, noNaN: true });
 
 const scenarioArbitrary = fc.integer({ min: 1, max: 4 }).chain((n) =>

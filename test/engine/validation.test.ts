@@ -41,7 +41,7 @@ describe('validateScenario', () => {
     s.settings[1].contactsPerDay[2][0] = 'many';
     delete s.title;
     expect(lines(s)).toEqual(expect.arrayContaining([
-      'disease.latentPeriodDays must be > 0, got 0',
+      'disease.latentPeriodDays must be at least 0.1 days, got 0',
       'severity.infectionFatalityRatio[0] must be a fraction between 0 and 1, got 1.5',
       'settings[1].contactsPerDay[2][0] must be a number, got "many"',
       'title is required (text)',

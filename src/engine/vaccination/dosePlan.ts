@@ -19,6 +19,9 @@ export interface DosePiece {
   dosesPerDay: Float64Array;
 }
 
+/** Shortest time a priority group takes to serve, days (about 0.1 s; common practice for a time floor). */
+export const MIN_PIECE_DAYS = 1e-6;
+
 /** The campaign's plan over [0, horizonDays]; times without a piece have no doses. */
 export function dosePlan(campaign: Campaign, population: ArrayLike<number>, horizonDays: number): DosePiece[] {
   const n = population.length;
@@ -38,10 +41,13 @@ export function dosePlan(campaign: Campaign, population: ArrayLike<number>, hori
         group++;
         continue;
       }
-      const finish = t + left / supply;
+      // A group is never served faster than MIN_PIECE_DAYS: with a supply of 1e20 a day, t + left / supply
+      // would round back to t and the doses would vanish in a piece of zero length.
+      const duration = Math.max(left / supply, MIN_PIECE_DAYS);
+      const finish = t + duration;
       const end = Math.min(stepEnd, finish);
       const rates = new Float64Array(n);
-      for (const b of bands) rates[b] = (supply * remaining[b]) / left;
+      for (const b of bands) rates[b] = remaining[b] / duration;
       pieces.push({ fromDay: t, toDay: end, dosesPerDay: rates });
       for (const b of bands) remaining[b] = end === finish ? 0 : remaining[b] - rates[b] * (end - t);
       if (end === finish) group++;

@@ -3,14 +3,18 @@
  * options can share one (e.g. the same supply under different contact measures).
  */
 import { z } from 'zod';
+import { MAX_DAY_NUMBER, MAX_DELAY_TO_PROTECTION_DAYS, MAX_DOSES_PER_DAY, between } from '../limits.ts';
 
 const fraction = z.number({ message: 'must be a number' }).min(0, { message: 'must be a fraction between 0 and 1' }).max(1, { message: 'must be a fraction between 0 and 1' });
-const nonNegative = z.number({ message: 'must be a number' }).min(0, { message: 'must be >= 0' });
 
 /** From `fromDay` on (until the next step), `dosesPerDay` doses are given each day. */
 export const doseStepSchema = z.object({
-  fromDay: z.number().int({ message: 'must be a whole number of days' }).min(0, { message: 'must be >= 0' }),
-  dosesPerDay: nonNegative,
+  fromDay: z
+    .number()
+    .int({ message: 'must be a whole number of days' })
+    .min(0, { message: 'must be >= 0' })
+    .max(MAX_DAY_NUMBER, { message: `must be at most ${MAX_DAY_NUMBER} (a day number)` }),
+  dosesPerDay: between(0, MAX_DOSES_PER_DAY, 'doses per day'),
 });
 
 export const campaignSchema = z.object({
@@ -23,7 +27,11 @@ export const campaignSchema = z.object({
    * Mean delay from dose to protection, days (exponentially distributed). At least 1 day: a shorter
    * delay makes the system stiff for the explicit integrator and is not how vaccines work.
    */
-  delayToProtectionDays: z.number({ message: 'must be a number' }).min(1, { message: 'must be at least 1 day' }).default(14),
+  delayToProtectionDays: z
+    .number({ message: 'must be a number' })
+    .min(1, { message: 'must be at least 1 day' })
+    .max(MAX_DELAY_TO_PROTECTION_DAYS, { message: `must be at most ${MAX_DELAY_TO_PROTECTION_DAYS} days` })
+    .default(14),
   /** Vaccine efficacy against infection, fraction 0-1. */
   efficacyAgainstInfection: fraction,
   /** Vaccine efficacy against death, fraction 0-1, at least the efficacy against infection. */

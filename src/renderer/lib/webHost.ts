@@ -3,6 +3,7 @@
  * a download to save, `window.print()` to print. Recent files are copies kept in this
  * browser's local storage, since a web page cannot reopen a path on disk.
  */
+import { decodeUtf8Text } from '../../shared/textFile.ts';
 import { parseScenarioText, formatProblem } from '../../engine/index.ts';
 import type { MixwiseHost, OpenedScenarioFile, RecentFile, SaveOutcome } from '../../shared/hostApi.ts';
 
@@ -52,10 +53,13 @@ function pickFile(accept: string): Promise<File | null> {
   });
 }
 
-/** Reads a file the user picks (shared with CSV import). */
+/** Reads a UTF-8 file the user picks (shared with CSV import); another encoding throws one plain line. */
 export async function pickTextFile(accept: string): Promise<{ name: string; text: string } | null> {
   const file = await pickFile(accept);
-  return file === null ? null : { name: file.name, text: await file.text() };
+  if (file === null) return null;
+  const decoded = decodeUtf8Text(new Uint8Array(await file.arrayBuffer()));
+  if (!decoded.ok) throw new Error(`${file.name} ${decoded.rule}`);
+  return { name: file.name, text: decoded.text };
 }
 
 function download(name: string, blob: Blob): void {

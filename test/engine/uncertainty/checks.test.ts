@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { MIN_PERIOD_DAYS } from '../../../src/engine/limits.ts';
 import {
   distributionQuantile,
   evaluateDrawRange,
@@ -98,14 +99,14 @@ describe('uncertainty: published and structural checks', () => {
   });
 
   it('counts a draw that breaks a rule as failed, names it, and keeps the others', () => {
-    // A latent period from a normal without truncation: draws below 0 break "must be > 0".
+    // A latent period from a normal without truncation: draws below MIN_PERIOD_DAYS break its bound.
     const s = oneBandWith({ draws: 50, seed: 2, parameters: [{ name: 'latentPeriodDays', distribution: { kind: 'normal', mean: 0.5, sd: 0.5 }, source: 'test' }] });
     const p = prepareDraws(s);
-    const expectedFailures = Array.from({ length: 50 }, (_, i) => i).filter((i) => !(distributionQuantile(s.uncertainty!.parameters[0].distribution, (p.hypercube.strata[0][i] + 0.5) / 50) > 0)).length;
+    const expectedFailures = Array.from({ length: 50 }, (_, i) => i).filter((i) => !(distributionQuantile(s.uncertainty!.parameters[0].distribution, (p.hypercube.strata[0][i] + 0.5) / 50) >= MIN_PERIOD_DAYS)).length;
     const r = run(s);
     expect(r.uncertainty.failedDraws).toBeGreaterThan(0);
     expect(Math.abs(r.uncertainty.failedDraws - expectedFailures)).toBeLessThanOrEqual(1); // jitter can move one draw across 0
-    expect(r.uncertainty.notes[0]).toMatch(/^draw \d+ failed and is left out: disease\.latentPeriodDays must be > 0, got -/);
+    expect(r.uncertainty.notes[0]).toMatch(/^draw \d+ failed and is left out: disease\.latentPeriodDays must be at least 0\.1 days, got /);
     expect(r.options[0].intervals.deaths).not.toBeNull();
   });
 });

@@ -33,7 +33,7 @@ describe('uncertainty section: validation', () => {
     expect(problemsWith({ draws: 1.5, parameters: [param('ifrScale')] })).toEqual(['uncertainty.draws must be a whole number, got 1.5']);
     expect(problemsWith({ intervalLevel: 1, parameters: [param('ifrScale')] })).toEqual(['uncertainty.intervalLevel must be between 0 and 1 (exclusive), got 1']);
     expect(problemsWith({ parameters: [] })).toEqual(['uncertainty.parameters must list at least one uncertain parameter, got []']);
-    expect(problemsWith({ parameters: [{ ...param('ifrScale'), spread: 2 }] })).toEqual([expect.stringMatching(/^uncertainty\.parameters\[0\] has unknown field\(s\) spread/)]);
+    expect(problemsWith({ parameters: [{ ...param('ifrScale'), spread: 2 }] })).toEqual([expect.stringMatching(/^uncertainty\.parameters\[0\]\.spread is not a known field/)]);
   });
 
   it('refuses hospital and vaccine scales when the scenario has no such section', () => {

@@ -1,0 +1,119 @@
+/**
+ * Strict reading of scenario files: one test per defect found by feeding Mixwise careless and
+ * hostile files. Each bad file must be refused with one line per problem naming its JSON path.
+ */
+import { describe, expect, it } from 'vitest';
+import { formatProblem, parseScenarioText, validateScenario } from '../../src/engine/index.ts';
+import { MAX_LISTED_PROBLEMS } from '../../src/engine/validation.ts';
+import { closestName } from '../../src/engine/strictInput.ts';
+import { demoJson } from '../cli/helpers.ts';
+
+function problemsOf(input: unknown): string[] {
+  const r = typeof input === 'string' ? parseScenarioText(input) : validateScenario(input);
+  if (r.ok) throw new Error('expected the scenario to be refused');
+  return r.problems.map(formatProblem);
+}
+
+describe('unknown and contradictory fields', () => {
+  it('refuses a misspelt field and suggests the right one (latentStage used to run with one stage)', () => {
+    const s = demoJson();
+    s.disease.latentStage = 20;
+    expect(problemsOf(s)).toEqual(['disease.latentStage is not a known field (did you mean "latentStages"?)']);
+    const t = demoJson();
+    t.Title = 'x';
+    t.options[0].phase = [];
+    expect(problemsOf(t)).toEqual(['Title is not a known field (did you mean "title"?)', 'options[0].phase is not a known field (did you mean "phases"?)']);
+  });
+
+  it('lists the known fields when none is near', () => {
+    const s = demoJson();
+    s.initialState.zzzzzzzz = 1;
+    expect(problemsOf(s)).toEqual(['initialState.zzzzzzzz is not a known field (known here: infectedPersons, infectedCompartment, priorImmunityFraction)']);
+    expect(closestName('icuBed', ['wardBeds', 'icuBeds'])).toBe('icuBeds');
+    expect(closestName('x', ['wardBeds'])).toBeNull();
+  });
+
+  it('refuses an r0 transmission that also gives a doubling time', () => {
+    const s = demoJson();
+    s.disease.transmission = { kind: 'r0', r0: 2.5, doublingTimeDays: 3 };
+    expect(problemsOf(s)).toEqual(['disease.transmission.doublingTimeDays does not go with kind "r0": it belongs to kind "doublingTime" (give the fields of one form only)']);
+  });
+
+  it('escapes odd field names instead of printing raw control characters', () => {
+    const s = demoJson();
+    s['bad\u0000\nkey'] = 1;
+    const [line] = problemsOf(s);
+    expect(line).toBe('["bad\\u0000\\nkey"] is not a known field');
+    expect(/[\u0000-\u001f]/.test(line)).toBe(false);
+  });
+});
+
+describe('repeated bands and reserved names', () => {
+  it('refuses a band repeated in an age factor (it applied the factor twice)', () => {
+    const s = demoJson();
+    s.options[3].phases[0].ageFactors[0].bands = [14, 15, 14];
+    expect(problemsOf(s)).toEqual(['options[3].phases[0].ageFactors[0].bands[2] must not repeat a band (already at bands[0]; the factor would apply twice), got 14']);
+  });
+
+  it.each(['constructor', 'toString', '__proto__', 'hasOwnProperty'])('refuses a setting named %s, and it as a multiplier key', (name) => {
+    const s = demoJson();
+    s.settings[3].name = name;
+    s.options[1].phases[0].settingMultipliers = { school: 0 };
+    expect(problemsOf(s)).toContain(`settings[3].name must not be a name JavaScript objects reserve (constructor, toString, __proto__ ...); choose another, got ${JSON.stringify(name)}`);
+    // As a key in the file (JSON.parse makes __proto__ an own key; zod would drop it silently).
+    const text = JSON.stringify(demoJson()).replace('"settingMultipliers":{"school":0', `"settingMultipliers":{${JSON.stringify(name)}:0.5,"school":0`);
+    expect(problemsOf(text)).toEqual([
+      `options[1].phases[0].settingMultipliers.${name} must not be a name JavaScript objects reserve (constructor, toString, __proto__ ...), got ${JSON.stringify(name)}`,
+    ]);
+  });
+});
+
+describe('plausibility bounds, checked before any linear algebra', () => {
+  const cases: [string, (s: Record<string, any>) => void, string][] = [
+    ['a contact near 1e200 (hung check and run)', (s) => (s.settings[0].contactsPerDay[0][0] = 1e200), 'settings[0].contactsPerDay[0][0] must be at most 1000 contacts per day, got 1e+200'],
+    ['a contact of 1e308 (crashed)', (s) => (s.settings[1].contactsPerDay[2][3] = 1e308), 'settings[1].contactsPerDay[2][3] must be at most 1000 contacts per day, got 1e+308'],
+    ['a population of 1e308 (crashed)', (s) => (s.populationPersons[0] = 1e308), 'populationPersons[0] must be at most 1e10 persons, got 1e+308'],
+    ['a setting multiplier of 1e20 (crashed)', (s) => (s.options[1].phases[0].settingMultipliers.school = 1e20), 'options[1].phases[0].settingMultipliers.school must be at most 100, got 100000000000000000000'],
+    ['a latent period of 1e-5 days (crashed)', (s) => (s.disease.latentPeriodDays = 1e-5), 'disease.latentPeriodDays must be at least 0.1 days, got 0.00001'],
+    ['a delay shape of 1e306 (NaN deaths)', (s) => (s.severity.deathDelay = { meanDays: 21, shape: 1e306 }), 'severity.deathDelay.shape must be at most 1000, got 1e+306'],
+    ['1e20 doses a day (the campaign vanished)', (s) => (s.vaccinationCampaigns[0].schedule[0].dosesPerDay = 1e20), 'vaccinationCampaigns[0].schedule[0].dosesPerDay must be at most 1e10 doses per day, got 100000000000000000000'],
+    ['an R0 of 1e6', (s) => (s.disease.transmission.r0 = 1e6), 'disease.transmission.r0 must be at most 100, got 1000000'],
+  ];
+  it.each(cases)('refuses %s naming the entry', (_label, mutate, expected) => {
+    const s = demoJson();
+    mutate(s);
+    expect(problemsOf(s)).toEqual([expected]);
+  });
+});
+
+describe('reading the JSON text', () => {
+  it('reports 1e999999 as a number too large, not as null', () => {
+    const text = JSON.stringify(demoJson()).replace('"horizonDays":365', '"horizonDays":1e999999');
+    expect(problemsOf(text)).toEqual(['horizonDays must be a finite number (the file writes a number beyond the double-precision range, about 1.8e308), got Infinity']);
+  });
+
+  it('reports a trailing comma in one line with its line and column', () => {
+    expect(problemsOf('{\n  "format": "mixwise-scenario",\n}')).toEqual(["(file) must be valid JSON; at line 3, column 1 it has a comma before '}' (remove the trailing comma)"]);
+    expect(problemsOf('{"a": [1, 2')).toEqual(["(file) must be valid JSON; at line 1, column 12 it ends before the JSON is complete (missing ']'?)"]);
+    expect(problemsOf('{"a": 1 "b": 2}')).toEqual(["(file) must be valid JSON; at line 1, column 9 it needs ',' or '}' here, found '\"' (a missing comma?)"]);
+    expect(problemsOf('\u0000{')).toEqual(["(file) must be valid JSON; at line 1, column 1 it has an unexpected U+0000 where a value should be"]);
+  });
+
+  it('refuses JSON nested 10,000 levels deep without exhausting the call stack', () => {
+    const deep = `${'['.repeat(10_000)}1${']'.repeat(10_000)}`;
+    const text = JSON.stringify(demoJson()).replace('"populationPersons":[', `"populationPersons":[${deep},`);
+    expect(problemsOf(text)).toEqual(['populationPersons[0][0]... must not nest lists and objects more than 64 levels deep']);
+    const object = JSON.parse(`${'{"a":'.repeat(10_000)}1${'}'.repeat(10_000)}`);
+    expect(problemsOf(object)).toHaveLength(1);
+  });
+
+  it('lists several problems one per line, at most MAX_LISTED_PROBLEMS and a count of the rest', () => {
+    const s = demoJson();
+    s.settings[0].contactsPerDay = s.settings[0].contactsPerDay.map((row: number[]) => row.map(() => -1));
+    const lines = problemsOf(s);
+    expect(lines).toHaveLength(MAX_LISTED_PROBLEMS + 1);
+    expect(lines[0]).toBe('settings[0].contactsPerDay[0][0] must be >= 0, got -1');
+    expect(lines[MAX_LISTED_PROBLEMS]).toBe(`(file) has ${16 * 16 - MAX_LISTED_PROBLEMS} more problems not listed`);
+    expect(lines.every((l) => !l.includes('\n'))).toBe(true);
+  });
+});
