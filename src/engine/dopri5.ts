@@ -55,7 +55,7 @@ const D5 = 701980252875 / 199316789632, D6 = -1453857185 / 822651844, D7 = 69997
 export class Dopri5Workspace {
   readonly k1: Float64Array; readonly k2: Float64Array; readonly k3: Float64Array; readonly k4: Float64Array;
   readonly k5: Float64Array; readonly k6: Float64Array; readonly k7: Float64Array;
-  readonly stage: Float64Array; readonly next: Float64Array;
+  readonly stage: Float64Array; readonly next: Float64Array; readonly state: Float64Array;
   readonly r1: Float64Array; readonly r2: Float64Array; readonly r3: Float64Array; readonly r4: Float64Array; readonly r5: Float64Array;
   /** Accepted and rejected step counts of the last call. */
   steps = 0;
@@ -65,7 +65,7 @@ export class Dopri5Workspace {
   constructor(readonly size: number) {
     const f = () => new Float64Array(size);
     this.k1 = f(); this.k2 = f(); this.k3 = f(); this.k4 = f(); this.k5 = f(); this.k6 = f(); this.k7 = f();
-    this.stage = f(); this.next = f();
+    this.stage = f(); this.next = f(); this.state = f();
     this.r1 = f(); this.r2 = f(); this.r3 = f(); this.r4 = f(); this.r5 = f();
   }
 }
@@ -81,7 +81,9 @@ export type OutputSink = (t: number, y: Float64Array) => unknown;
 /**
  * Integrates y from t0 to t1 in place (y holds y(t_end) on return), calling `sink` at each time
  * of `outputTimes` (ascending, within (t0, t1]). t_end is t1, or the output time at which `sink`
- * asked to stop (in `ws.stoppedAt`). Returns the last accepted step size, to start the next
+ * asked to stop (in `ws.stoppedAt`). When `denseComponents` is given, only those components of
+ * the sink's state are evaluated (the rest hold scratch values): the dense output then costs what
+ * the caller reads. Returns the last accepted step size, to start the next
  * segment with.
  */
 export function integrate(
@@ -89,43 +91,56 @@ export function integrate(
   y: Float64Array,
   t0: number,
   t1: number,
-  outputTimes: readonly number[],
+  outputTimes: ArrayLike<number>,
   sink: OutputSink,
   ws: Dopri5Workspace,
   tol: Tolerances = DEFAULT_TOLERANCES,
   initialStep = 0.25,
+  denseComponents: Int32Array | null = null,
 ): number {
   const n = y.length;
-  const { k1, k2, k3, k4, k5, k6, k7, stage, next, r1, r2, r3, r4, r5 } = ws;
+  const { k2, k3, k4, k5, k6, stage, r1, r2, r3, r4, r5 } = ws;
+  // The current state, its derivative, the candidate state and its derivative: swapped on
+  // acceptance (first same as last: k7 of a step is k1 of the next) instead of copied.
+  let yNow = ws.state;
+  let yNext = ws.next;
+  let k1 = ws.k1;
+  let k7 = ws.k7;
+  yNow.set(y);
+  const { absolute, relative, maxStep } = tol;
+  const flushBelow = tol.flushBelow ?? 0;
   ws.steps = 0;
   ws.rejected = 0;
   ws.stoppedAt = null;
   let t = t0;
-  let h = Math.min(initialStep, tol.maxStep, t1 - t0);
+  let h = Math.min(initialStep, maxStep, t1 - t0);
   let out = 0;
-  while (out < outputTimes.length && outputTimes[out] <= t0) out++;
-  rhs(t, y, k1);
+  const outputs = outputTimes.length;
+  while (out < outputs && outputTimes[out] <= t0) out++;
+  rhs(t, yNow, k1);
   while (t < t1) {
     attemptedSteps++;
     const last = t + 1.01 * h >= t1;
     if (last) h = t1 - t;
-    for (let i = 0; i < n; i++) stage[i] = y[i] + h * A21 * k1[i];
+    for (let i = 0; i < n; i++) stage[i] = yNow[i] + h * A21 * k1[i];
     rhs(t + C2 * h, stage, k2);
-    for (let i = 0; i < n; i++) stage[i] = y[i] + h * (A31 * k1[i] + A32 * k2[i]);
+    for (let i = 0; i < n; i++) stage[i] = yNow[i] + h * (A31 * k1[i] + A32 * k2[i]);
     rhs(t + C3 * h, stage, k3);
-    for (let i = 0; i < n; i++) stage[i] = y[i] + h * (A41 * k1[i] + A42 * k2[i] + A43 * k3[i]);
+    for (let i = 0; i < n; i++) stage[i] = yNow[i] + h * (A41 * k1[i] + A42 * k2[i] + A43 * k3[i]);
     rhs(t + C4 * h, stage, k4);
-    for (let i = 0; i < n; i++) stage[i] = y[i] + h * (A51 * k1[i] + A52 * k2[i] + A53 * k3[i] + A54 * k4[i]);
+    for (let i = 0; i < n; i++) stage[i] = yNow[i] + h * (A51 * k1[i] + A52 * k2[i] + A53 * k3[i] + A54 * k4[i]);
     rhs(t + C5 * h, stage, k5);
-    for (let i = 0; i < n; i++) stage[i] = y[i] + h * (A61 * k1[i] + A62 * k2[i] + A63 * k3[i] + A64 * k4[i] + A65 * k5[i]);
+    for (let i = 0; i < n; i++) stage[i] = yNow[i] + h * (A61 * k1[i] + A62 * k2[i] + A63 * k3[i] + A64 * k4[i] + A65 * k5[i]);
     rhs(t + h, stage, k6);
-    for (let i = 0; i < n; i++) next[i] = y[i] + h * (A71 * k1[i] + A73 * k3[i] + A74 * k4[i] + A75 * k5[i] + A76 * k6[i]);
-    rhs(t + h, next, k7);
+    for (let i = 0; i < n; i++) yNext[i] = yNow[i] + h * (A71 * k1[i] + A73 * k3[i] + A74 * k4[i] + A75 * k5[i] + A76 * k6[i]);
+    rhs(t + h, yNext, k7);
     let err = 0;
     for (let i = 0; i < n; i++) {
-      const e = h * (E1 * k1[i] + E3 * k3[i] + E4 * k4[i] + E5 * k5[i] + E6 * k6[i] + E7 * k7[i]);
-      const scale = tol.absolute + tol.relative * Math.max(Math.abs(y[i]), Math.abs(next[i]));
-      err += (e / scale) * (e / scale);
+      const a = yNow[i];
+      const b = yNext[i];
+      const scale = absolute + relative * Math.max(a < 0 ? -a : a, b < 0 ? -b : b);
+      const e = (h * (E1 * k1[i] + E3 * k3[i] + E4 * k4[i] + E5 * k5[i] + E6 * k6[i] + E7 * k7[i])) / scale;
+      err += e * e;
     }
     err = Math.sqrt(err / n);
     if (!(err <= 1)) {
@@ -137,31 +152,35 @@ export function integrate(
     ws.steps++;
     // Tiny components set to 0; the derivative there is then evaluated again (first same as last).
     let flushed = false;
-    const flushBelow = tol.flushBelow ?? 0;
     for (let i = 0; i < n; i++) {
-      if (next[i] !== 0 && Math.abs(next[i]) < flushBelow) {
-        next[i] = 0;
+      if (yNext[i] !== 0 && Math.abs(yNext[i]) < flushBelow) {
+        yNext[i] = 0;
         flushed = true;
       }
     }
-    if (flushed) rhs(t + h, next, k7);
+    if (flushed) rhs(t + h, yNext, k7);
     if (ws.steps > MAX_STEPS) throw new Error(`the model could not be solved near day ${t.toFixed(2)}: its rates are too extreme`);
     const tNew = last ? t1 : t + h;
-    if (out < outputTimes.length && outputTimes[out] <= tNew) {
-      for (let i = 0; i < n; i++) {
-        const ydiff = next[i] - y[i];
+    if (out < outputs && outputTimes[out] <= tNew) {
+      const dense = denseComponents === null ? n : denseComponents.length;
+      for (let c = 0; c < dense; c++) {
+        const i = denseComponents === null ? c : denseComponents[c];
+        const ydiff = yNext[i] - yNow[i];
         const bspl = h * k1[i] - ydiff;
-        r1[i] = y[i];
+        r1[i] = yNow[i];
         r2[i] = ydiff;
         r3[i] = bspl;
         r4[i] = ydiff - h * k7[i] - bspl;
         r5[i] = h * (D1 * k1[i] + D3 * k3[i] + D4 * k4[i] + D5 * k5[i] + D6 * k6[i] + D7 * k7[i]);
       }
       let stopAt = Number.NaN;
-      while (out < outputTimes.length && outputTimes[out] <= tNew) {
+      while (out < outputs && outputTimes[out] <= tNew) {
         const theta = (outputTimes[out] - t) / h;
         const theta1 = 1 - theta;
-        for (let i = 0; i < n; i++) stage[i] = r1[i] + theta * (r2[i] + theta1 * (r3[i] + theta * (r4[i] + theta1 * r5[i])));
+        for (let c = 0; c < dense; c++) {
+          const i = denseComponents === null ? c : denseComponents[c];
+          stage[i] = r1[i] + theta * (r2[i] + theta1 * (r3[i] + theta * (r4[i] + theta1 * r5[i])));
+        }
         const stop = sink(outputTimes[out], stage);
         out++;
         if (stop === true) {
@@ -180,11 +199,16 @@ export function integrate(
         }
       }
     }
-    y.set(next);
-    k1.set(k7);
+    let swap = yNow;
+    yNow = yNext;
+    yNext = swap;
+    swap = k1;
+    k1 = k7;
+    k7 = swap;
     t = tNew;
     const factor = err === 0 ? 5 : Math.min(5, Math.max(0.2, 0.9 * Math.pow(err, -0.2)));
-    h = Math.min(h * factor, tol.maxStep);
+    h = Math.min(h * factor, maxStep);
   }
+  y.set(yNow);
   return h;
 }

@@ -4,7 +4,7 @@
 import { DEFAULT_TOLERANCES, Dopri5Workspace, integrate } from './dopri5.ts';
 import { initialStateOf } from './initialState.ts';
 import type { PreparedScenario } from './prepare.ts';
-import { protectedRisk, seirRightHandSide, stateLayout } from './seir.ts';
+import { protectedRisk, seirRightHandSide, type StateLayout, stateLayout } from './seir.ts';
 import type { Segment } from './segments.ts';
 import type { Phase } from './scenario.ts';
 import type { TriggeredMeasures } from './triggeredMeasures.ts';
@@ -39,6 +39,13 @@ function largestStableStep(p: PreparedScenario, campaign: PreparedCampaign | nul
   const rates = [p.periods.latentStages / p.periods.latentPeriodDays, p.periods.infectiousStages / p.periods.infectiousPeriodDays];
   if (campaign !== null) rates.push(1 / campaign.vaccine.delayToProtectionDays);
   return Math.min(DEFAULT_TOLERANCES.maxStep, 2.5 / Math.max(...rates));
+}
+
+/** The state components the daily record and the triggers read: S, E and I stages, X, and W, P, Xp with vaccination. */
+function denseComponentsOf(L: StateLayout): Int32Array {
+  const blocks = [L.susceptible, ...Array.from({ length: L.latentStages + L.infectiousStages }, (_, k) => L.latent + k * L.bands), L.cumulative];
+  if (L.waiting >= 0) blocks.push(L.waiting, L.protectedSusceptible, L.protectedInfections);
+  return Int32Array.from(blocks.flatMap((b) => Array.from({ length: L.bands }, (_, i) => b + i)));
 }
 
 /**
@@ -96,14 +103,15 @@ export function integrateOption(
   const rhs = seirRightHandSide(L, p.periods.latentPeriodDays, p.periods.infectiousPeriodDays, transmission, campaign?.vaccine ?? null, doseRates);
   const ws = new Dopri5Workspace(L.size);
   const tolerances = { ...DEFAULT_TOLERANCES, maxStep: largestStableStep(p, campaign) };
+  const days = Float64Array.from({ length: H }, (_, d) => d + 1);
+  const dense = denseComponentsOf(L);
   let step = 0.25;
   if (triggered === null) {
+    const sink = (t: number, state: Float64Array): void => record(Math.round(t), state);
     for (const seg of segments) {
       transmission.set(seg.transmission);
       doseRates.set(seg.doseRates);
-      const days: number[] = [];
-      for (let d = Math.floor(seg.fromDay) + 1; d <= seg.toDay; d++) days.push(d);
-      step = integrate(rhs, y, seg.fromDay, seg.toDay, days, (t, state) => record(Math.round(t), state), ws, tolerances, Math.min(tolerances.maxStep, Math.max(step, 0.05)));
+      step = integrate(rhs, y, seg.fromDay, seg.toDay, days, sink, ws, tolerances, Math.min(tolerances.maxStep, Math.max(step, 0.05)), dense);
     }
   } else {
     const { measures, fixedPhaseAt, realized } = triggered;
@@ -120,9 +128,7 @@ export function integrateOption(
         transmission.set(measures.transmissionWith(fixedPhaseAt(from)));
         const measuresChange = (from === seg.fromDay && seg.measuresChange) || switched;
         realized.push({ fromDay: from, toDay: seg.toDay, transmission: transmission.slice(), doseRates: seg.doseRates, measuresChange });
-        const days: number[] = [];
-        for (let d = Math.floor(from) + 1; d <= seg.toDay; d++) days.push(d);
-        step = integrate(rhs, y, from, seg.toDay, days, sink, ws, tolerances, Math.min(tolerances.maxStep, Math.max(step, 0.05)));
+        step = integrate(rhs, y, from, seg.toDay, days, sink, ws, tolerances, Math.min(tolerances.maxStep, Math.max(step, 0.05)), dense);
         switched = ws.stoppedAt !== null;
         from = ws.stoppedAt ?? seg.toDay;
         realized[realized.length - 1].toDay = from;

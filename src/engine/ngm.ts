@@ -9,6 +9,7 @@
  * Erlang stage counts do not enter: only the mean time infectious does.
  */
 import { EigenvalueDecomposition, Matrix } from 'ml-matrix';
+import { rowTimes } from './dot.ts';
 
 /** Writes K = D diag(S) M (row-major n x n) into `out`. */
 export function nextGenerationMatrixInto(out: Float64Array, transmission: Float64Array, susceptible: ArrayLike<number>, infectiousPeriodDays: number): Float64Array {
@@ -58,12 +59,15 @@ export function dominantEigenvalue(flat: Float64Array, n: number): number {
 
 /**
  * Spectral radius of a non-negative matrix by power iteration, warm-started from `vector`
- * (length n, non-negative; updated in place towards the Perron vector): x_{k+1} = K x_k / |K x_k|_1.
+ * (length n, non-negative): x_{k+1} = K x_k / |K x_k|_1.
  * Stops on the Collatz-Wielandt bracket: for x > 0, min_i (Kx)_i / x_i <= rho <= max_i (Kx)_i / x_i
  * (Horn & Johnson 2013, Matrix Analysis, 2nd ed., Thm 8.1.26), once it is narrower than
- * `relativeTolerance` (default 1e-7, ample for a daily R(t)); rows with x_i = 0 (no susceptibles or no susceptibility) have no say. Used for R(t)
- * day by day, where the previous day's vector is an excellent start; there K = diag(rowScale) M is
- * applied without being formed (rowScale_i = D S_i). Falls back to
+ * `relativeTolerance` (default 1e-7, ample for a daily R(t)); rows with x_i = 0 (no susceptibles
+ * or no susceptibility) have no say. On return `vector` holds the x_k whose bracket closed (an
+ * approximate Perron vector) and, when given, `product` holds M x_k without the row scale, so a
+ * caller can bracket rho for another row scale at the cost of n multiplications (reproduction.ts).
+ * Used for R(t) day by day, where the previous day's vector is an excellent start; there
+ * K = diag(rowScale) M is applied without being formed (rowScale_i = D S_i). Falls back to
  * `dominantEigenvalue` (ml-matrix) when the bracket does not close (a periodic or reducible K).
  */
 export function spectralRadius(
@@ -73,6 +77,7 @@ export function spectralRadius(
   scratch: Float64Array,
   relativeTolerance = 1e-7,
   rowScale: Float64Array | null = null,
+  product: Float64Array | null = null,
 ): number {
   let sum = 0;
   for (let i = 0; i < n; i++) sum += vector[i];
@@ -86,9 +91,8 @@ export function spectralRadius(
     let low = Infinity;
     let high = 0;
     for (let i = 0; i < n; i++) {
-      let acc = 0;
-      const row = i * n;
-      for (let j = 0; j < n; j++) acc += flat[row + j] * vector[j];
+      let acc = rowTimes(flat, i * n, vector, n);
+      if (product !== null) product[i] = acc;
       if (rowScale !== null) acc *= rowScale[i];
       scratch[i] = acc;
       total += acc;
@@ -99,10 +103,12 @@ export function spectralRadius(
       }
     }
     if (total === 0) return 0;
-    for (let i = 0; i < n; i++) vector[i] = scratch[i] / total;
     if (high - low <= relativeTolerance * high) return 0.5 * (low + high);
+    const inverse = 1 / total;
+    for (let i = 0; i < n; i++) vector[i] = scratch[i] * inverse;
   }
   vector.fill(1 / n);
+  if (product !== null) product.fill(0);
   if (rowScale === null) return dominantEigenvalue(flat, n);
   const scaled = new Float64Array(n * n);
   for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) scaled[i * n + j] = rowScale[i] * flat[i * n + j];

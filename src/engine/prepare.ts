@@ -3,8 +3,8 @@
  * (calibration.ts), R0, the initial state and the delay weights. Computed once per scenario.
  */
 import { type Calibration, calibrateTransmission } from './calibration.ts';
-import { dailyDelayWeights } from './distributions.ts';
 import { type Periods, periodsOf } from './growth.ts';
+import { delayKernel } from './healthcare/kernels.ts';
 import { type PreparedHealthcare, prepareHealthcare } from './healthcare/prepare.ts';
 import { initialStateOf } from './initialState.ts';
 import { type PreparedCampaign, prepareCampaign } from './vaccination/prepare.ts';
@@ -30,7 +30,7 @@ export interface PreparedScenario {
   seeds: Float64Array;
   /** IFR by band, fraction. */
   infectionFatalityRatio: Float64Array;
-  /** Daily infection-to-death delay weights over the horizon. */
+  /** Daily infection-to-death delay weights over the horizon, tail trimmed (healthcare/kernels.ts). */
   deathDelayWeights: Float64Array;
   /** Hospital ratios and kernels; null when the scenario has no `healthcare` section. */
   healthcare: PreparedHealthcare | null;
@@ -59,7 +59,7 @@ export function prepareScenario(s: Scenario, calibration?: Calibration): Prepare
     initialSusceptible,
     seeds: Float64Array.from(s.initialState.infectedPersons),
     infectionFatalityRatio: Float64Array.from(s.severity.infectionFatalityRatio),
-    deathDelayWeights: dailyDelayWeights(s.severity.deathDelay.meanDays, s.severity.deathDelay.shape, s.horizonDays),
+    deathDelayWeights: delayKernel(s.severity.deathDelay, s.horizonDays),
     healthcare: prepareHealthcare(s),
     campaigns: new Map(s.vaccinationCampaigns.map((c) => [c.name, prepareCampaign(c, bp.population, s.horizonDays)])),
     remainingLifeExpectancy: remainingLifeExpectancyByBand(s),

@@ -36,6 +36,8 @@
  * Units: persons, days. The state vector is compartment-major: block c holds band 0..n-1.
  */
 
+import { rowTimes } from './dot.ts';
+
 /** Where each compartment's block of n bands starts in the state vector (-1: not in this model). */
 export interface StateLayout {
   bands: number;
@@ -134,9 +136,7 @@ export function seirRightHandSide(
       infectious[j] = sum > 0 ? sum : 0;
     }
     for (let i = 0; i < n; i++) {
-      let lambda = 0;
-      const row = i * n;
-      for (let j = 0; j < n; j++) lambda += transmission[row + j] * infectious[j];
+      const lambda = rowTimes(transmission, i * n, infectious, n);
       const s = y[oS + i];
       const susceptible = s > 0 ? s : 0;
       let flow = lambda * susceptible;

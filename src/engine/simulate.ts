@@ -108,12 +108,14 @@ export function simulateOption(p: PreparedScenario, option: PolicyOption): Optio
   const burden = measureBurden(s, option, triggers);
 
   const rStart = reproductionNumber(segments[0].transmission, p.initialSusceptible, p.periods.infectiousPeriodDays);
+  const rt = reproductionByDay(p, segments, daily.effectiveSusceptible);
   const growthRatePerDay = growthRateFromR(rStart, p.periods);
 
   let peakDay = 0;
   let peakInfectedPersons = -1;
   for (let d = 0; d <= H; d++) {
-    const infected = sum(daily.prevalence.subarray(d * n, (d + 1) * n));
+    let infected = 0;
+    for (let i = 0; i < n; i++) infected += daily.prevalence[d * n + i];
     if (infected > peakInfectedPersons) {
       peakInfectedPersons = infected;
       peakDay = d;
@@ -137,7 +139,7 @@ export function simulateOption(p: PreparedScenario, option: PolicyOption): Optio
     prevalence: daily.prevalence,
     incidence,
     deaths: convolve(weightedBandSum(weightedIncidence(incidence, protectedIncidence, deathFactor), n, p.infectionFatalityRatio), p.deathDelayWeights),
-    rt: reproductionByDay(p, segments, daily.effectiveSusceptible),
+    rt,
     doses: dailyDoses(plan, n, H),
   };
 

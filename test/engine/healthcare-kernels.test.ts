@@ -5,7 +5,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { convolve } from '../../src/engine/distributions.ts';
-import { admissionKernel, bedDayKernel, expectedTimeInBedBy } from '../../src/engine/healthcare/kernels.ts';
+import { delayKernel, bedDayKernel, expectedTimeInBedBy } from '../../src/engine/healthcare/kernels.ts';
 
 const DAYS = 2000;
 
@@ -91,7 +91,7 @@ describe('bed-day kernel', () => {
 
 describe('admission kernel', () => {
   it('holds all but a negligible tail of the delay and is trimmed to a short support', () => {
-    const w = admissionKernel({ meanDays: 10, shape: 4 }, 365);
+    const w = delayKernel({ meanDays: 10, shape: 4 }, 365);
     const total = w.reduce((a, b) => a + b, 0);
     expect(Math.abs(total - 1)).toBeLessThan(1e-9);
     expect(w.length).toBeLessThan(120);
@@ -101,7 +101,7 @@ describe('admission kernel', () => {
   });
 
   it('is a unit mass on day 0 for a zero delay', () => {
-    const w = admissionKernel({ meanDays: 0, shape: 1 }, 30);
+    const w = delayKernel({ meanDays: 0, shape: 1 }, 30);
     expect(w[0]).toBe(1);
     expect(w.slice(1).every((x) => x === 0)).toBe(true);
   });

@@ -1,6 +1,6 @@
 /** Hospital and ICU demand against capacity (issue 4). */
 export * from './defaults.ts';
-export { admissionKernel, bedDayKernel, expectedTimeInBedBy, TAIL_TOLERANCE } from './kernels.ts';
+export { delayKernel, bedDayKernel, expectedTimeInBedBy, TAIL_TOLERANCE } from './kernels.ts';
 export { prepareHealthcare, type PreparedHealthcare, type DelayGroup } from './prepare.ts';
 export { healthcareDemand } from './demand.ts';
 export { bedDemand } from './capacity.ts';

@@ -37,8 +37,8 @@ function trimmedLength(w: Float64Array, tolerance: number): number {
   return length;
 }
 
-/** Admission kernel over at most `days` days, tail trimmed. */
-export function admissionKernel(delay: Delay, days: number): Float64Array {
+/** Daily weights of a delay (infection to admission, infection to death) over at most `days` days, tail trimmed. */
+export function delayKernel(delay: Delay, days: number): Float64Array {
   const w = dailyDelayWeights(delay.meanDays, delay.shape, days);
   return w.slice(0, trimmedLength(w, TAIL_TOLERANCE));
 }

@@ -8,7 +8,7 @@
  */
 import type { Delay, Scenario } from '../scenario.ts';
 import { defaultIcuShareOfAdmissions, defaultInfectionHospitalisationRatio } from './defaults.ts';
-import { admissionKernel, bedDayKernel } from './kernels.ts';
+import { delayKernel, bedDayKernel } from './kernels.ts';
 
 /** Bands with the same delays, and their kernels. */
 export interface DelayGroup {
@@ -62,7 +62,7 @@ export function prepareHealthcare(s: Scenario): PreparedHealthcare | null {
     const key = `${keyOf(admission)}|${keyOf(ward)}|${keyOf(icu)}`;
     let group = byKey.get(key);
     if (group === undefined) {
-      const w = admissionKernel(admission, days);
+      const w = delayKernel(admission, days);
       const admittedBy = new Float64Array(w.length);
       let acc = 0;
       w.forEach((x, k) => (admittedBy[k] = acc += x));
