@@ -1,54 +1,130 @@
 /**
- * `npm run bench`: how long the engine takes per policy option.
- * 1. The demo scenario (16 bands, 365 days): median over repeated runs of each option.
- * 2. A batch of 1000 options (the demo's options repeated with varied multipliers): total and per option.
- * Prints the machine's core count; the engine runs on one core.
+ * `npm run bench`: what one option run costs, against a peer measured in the same run.
+ * 1. The demo scenario (16 bands, 365 days), one core: median per option, as CPU time of this
+ *    thread (what the engine costs, unaffected by other processes taking the core) and wall time.
+ * 2. The peer: the same model in scipy (bench/scipy_peer.py: solve_ivp RK45, rtol 1e-6, atol
+ *    scaled to the population), on the demo's options without vaccination; the ratio per option.
+ *    Skipped, with a note, where python3 with scipy is missing (Debian: apt-get install python3-scipy).
+ * 3. A batch of 1000 options (the demo's options with varied multipliers): throughput on this
+ *    thread, on a pool of 1 worker and on one worker per core, and the process's peak memory.
+ * Timings on a shared machine are noisy: compare the ratios, and rerun.
  */
-import { availableParallelism, cpus } from 'node:os';
+import { spawnSync } from 'node:child_process';
 import { readFileSync } from 'node:fs';
+import { availableParallelism, cpus } from 'node:os';
+import { nodeWorkerPool } from '../src/cli/workerThreads.ts';
 import { prepareScenario } from '../src/engine/prepare.ts';
-import { runScenario } from '../src/engine/run.ts';
+import { runScenario, runScenarioOnPool } from '../src/engine/run.ts';
+import type { PolicyOption, Scenario } from '../src/engine/scenario.ts';
+import { segmentsOf } from '../src/engine/segments.ts';
 import { simulateOption } from '../src/engine/simulate.ts';
-import type { PolicyOption } from '../src/engine/scenario.ts';
 import { parseScenarioText } from '../src/engine/validation.ts';
 
 const parsed = parseScenarioText(readFileSync(new URL('../resources/demo-scenario.json', import.meta.url), 'utf8'));
 if (!parsed.ok) throw new Error('demo scenario is invalid');
 const demo = parsed.scenario;
+const prepared = prepareScenario(demo);
 
 function median(values: number[]): number {
   const sorted = [...values].sort((a, b) => a - b);
   return sorted[Math.floor(sorted.length / 2)];
 }
 
-const prepared = prepareScenario(demo);
+/** Median milliseconds of `run` per call: CPU time of this thread (batches of `batch` calls) and wall time. */
+function measure(run: () => void, repeats: number, batch: number): { cpu: number; wall: number } {
+  const cpu: number[] = [];
+  const wall: number[] = [];
+  for (let r = 0; r < repeats; r++) {
+    const c0 = process.cpuUsage();
+    const t0 = performance.now();
+    for (let k = 0; k < batch; k++) run();
+    wall.push((performance.now() - t0) / batch);
+    const c = process.cpuUsage(c0);
+    cpu.push((c.user + c.system) / 1000 / batch);
+  }
+  return { cpu: median(cpu), wall: median(wall) };
+}
+
 for (let k = 0; k < 20; k++) for (const o of demo.options) simulateOption(prepared, o); // warm up the JIT
 
 console.log(`machine: ${availableParallelism()} cores (${cpus()[0]?.model ?? 'unknown'}), Node ${process.version}`);
-console.log(`demo: ${demo.ageBands.length} bands, ${demo.horizonDays} days, ${demo.options.length} options`);
+console.log(`\n1. demo: ${demo.ageBands.length} bands, ${demo.horizonDays} days; per option on one core, median ms (CPU time / wall time)`);
+console.log('   targets: <= 0.5 ms without vaccination, <= 1 ms with it');
+const engineMs = new Map<string, number>();
 for (const option of demo.options) {
-  const times: number[] = [];
-  for (let k = 0; k < 30; k++) {
-    const t0 = performance.now();
-    simulateOption(prepared, option);
-    times.push(performance.now() - t0);
-  }
-  console.log(`  ${option.name.padEnd(28)} median ${median(times).toFixed(2)} ms`);
+  const { cpu, wall } = measure(() => simulateOption(prepared, option), 25, 4);
+  engineMs.set(option.name, cpu);
+  const kind = option.vaccinationCampaign === undefined ? '' : ' (vaccination)';
+  console.log(`   ${(option.name + kind).padEnd(40)} ${cpu.toFixed(3)} / ${wall.toFixed(3)}`);
 }
-const whole: number[] = [];
-for (let k = 0; k < 20; k++) {
-  const t0 = performance.now();
-  runScenario(demo);
-  whole.push(performance.now() - t0);
-}
-console.log(`  whole scenario (prepare + all options): median ${median(whole).toFixed(2)} ms`);
 
-const batch: PolicyOption[] = Array.from({ length: 1000 }, (_, k) => {
-  const base = demo.options[k % demo.options.length];
-  const scale = 0.5 + (k % 50) / 50;
-  return { ...base, name: `batch ${k}`, phases: base.phases.map((p) => ({ ...p, settingMultipliers: Object.fromEntries(Object.entries(p.settingMultipliers).map(([s, m]) => [s, m * scale])) })) };
-});
+console.log('\n2. peer: the same model in scipy solve_ivp (RK45, rtol 1e-6), options without vaccination');
+const peerOptions = demo.options.filter((o) => o.vaccinationCampaign === undefined);
+const python = spawnSync('python3', ['-c', 'import scipy, numpy'], { encoding: 'utf8' });
+if (python.status !== 0) {
+  console.log('   skipped: python3 with scipy and numpy is not installed (Debian: apt-get install python3-scipy)');
+} else {
+  const L = prepared.layout;
+  const n = L.bands;
+  const y0 = prepared.initialState;
+  const input = {
+    bands: n,
+    latentStages: L.latentStages,
+    infectiousStages: L.infectiousStages,
+    latentPeriodDays: prepared.periods.latentPeriodDays,
+    infectiousPeriodDays: prepared.periods.infectiousPeriodDays,
+    horizonDays: demo.horizonDays,
+    population: Array.from(prepared.bands.population),
+    susceptible0: Array.from(y0.subarray(L.susceptible, L.susceptible + n)),
+    latent0: Array.from(y0.subarray(L.latent, L.latent + n)),
+    infectious0: Array.from(y0.subarray(L.infectious, L.infectious + n)),
+    recovered0: Array.from(y0.subarray(L.recovered, L.recovered + n)),
+    ifr: Array.from(prepared.infectionFatalityRatio),
+    repeats: 7,
+    options: peerOptions.map((o) => ({
+      name: o.name,
+      segments: segmentsOf(prepared, o, []).map((seg) => ({ fromDay: seg.fromDay, toDay: seg.toDay, transmission: Array.from(seg.transmission) })),
+    })),
+  };
+  const peer = spawnSync('python3', [new URL('./scipy_peer.py', import.meta.url).pathname], { input: JSON.stringify(input), encoding: 'utf8', maxBuffer: 1 << 26 });
+  if (peer.status !== 0) throw new Error(`scipy peer failed: ${peer.stderr}`);
+  const answers = JSON.parse(peer.stdout) as { options: { name: string; secondsPerRun: number; attackRate: number; deaths: number; peakDay: number }[] };
+  const ratios: number[] = [];
+  for (const a of answers.options) {
+    const ours = engineMs.get(a.name) as number;
+    const engine = simulateOption(prepared, demo.options.find((o) => o.name === a.name) as PolicyOption);
+    const ratio = (1000 * a.secondsPerRun) / ours;
+    ratios.push(ratio);
+    const agree = Math.abs(engine.attackRate - a.attackRate) / engine.attackRate;
+    console.log(`   ${a.name.padEnd(40)} scipy ${(1000 * a.secondsPerRun).toFixed(2)} ms, engine ${ours.toFixed(3)} ms: ${ratio.toFixed(0)}x (attack rates agree to ${agree.toExponential(1)})`);
+  }
+  console.log(`   median ratio ${median(ratios).toFixed(0)}x (target >= 30x)`);
+}
+
+/** 1000 options: the demo's options with their setting multipliers scaled. */
+function batchScenario(count: number): Scenario {
+  const options: PolicyOption[] = Array.from({ length: count }, (_, k) => {
+    const base = demo.options[k % demo.options.length];
+    const scale = 0.5 + (k % 50) / 50;
+    const phases = base.phases.map((p) => ({ ...p, settingMultipliers: Object.fromEntries(Object.entries(p.settingMultipliers ?? {}).map(([s, m]) => [s, m * scale])) }));
+    return { ...base, name: `batch ${k}`, phases };
+  });
+  return { ...demo, referenceOption: undefined, options };
+}
+
+const batch = batchScenario(1000);
+console.log(`\n3. batch: ${batch.options.length} options`);
 const t0 = performance.now();
-runScenario({ ...demo, referenceOption: undefined, options: batch });
-const total = performance.now() - t0;
-console.log(`batch: 1000 options in ${total.toFixed(0)} ms = ${(total / 1000).toFixed(2)} ms per option`);
+runScenario(batch);
+const inline = performance.now() - t0;
+console.log(`   this thread:        ${inline.toFixed(0)} ms = ${(inline / 1000).toFixed(2)} ms per option`);
+for (const size of [1, availableParallelism()]) {
+  const pool = nodeWorkerPool(size);
+  await runScenarioOnPool(pool, batchScenario(size * 2)); // start and warm the workers
+  const t1 = performance.now();
+  await runScenarioOnPool(pool, batch);
+  const ms = performance.now() - t1;
+  pool.close();
+  console.log(`   pool of ${String(size).padEnd(2)} worker${size === 1 ? ' ' : 's'}:  ${ms.toFixed(0)} ms = ${(ms / 1000).toFixed(2)} ms per option, ${((1000 * 1000) / ms).toFixed(0)} options/s`);
+}
+console.log(`   peak resident memory of the process: ${(process.resourceUsage().maxRSS / 1024).toFixed(0)} MB (target < 500 MB)`);

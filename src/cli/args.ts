@@ -10,12 +10,12 @@ export type OutputFormat = (typeof OUTPUT_FORMATS)[number];
 export type Command =
   | { kind: 'help' }
   | { kind: 'version' }
-  | { kind: 'run'; file: string; format: OutputFormat; out: string | null }
+  | { kind: 'run'; file: string; format: OutputFormat; out: string | null; workers: number | null }
   | { kind: 'check'; file: string };
 
 /** Options each command accepts (each takes one value). */
 const VALUE_OPTIONS: Record<'run' | 'check', readonly string[]> = {
-  run: ['--format', '--out'],
+  run: ['--format', '--out', '--workers'],
   check: [],
 };
 
@@ -32,7 +32,9 @@ export function parseArgs(argv: readonly string[]): Command {
     const { positional, values } = splitWords('run', rest, { values: VALUE_OPTIONS.run });
     const format = values.get('--format') ?? 'table';
     if (!isOutputFormat(format)) throw usageError(`--format must be one of ${OUTPUT_FORMATS.join(', ')}, got ${JSON.stringify(format)}`);
-    return { kind: 'run', file: onlyFile('run', positional), format, out: values.get('--out') ?? null };
+    const workers = values.get('--workers');
+    if (workers !== undefined && !/^[1-9][0-9]{0,2}$/.test(workers)) throw usageError(`--workers must be a whole number from 1 to 999, got ${JSON.stringify(workers)}`);
+    return { kind: 'run', file: onlyFile('run', positional), format, out: values.get('--out') ?? null, workers: workers === undefined ? null : Number(workers) };
   }
   if (command === 'check') {
     const { positional } = splitWords('check', rest, { values: VALUE_OPTIONS.check });

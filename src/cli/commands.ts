@@ -3,13 +3,14 @@
  * Each writes through `Output` and returns its exit code; file and usage faults are thrown
  * as `CliError` and reported by main.
  */
-import { formatProblem, parseScenarioText, reciprocityBySetting, runScenario, type Calibration, type Scenario, type ValidationResult } from '../engine/index.ts';
+import { formatProblem, parseScenarioText, reciprocityBySetting, runScenario, type Calibration, type Scenario, type ScenarioResults, type ValidationResult } from '../engine/index.ts';
 import type { OutputFormat } from './args.ts';
 import { EXIT_CODES, type ExitCode } from './errors.ts';
 import { readTextFile, writeFileAtomically } from './files.ts';
 import { formatReport } from './format.ts';
 import { csvSourceOf } from './nodeFingerprint.ts';
 import { reciprocityNotes, reciprocityRows } from './reciprocity-notes.ts';
+import { runOnThreads, threadsFor } from './runOnPool.ts';
 
 export interface Output {
   out(text: string): void;
@@ -31,13 +32,25 @@ export function loadScenarioOrComplain(io: Output, file: string): { scenario: Sc
   return null;
 }
 
-export function runCommand(io: Output, file: string, format: OutputFormat, out: string | null): ExitCode {
-  const loaded = loadScenarioOrComplain(io, file);
-  if (loaded === null) return EXIT_CODES.invalidScenario;
-  const text = formatReport(runScenario(loaded.scenario, loaded.calibration), format, csvSourceOf(loaded.scenario));
+function writeResults(io: Output, scenario: Scenario, results: ScenarioResults, format: OutputFormat, out: string | null): ExitCode {
+  const text = formatReport(results, format, csvSourceOf(scenario));
   if (out === null) io.out(text);
   else writeFileAtomically(out, text);
   return EXIT_CODES.ok;
+}
+
+/** `run` on this thread. */
+export function runCommand(io: Output, file: string, format: OutputFormat, out: string | null): ExitCode {
+  const loaded = loadScenarioOrComplain(io, file);
+  if (loaded === null) return EXIT_CODES.invalidScenario;
+  return writeResults(io, loaded.scenario, runScenario(loaded.scenario, loaded.calibration), format, out);
+}
+
+/** `run` with the options spread over worker threads when there are many (runOnPool.ts); the same output. */
+export async function runCommandOnThreads(io: Output, file: string, format: OutputFormat, out: string | null, workers: number | null): Promise<ExitCode> {
+  const loaded = loadScenarioOrComplain(io, file);
+  if (loaded === null) return EXIT_CODES.invalidScenario;
+  return writeResults(io, loaded.scenario, await runOnThreads(loaded.scenario, loaded.calibration, threadsFor(loaded.scenario, workers)), format, out);
 }
 
 export function checkCommand(io: Output, file: string): ExitCode {

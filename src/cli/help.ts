@@ -1,14 +1,17 @@
 /** The text of `mixwise --help`. */
 import { OUTPUT_FORMATS } from './args.ts';
 import { CAUTION } from './caution.ts';
+import { POOL_THRESHOLD } from './runOnPool.ts';
 
 export const HELP_TEXT = `mixwise - compare public-health policy options with an age-structured SEIR model
 
 Usage:
-  mixwise run FILE [--format ${OUTPUT_FORMATS.join('|')}] [--out PATH]
+  mixwise run FILE [--format ${OUTPUT_FORMATS.join('|')}] [--out PATH] [--workers N]
       Run every policy option of the scenario FILE and print the policy options table
       (default format: table). --out writes to PATH instead of the screen; an existing
-      file is replaced only once the new one is complete.
+      file is replaced only once the new one is complete. --workers N spreads the options
+      over N threads (default: one per core from ${POOL_THRESHOLD} options up, else 1); the
+      numbers are the same, digit for digit, whatever N.
   mixwise check FILE
       Check the scenario FILE against the format's rules; list every problem with its
       place in the file.

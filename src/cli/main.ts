@@ -4,7 +4,7 @@
  */
 import packageJson from '../../package.json' with { type: 'json' };
 import { parseArgs } from './args.ts';
-import { checkCommand, runCommand, type Output } from './commands.ts';
+import { checkCommand, runCommand, runCommandOnThreads, type Output } from './commands.ts';
 import { EXIT_CODES, reportFault, type ExitCode } from './errors.ts';
 import { fitCommand } from './fit.ts';
 import { HELP_TEXT } from './help.ts';
@@ -46,6 +46,14 @@ export async function mainAsync(argv: readonly string[], io: Output): Promise<Ex
   const wantsHelp = argv.includes('--help') || argv.includes('-h');
   if (argv[0] === 'report' && !wantsHelp) return reportCommand(io, argv.slice(1));
   if (argv[0] === 'orders' && !wantsHelp) return ordersCommand(io, argv.slice(1));
+  if (argv[0] === 'run' && !wantsHelp) {
+    try {
+      const command = parseArgs(argv);
+      if (command.kind === 'run') return await runCommandOnThreads(io, command.file, command.format, command.out, command.workers);
+    } catch (err) {
+      return reportFault(err, (text) => io.err(text));
+    }
+  }
   return main(argv, io);
 }
 

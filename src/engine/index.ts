@@ -6,7 +6,12 @@ export { formatProblem, formatPath, type Problem } from './problems.ts';
 export { calibrateTransmission, calibrationProblem, LARGEST_TRANSMISSION_RATE_PER_DAY, type Calibration } from './calibration.ts';
 export { reproductionNumber, reproductionAtUnitTransmission } from './reproductionNumber.ts';
 export { initialStateOf, initialSusceptibleOf } from './initialState.ts';
-export { runScenario, runOptions, referenceIndexOf, reciprocityBySetting, compareWithReference } from './run.ts';
+export { runScenario, runScenarioOnPool, assembleResults, referenceIndexOf, reciprocityBySetting, compareWithReference } from './run.ts';
+export { scenarioRevision } from './revision.ts';
+export { WorkerPool, PoolCancelled, mapInline, mapPrepared, type MapOptions, type CancelSignal } from './pool/pool.ts';
+export { JOBS, optionBuffers, type Job, type JobName, type ContextOf, type TaskOf, type ResultOf } from './pool/jobs.ts';
+export { serveJobs } from './pool/serve.ts';
+export type { PoolEndpoint, PoolRequest, PoolReply, WorkerSide } from './pool/protocol.ts';
 export { effectiveContactMatrix, reciprocityCheck, correctReciprocity } from './contacts.ts';
 export { phaseAt, changeDays, measuresConstant } from './phases.ts';
 export {

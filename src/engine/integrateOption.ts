@@ -1,7 +1,7 @@
 /**
  * Integrates one option segment by segment and keeps the daily state the outcomes need.
  */
-import { DEFAULT_TOLERANCES, Dopri5Workspace, integrate } from './dopri5.ts';
+import { DEFAULT_TOLERANCES, Dopri5Workspace, integrate, type Tolerances } from './dopri5.ts';
 import { initialStateOf } from './initialState.ts';
 import type { PreparedScenario } from './prepare.ts';
 import { protectedRisk, seirRightHandSide, type StateLayout, stateLayout } from './seir.ts';
@@ -41,6 +41,9 @@ function largestStableStep(p: PreparedScenario, campaign: PreparedCampaign | nul
   return Math.min(DEFAULT_TOLERANCES.maxStep, 2.5 / Math.max(...rates));
 }
 
+/** Error tolerances that override the integrator's defaults (relative; absolute, persons). */
+export type Accuracy = Partial<Pick<Tolerances, 'relative' | 'absolute'>>;
+
 /** The state components the daily record and the triggers read: S, E and I stages, X, and W, P, Xp with vaccination. */
 function denseComponentsOf(L: StateLayout): Int32Array {
   const blocks = [L.susceptible, ...Array.from({ length: L.latentStages + L.infectiousStages }, (_, k) => L.latent + k * L.bands), L.cumulative];
@@ -59,6 +62,7 @@ export function integrateOption(
   segments: readonly Segment[],
   campaign: PreparedCampaign | null,
   triggered: { measures: TriggeredMeasures; fixedPhaseAt: (t: number) => Phase | null; realized: Segment[] } | null = null,
+  accuracy: Accuracy = {},
 ): DailyState {
   const n = p.bands.bands;
   const H = p.scenario.horizonDays;
@@ -102,7 +106,7 @@ export function integrateOption(
   const doseRates = new Float64Array(n);
   const rhs = seirRightHandSide(L, p.periods.latentPeriodDays, p.periods.infectiousPeriodDays, transmission, campaign?.vaccine ?? null, doseRates);
   const ws = new Dopri5Workspace(L.size);
-  const tolerances = { ...DEFAULT_TOLERANCES, maxStep: largestStableStep(p, campaign) };
+  const tolerances = { ...DEFAULT_TOLERANCES, ...accuracy, maxStep: largestStableStep(p, campaign) };
   const days = Float64Array.from({ length: H }, (_, d) => d + 1);
   const dense = denseComponentsOf(L);
   let step = 0.25;

@@ -150,6 +150,8 @@ export interface ReciprocityCheck {
 
 export interface ScenarioResults {
   title: string;
+  /** The revision of the scenario these results belong to (`scenarioRevision`, revision.ts). */
+  revision: string;
   ageBands: string[];
   /** Basic reproduction number: NGM dominant eigenvalue, fully susceptible, no measures. */
   r0: number;

@@ -1,13 +1,16 @@
 /**
- * Entry point: a validated scenario in, every option's results out. Deterministic: the same
- * scenario gives the same numbers, bit for bit.
+ * The engine's orchestration: every option of a scenario, on this thread or over a worker pool,
+ * assembled into one `ScenarioResults` with the reference option, every averted quantity and the
+ * scenario's revision. Deterministic: the same scenario gives the same numbers, bit for bit, on
+ * one thread or many.
  */
 import { reciprocityCheck } from './contacts.ts';
 import type { Calibration } from './calibration.ts';
-import { prepareScenario } from './prepare.ts';
+import { mapPrepared, type MapOptions, type WorkerPool } from './pool/pool.ts';
+import { prepareScenario, type PreparedScenario } from './prepare.ts';
 import type { Comparison, OptionResults, ReciprocityCheck, ScenarioResults } from './results.ts';
+import { scenarioRevision } from './revision.ts';
 import type { Scenario } from './scenario.ts';
-import { simulateOption } from './simulate.ts';
 
 /** Index of the reference option: the one named by `referenceOption`, else the first. */
 export function referenceIndexOf(s: Scenario): number {
@@ -39,17 +42,16 @@ export function compareWithReference(option: OptionResults, reference: OptionRes
 }
 
 /**
- * Runs the options at `optionIndices` (all by default). Comparisons with the reference option are
- * filled when the reference is among them. `calibration`: the one `validateScenario` returned.
+ * The results of a scenario from its options' results (one per option, in option order): the
+ * reference index, each option's comparison with the reference, and the revision they belong to.
  */
-export function runOptions(s: Scenario, optionIndices: readonly number[] = s.options.map((_, k) => k), calibration?: Calibration): ScenarioResults {
-  const prepared = prepareScenario(s, calibration);
+export function assembleResults(s: Scenario, prepared: Pick<PreparedScenario, 'r0' | 'beta'>, options: OptionResults[]): ScenarioResults {
+  if (options.length !== s.options.length) throw new Error(`expected results for ${s.options.length} options, got ${options.length}`);
   const referenceIndex = referenceIndexOf(s);
-  const options = optionIndices.map((k) => simulateOption(prepared, s.options[k]));
-  const reference = options[optionIndices.indexOf(referenceIndex)];
-  if (reference !== undefined) for (const o of options) o.comparison = compareWithReference(o, reference);
+  for (const o of options) o.comparison = compareWithReference(o, options[referenceIndex]);
   return {
     title: s.title,
+    revision: scenarioRevision(s),
     ageBands: s.ageBands.map((b) => b.label),
     r0: prepared.r0,
     beta: prepared.beta,
@@ -59,7 +61,23 @@ export function runOptions(s: Scenario, optionIndices: readonly number[] = s.opt
   };
 }
 
-/** Runs every option of a validated scenario (`calibration`: the one `validateScenario` returned). */
-export function runScenario(s: Scenario, calibration?: Calibration): ScenarioResults {
-  return runOptions(s, undefined, calibration);
+/** The option indices of a scenario, the task list of the `optionRuns` job. */
+function everyOption(s: Scenario): number[] {
+  return s.options.map((_, k) => k);
+}
+
+/**
+ * Runs every option of a validated scenario on this thread, one after another (`calibration`: the
+ * one `validateScenario` returned); `options` reports progress after each option and can cancel
+ * between options (pool/pool.ts, `mapPrepared`).
+ */
+export function runScenario(s: Scenario, calibration?: Calibration, options: MapOptions = {}): ScenarioResults {
+  const prepared = prepareScenario(s, calibration);
+  return assembleResults(s, prepared, mapPrepared('optionRuns', prepared, everyOption(s), options));
+}
+
+/** As `runScenario`, with the options spread over a worker pool; the same results, byte for byte. */
+export async function runScenarioOnPool(pool: WorkerPool, s: Scenario, calibration?: Calibration, options: MapOptions = {}): Promise<ScenarioResults> {
+  const runs = await pool.map('optionRuns', s, everyOption(s), options);
+  return assembleResults(s, prepareScenario(s, calibration), runs);
 }

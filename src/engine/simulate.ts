@@ -12,7 +12,7 @@ import { convolve } from './distributions.ts';
 import { finalSizeByBand } from './finalSize.ts';
 import { doublingTimeDays, growthRateFromR, halvingTimeDays } from './growth.ts';
 import { healthcareDemand } from './healthcare/demand.ts';
-import { integrateOption } from './integrateOption.ts';
+import { type Accuracy, integrateOption } from './integrateOption.ts';
 import { yearsOfLifeLostByBand } from './lifeExpectancy.ts';
 import { hasTriggers, measuresConstant, phaseAt } from './phases.ts';
 import type { PreparedScenario } from './prepare.ts';
@@ -89,8 +89,11 @@ function vaccinationOutcomes(campaign: PreparedCampaign, plan: readonly DosePiec
   };
 }
 
-/** Runs one option of a prepared scenario. */
-export function simulateOption(p: PreparedScenario, option: PolicyOption): OptionResults {
+/**
+ * Runs one option of a prepared scenario. `accuracy` overrides the integrator's error tolerances
+ * (dopri5.ts; the defaults are those every view uses), for checks against a tighter solution.
+ */
+export function simulateOption(p: PreparedScenario, option: PolicyOption, accuracy: Accuracy = {}): OptionResults {
   const s = p.scenario;
   const n = p.bands.bands;
   const H = s.horizonDays;
@@ -102,7 +105,7 @@ export function simulateOption(p: PreparedScenario, option: PolicyOption): Optio
   const triggered = hasTriggers(option)
     ? { measures: new TriggeredMeasures(p, option, campaign?.admissionRiskFactor ?? 1), fixedPhaseAt: (t: number) => phaseAt(option, t), realized: [] as Segment[] }
     : null;
-  const daily = integrateOption(p, fixedSegments, campaign, triggered);
+  const daily = integrateOption(p, fixedSegments, campaign, triggered, accuracy);
   const segments = triggered === null ? fixedSegments : triggered.realized;
   const triggers = triggered === null ? [] : triggered.measures.controller.outcomes(H);
   const burden = measureBurden(s, option, triggers);

@@ -23,7 +23,7 @@ import { doseGroups, dosesPerDayOfGroup } from '../../src/renderer/lib/doseGroup
 import { boardCell, boardRowsFor } from '../../src/renderer/lib/boardRows.ts';
 import { formatValue } from '../../src/report/numberFormat.ts';
 import { NOT_APPLICABLE, outcome } from '../../src/report/outcomes.ts';
-import { transferablesOf } from '../../src/renderer/lib/engineProtocol.ts';
+import { optionBuffers } from '../../src/engine/pool/jobs.ts';
 import { curveOfOption } from '../../src/renderer/lib/seriesTotals.ts';
 import { screen } from '../../src/report/numberFormat.ts';
 
@@ -218,7 +218,7 @@ describe('board rows, series and transfer with hospital and vaccination results'
   });
 
   it('transfers every series buffer, hospital and doses included, each once', () => {
-    const buffers = transferablesOf(results);
+    const buffers = results.options.flatMap(optionBuffers);
     expect(new Set(buffers).size).toBe(buffers.length);
     const h = results.options[0].healthcare!.series;
     for (const a of [h.admissions, h.icuAdmissions, h.wardOccupancy, h.icuOccupancy, results.options[o].series.doses]) expect(buffers).toContain(a.buffer);

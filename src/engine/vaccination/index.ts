@@ -30,3 +30,4 @@ export {
   type SearchProgress,
   type SearchControl,
 } from './orderSearch.ts';
+export { ordersInfo, type OrdersInfo } from './ordersInfo.ts';

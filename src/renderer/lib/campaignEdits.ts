@@ -10,7 +10,7 @@ import { uniqueOptionName, type WorkingDocument } from './scenarioEdits.ts';
 
 export type Campaign = Scenario['vaccinationCampaigns'][number];
 
-/** An order template as the engine worker computed it for the scenario (see engineProtocol.ts). */
+/** An order template as the engine worker computed it for the scenario (vaccination/ordersInfo.ts in the engine). */
 export interface TemplateOrder {
   label: string;
   priority: number[][];

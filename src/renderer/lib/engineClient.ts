@@ -1,10 +1,12 @@
 /**
- * The renderer's side of the engine worker: `run(scenario)` posts a new run and resolves
- * the callback only for the newest run; older replies are ignored. `orders(scenario, option)`
- * does the same for vaccination order templates and coverage needed (newest request wins).
+ * The renderer's side of the engine: a pool of Web Workers (engine.worker.ts) running the
+ * engine's jobs (src/engine/pool). `run(scenario)` spreads the options over the pool and assembles
+ * the results with the engine (`runScenarioOnPool`); a newer run cancels the older one between
+ * options, and only the newest run's results reach `onResults`. `orders(scenario, option)` does
+ * the same for vaccination order templates and the coverage needed for R < 1 (newest wins); it
+ * queues behind a run's options, so it never delays the redraw after an edit.
  */
-import type { Scenario, ScenarioResults } from '../../engine/index.ts';
-import type { EngineReply, EngineRequest, OrdersInfo } from './engineProtocol.ts';
+import { PoolCancelled, runScenarioOnPool, WorkerPool, type OrdersInfo, type PoolEndpoint, type PoolReply, type Scenario, type ScenarioResults } from '../../engine/index.ts';
 
 export interface EngineCallbacks {
   onResults(results: ScenarioResults, runId: number, computeMs: number): void;
@@ -13,44 +15,73 @@ export interface EngineCallbacks {
   onOrdersFailure?(message: string, requestId: number): void;
 }
 
+/** Workers in the app's pool: one per logical core, at most 8 (a scenario has a handful of options). */
+function poolSize(): number {
+  const cores = typeof navigator !== 'undefined' ? navigator.hardwareConcurrency : 1;
+  return Math.max(1, Math.min(8, cores || 1));
+}
+
+function spawnWebWorker(): PoolEndpoint {
+  const worker = new Worker(new URL('./engine.worker.ts', import.meta.url), { type: 'module', name: 'mixwise-engine' });
+  return {
+    post: (message) => worker.postMessage(message),
+    listen(onReply, onCrash) {
+      worker.addEventListener('message', (event: MessageEvent<PoolReply>) => onReply(event.data));
+      worker.addEventListener('error', (event) => onCrash(event.message || 'the engine worker stopped'));
+    },
+    terminate: () => worker.terminate(),
+  };
+}
+
 export class EngineClient {
-  private readonly worker: Worker;
+  private readonly pool = new WorkerPool(spawnWebWorker, poolSize());
   private lastRunId = 0;
   private lastOrdersId = 0;
+  private running: AbortController | null = null;
+  private asking: AbortController | null = null;
 
-  constructor(private readonly callbacks: EngineCallbacks) {
-    this.worker = new Worker(new URL('./engine.worker.ts', import.meta.url), { type: 'module', name: 'mixwise-engine' });
-    this.worker.addEventListener('message', (event: MessageEvent<EngineReply>) => this.receive(event.data));
-    this.worker.addEventListener('error', (event) => this.callbacks.onFailure(event.message || 'The engine worker stopped.', this.lastRunId));
-  }
+  constructor(private readonly callbacks: EngineCallbacks) {}
 
   /** Starts a run of every option; returns its id. Any older run still going is cancelled. */
   run(scenario: Scenario): number {
-    const request: EngineRequest = { type: 'run', runId: ++this.lastRunId, scenario };
-    this.worker.postMessage(request);
-    return request.runId;
+    const runId = ++this.lastRunId;
+    this.running?.abort();
+    const control = (this.running = new AbortController());
+    const started = performance.now();
+    runScenarioOnPool(this.pool, scenario, undefined, { signal: control.signal }).then(
+      (results) => {
+        if (runId === this.lastRunId) this.callbacks.onResults(results, runId, performance.now() - started);
+      },
+      (err: unknown) => {
+        if (!(err instanceof PoolCancelled) && runId === this.lastRunId) this.callbacks.onFailure(messageOf(err), runId);
+      },
+    );
+    return runId;
   }
 
   /** Asks for the order templates and option `optionIndex`'s coverage needed for R < 1; returns the request id. */
   orders(scenario: Scenario, optionIndex: number): number {
-    const request: EngineRequest = { type: 'orders', requestId: ++this.lastOrdersId, scenario, optionIndex };
-    this.worker.postMessage(request);
-    return request.requestId;
-  }
-
-  private receive(reply: EngineReply): void {
-    if (reply.type === 'orders' || reply.type === 'orders-failed') {
-      if (reply.requestId !== this.lastOrdersId) return;
-      if (reply.type === 'orders') this.callbacks.onOrders?.(reply.orders, reply.requestId);
-      else this.callbacks.onOrdersFailure?.(reply.message, reply.requestId);
-      return;
-    }
-    if (reply.runId !== this.lastRunId) return;
-    if (reply.type === 'results') this.callbacks.onResults(reply.results, reply.runId, reply.computeMs);
-    else if (reply.type === 'failed') this.callbacks.onFailure(reply.message, reply.runId);
+    const requestId = ++this.lastOrdersId;
+    this.asking?.abort();
+    const control = (this.asking = new AbortController());
+    this.pool.map('ordersInfo', scenario, [optionIndex], { signal: control.signal }).then(
+      ([info]) => {
+        if (requestId === this.lastOrdersId) this.callbacks.onOrders?.(info, requestId);
+      },
+      (err: unknown) => {
+        if (!(err instanceof PoolCancelled) && requestId === this.lastOrdersId) this.callbacks.onOrdersFailure?.(messageOf(err), requestId);
+      },
+    );
+    return requestId;
   }
 
   dispose(): void {
-    this.worker.terminate();
+    this.running?.abort();
+    this.asking?.abort();
+    this.pool.close();
   }
+}
+
+function messageOf(err: unknown): string {
+  return err instanceof Error ? err.message : String(err);
 }

@@ -7,7 +7,7 @@ import { tick } from 'svelte';
 import { validateScenario, parseScenarioText, formatProblem, type Scenario, type ScenarioResults } from '../../engine/index.ts';
 import { EngineClient } from '../lib/engineClient.ts';
 import { problemInWords } from '../lib/problemWords.ts';
-import type { OrdersInfo } from '../lib/engineProtocol.ts';
+import { scenarioRevision, type OrdersInfo } from '../../engine/index.ts';
 import { pushHistory, redoHistory, startHistory, undoHistory, type HistoryState } from '../lib/history.ts';
 import { documentFor, replaceScenario, type WorkingDocument } from '../lib/scenarioEdits.ts';
 import { clearAutosave, loadAutosave, storeAutosave, type AutosavedCopy } from '../lib/autosave.ts';
@@ -32,6 +32,8 @@ class Workspace {
   filePath = $state<string | null>(null);
 
   results = $state.raw<ScenarioResults | null>(null);
+  /** The scenario `results` were computed from (its revision is `results.revision`). */
+  resultsScenario = $state.raw<Scenario | null>(null);
   stale = $state(true);
   computeMs = $state<number | null>(null);
   redrawMs = $state<number | null>(null);
@@ -52,8 +54,21 @@ class Workspace {
   readonly dirty = $derived(this.savedDocument !== this.history.present);
   readonly canUndo = $derived(this.history.past.length > 0);
   readonly canRedo = $derived(this.history.future.length > 0);
+  /**
+   * True when `results` has one result per option of the present scenario, in its order: the
+   * results' scenario has the same options (by name, in the same order). Stale results of such a
+   * scenario are still shown, faded, while new ones are computed.
+   */
+  readonly aligned = $derived(
+    this.results !== null &&
+      this.resultsScenario !== null &&
+      this.resultsScenario.options.length === this.scenario.options.length &&
+      this.resultsScenario.options.every((o, k) => o.name === this.scenario.options[k].name),
+  );
 
   private engine: EngineClient | null = null;
+  /** The scenario of the newest run sent to the engine. */
+  private running: Scenario | null = null;
   private ordersRequest: { scenario: Scenario; optionIndex: number } | null = null;
   private editPending = false;
   private autosaveTimer: ReturnType<typeof setTimeout> | undefined;
@@ -92,11 +107,15 @@ class Workspace {
 
   private recompute(): void {
     this.stale = true;
-    this.engine?.run(this.history.present.scenario);
+    this.running = this.history.present.scenario;
+    this.engine?.run(this.running);
   }
 
   private async receive(results: ScenarioResults, computeMs: number): Promise<void> {
+    // Only the newest run reports, so its scenario is the one last sent; the revision confirms it.
+    if (this.running === null || results.revision !== scenarioRevision(this.running)) return;
     this.results = results;
+    this.resultsScenario = this.running;
     this.stale = false;
     this.engineError = null;
     this.computeMs = computeMs;

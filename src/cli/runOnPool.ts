@@ -1,0 +1,27 @@
+/**
+ * `mixwise run` over many options: the options go to a pool of worker threads
+ * (workerThreads.ts), with the same results as one thread (the engine's `runScenarioOnPool`).
+ */
+import { availableParallelism } from 'node:os';
+import { runScenario, runScenarioOnPool, type Calibration, type Scenario, type ScenarioResults } from '../engine/index.ts';
+import { nodeWorkerPool } from './workerThreads.ts';
+
+/** From this many options up, `run` uses one thread per core by default: below it, starting threads costs more than they save. */
+export const POOL_THRESHOLD = 32;
+
+/** Threads for a run: `workers` when given, else one per core from POOL_THRESHOLD options up, else 1. */
+export function threadsFor(scenario: Scenario, workers: number | null): number {
+  if (workers !== null) return workers;
+  return scenario.options.length >= POOL_THRESHOLD ? availableParallelism() : 1;
+}
+
+/** Every option of `scenario` on `threads` threads (this one when 1). */
+export async function runOnThreads(scenario: Scenario, calibration: Calibration, threads: number): Promise<ScenarioResults> {
+  if (threads <= 1) return runScenario(scenario, calibration);
+  const pool = nodeWorkerPool(Math.min(threads, scenario.options.length));
+  try {
+    return await runScenarioOnPool(pool, scenario, calibration);
+  } finally {
+    pool.close();
+  }
+}

@@ -1,0 +1,60 @@
+/**
+ * Jobs a worker pool can run: each is a pure function of (context, task), split into a
+ * `prepare` of the context, done once per worker, and a `run` per task. Because a task's result
+ * depends on nothing else, a task list mapped over any number of workers, in any order, gives the
+ * same results as one thread running them in turn (DESIGN.md section 1, "Many runs, one shape").
+ *
+ * To add a job: write its prepare and run here (or in the module of its idea and list it below),
+ * with `transferables` naming the result's typed-array buffers so they move without copying.
+ */
+import { prepareScenario, type PreparedScenario } from '../prepare.ts';
+import type { OptionResults } from '../results.ts';
+import type { Scenario } from '../scenario.ts';
+import { simulateOption } from '../simulate.ts';
+import { ordersInfo, type OrdersInfo } from '../vaccination/ordersInfo.ts';
+
+export interface Job<Context, Prepared, Task, Result> {
+  prepare(context: Context): Prepared;
+  run(prepared: Prepared, task: Task): Result;
+  /** Buffers of the result to transfer across the worker boundary (each once). */
+  transferables(result: Result): ArrayBuffer[];
+}
+
+/** The typed-array buffers of one option's results. */
+export function optionBuffers(o: OptionResults): ArrayBuffer[] {
+  const s = o.series;
+  const arrays = [s.susceptible, s.prevalence, s.incidence, s.deaths, s.rt, s.doses];
+  const h = o.healthcare?.series;
+  if (h) arrays.push(h.admissions, h.icuAdmissions, h.wardOccupancy, h.icuOccupancy);
+  return [...new Set(arrays.map((a) => a.buffer as ArrayBuffer))];
+}
+
+/** Option k of a scenario: context = the validated scenario, task = the option's index. */
+const optionRuns: Job<Scenario, PreparedScenario, number, OptionResults> = {
+  prepare: prepareScenario,
+  run: (prepared, k) => {
+    const option = prepared.scenario.options[k];
+    if (option === undefined) throw new Error(`the scenario has no option ${k}`);
+    return simulateOption(prepared, option);
+  },
+  transferables: optionBuffers,
+};
+
+/** The app's vaccination order panel: context = the scenario, task = the option's index. */
+const ordersInfoJob: Job<Scenario, PreparedScenario, number, OrdersInfo> = {
+  prepare: prepareScenario,
+  run: ordersInfo,
+  transferables: () => [],
+};
+
+export const JOBS = {
+  optionRuns,
+  ordersInfo: ordersInfoJob,
+};
+
+export type JobName = keyof typeof JOBS;
+type JobOf<N extends JobName> = (typeof JOBS)[N];
+export type ContextOf<N extends JobName> = JobOf<N> extends Job<infer C, unknown, unknown, unknown> ? C : never;
+export type PreparedOf<N extends JobName> = JobOf<N> extends Job<never, infer P, never, unknown> ? P : never;
+export type TaskOf<N extends JobName> = JobOf<N> extends Job<never, unknown, infer T, unknown> ? T : never;
+export type ResultOf<N extends JobName> = JobOf<N> extends Job<never, unknown, never, infer R> ? R : never;

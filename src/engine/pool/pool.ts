@@ -1,0 +1,201 @@
+/**
+ * A pool of workers mapping a job over a task list: `pool.map(job, context, tasks)` resolves to
+ * the results in task order, identical to `mapInline` on one thread (each task is a pure function
+ * of context and task; jobs.ts). Platform-free: the caller passes `spawn`, which starts one worker
+ * (worker_threads in Node: src/cli/workerThreads.ts; Web Workers in the app:
+ * src/renderer/lib/engineClient.ts).
+ *
+ * Scheduling: tasks wait in one queue shared by every map in progress and go to the first worker
+ * with room; each worker holds at most PIPELINE tasks, so it never waits for the next message
+ * while the pool is busy. A worker receives a map's context once, before its first task of that map.
+ * `onProgress(done, total)` follows every result. Aborting `signal` drops the map's queued tasks
+ * and rejects it with `PoolCancelled`; tasks already on a worker finish there and are ignored.
+ * A failed task rejects its map with the task's message and drops the rest of that map.
+ */
+import type { ContextOf, JobName, PreparedOf, ResultOf, TaskOf } from './jobs.ts';
+import { JOBS, type Job } from './jobs.ts';
+import type { PoolEndpoint, PoolReply } from './protocol.ts';
+
+/** Tasks in flight per worker. */
+const PIPELINE = 2;
+
+/** What the pool needs of an AbortSignal (the engine is compiled without DOM or Node types). */
+export interface CancelSignal {
+  readonly aborted: boolean;
+  addEventListener(type: 'abort', listener: () => void, options?: { once?: boolean }): void;
+}
+
+export interface MapOptions {
+  /** Called after each result with the number of tasks done and the total. */
+  onProgress?(done: number, total: number): void;
+  /** Aborting it cancels the map (see the module comment). */
+  signal?: CancelSignal;
+}
+
+/** The rejection of a cancelled map. */
+export class PoolCancelled extends Error {
+  constructor() {
+    super('cancelled');
+    this.name = 'PoolCancelled';
+  }
+}
+
+interface MapState {
+  contextId: number;
+  job: JobName;
+  context: unknown;
+  results: unknown[];
+  done: number;
+  total: number;
+  options: MapOptions;
+  settled: boolean;
+  resolve(results: unknown[]): void;
+  reject(err: Error): void;
+}
+
+interface Queued {
+  map: MapState;
+  index: number;
+  task: unknown;
+}
+
+interface Slot {
+  endpoint: PoolEndpoint;
+  contexts: Set<number>;
+  inFlight: Map<number, Queued>;
+}
+
+export class WorkerPool {
+  private readonly slots: Slot[] = [];
+  private readonly queue: Queued[] = [];
+  private nextContextId = 1;
+  private nextTaskId = 1;
+  private closed = false;
+
+  /** Starts `size` workers (at least one) with `spawn`. */
+  constructor(
+    private readonly spawn: () => PoolEndpoint,
+    size: number,
+  ) {
+    for (let k = 0; k < Math.max(1, Math.floor(size)); k++) this.slots.push(this.start());
+  }
+
+  get size(): number {
+    return this.slots.length;
+  }
+
+  /** Runs `job` over `tasks` with `context`; the results come in task order. */
+  map<N extends JobName>(job: N, context: ContextOf<N>, tasks: readonly TaskOf<N>[], options: MapOptions = {}): Promise<ResultOf<N>[]> {
+    if (this.closed) return Promise.reject(new Error('the worker pool is closed'));
+    if (options.signal?.aborted) return Promise.reject(new PoolCancelled());
+    return new Promise<ResultOf<N>[]>((resolve, reject) => {
+      const map: MapState = {
+        contextId: this.nextContextId++,
+        job,
+        context,
+        results: new Array<unknown>(tasks.length),
+        done: 0,
+        total: tasks.length,
+        options,
+        settled: false,
+        resolve: resolve as (results: unknown[]) => void,
+        reject,
+      };
+      if (tasks.length === 0) return this.settle(map, null);
+      options.signal?.addEventListener('abort', () => this.settle(map, new PoolCancelled()), { once: true });
+      tasks.forEach((task, index) => this.queue.push({ map, index, task }));
+      this.dispatch();
+    });
+  }
+
+  /** Stops every worker; maps in progress are rejected. */
+  close(): void {
+    this.closed = true;
+    for (const q of this.queue.splice(0)) this.settle(q.map, new Error('the worker pool is closed'));
+    for (const slot of this.slots) {
+      for (const q of slot.inFlight.values()) this.settle(q.map, new Error('the worker pool is closed'));
+      slot.endpoint.terminate();
+    }
+  }
+
+  private start(): Slot {
+    const slot: Slot = { endpoint: this.spawn(), contexts: new Set(), inFlight: new Map() };
+    slot.endpoint.listen(
+      (reply) => this.receive(slot, reply),
+      (message) => this.crashed(slot, message),
+    );
+    return slot;
+  }
+
+  private dispatch(): void {
+    for (const slot of this.slots) {
+      while (slot.inFlight.size < PIPELINE && this.queue.length > 0) {
+        const next = this.queue.shift() as Queued;
+        if (next.map.settled) continue;
+        const { map } = next;
+        if (!slot.contexts.has(map.contextId)) {
+          slot.endpoint.post({ type: 'context', contextId: map.contextId, job: map.job, context: map.context });
+          slot.contexts.add(map.contextId);
+        }
+        const taskId = this.nextTaskId++;
+        slot.inFlight.set(taskId, next);
+        slot.endpoint.post({ type: 'task', taskId, contextId: map.contextId, job: map.job, task: next.task });
+      }
+    }
+  }
+
+  private receive(slot: Slot, reply: PoolReply): void {
+    const entry = slot.inFlight.get(reply.taskId);
+    slot.inFlight.delete(reply.taskId);
+    if (entry !== undefined && !entry.map.settled) {
+      const { map } = entry;
+      if (reply.type === 'failed') {
+        this.settle(map, new Error(reply.message));
+      } else {
+        map.results[entry.index] = reply.result;
+        map.done++;
+        map.options.onProgress?.(map.done, map.total);
+        if (map.done === map.total) this.settle(map, null);
+      }
+    }
+    this.dispatch();
+  }
+
+  private crashed(slot: Slot, message: string): void {
+    for (const q of slot.inFlight.values()) this.settle(q.map, new Error(`a worker stopped: ${message}`));
+    slot.endpoint.terminate();
+    const k = this.slots.indexOf(slot);
+    if (k >= 0 && !this.closed) {
+      this.slots[k] = this.start();
+      this.dispatch();
+    }
+  }
+
+  private settle(map: MapState, err: Error | null): void {
+    if (map.settled) return;
+    map.settled = true;
+    for (let k = this.queue.length - 1; k >= 0; k--) if (this.queue[k].map === map) this.queue.splice(k, 1);
+    for (const slot of this.slots) slot.contexts.delete(map.contextId);
+    if (err === null) map.resolve(map.results);
+    else map.reject(err);
+  }
+}
+
+/**
+ * The same map on the calling thread, one task after another: the reference a pool's results
+ * must equal byte for byte, and the path for one core.
+ */
+export function mapInline<N extends JobName>(job: N, context: ContextOf<N>, tasks: readonly TaskOf<N>[], options: MapOptions = {}): ResultOf<N>[] {
+  return mapPrepared(job, (JOBS[job] as unknown as Job<ContextOf<N>, PreparedOf<N>, TaskOf<N>, ResultOf<N>>).prepare(context), tasks, options);
+}
+
+/** `mapInline` with the context already prepared (by the job's own `prepare`). */
+export function mapPrepared<N extends JobName>(job: N, prepared: PreparedOf<N>, tasks: readonly TaskOf<N>[], options: MapOptions = {}): ResultOf<N>[] {
+  const j = JOBS[job] as unknown as Job<ContextOf<N>, PreparedOf<N>, TaskOf<N>, ResultOf<N>>;
+  return tasks.map((task, k) => {
+    if (options.signal?.aborted) throw new PoolCancelled();
+    const result = j.run(prepared, task);
+    options.onProgress?.(k + 1, tasks.length);
+    return result;
+  });
+}
