@@ -19,7 +19,7 @@ import type { PreparedScenario } from './prepare.ts';
 import type { Segment } from './segments.ts';
 
 /** Relative width of the certified bracket around each day's R (d >= 1). */
-export const REPRODUCTION_TOLERANCE = 1e-7;
+export const REPRODUCTION_TOLERANCE = 1e-6;
 /** Relative width of the bracket around R on day 0. */
 export const START_TOLERANCE = 1e-12;
 
