@@ -104,8 +104,11 @@ export function integrate(
   tol: Tolerances = DEFAULT_TOLERANCES,
   initialStep = 0.25,
   denseComponents: Int32Array | null = null,
+  active = y.length,
 ): number {
   const n = y.length;
+  // Intermediate stages only for the components the right-hand side reads.
+  const m = Math.min(n, active);
   const { k2, k3, k4, k5, k6, stage, r1, r2, r3, r4, r5 } = ws;
   // The current state, its derivative, the candidate state and its derivative: swapped on
   // acceptance (first same as last: k7 of a step is k1 of the next) instead of copied.
@@ -129,15 +132,15 @@ export function integrate(
     attemptedSteps++;
     const last = t + 1.01 * h >= t1;
     if (last) h = t1 - t;
-    for (let i = 0; i < n; i++) stage[i] = yNow[i] + h * A21 * k1[i];
+    for (let i = 0; i < m; i++) stage[i] = yNow[i] + h * A21 * k1[i];
     rhs(t + C2 * h, stage, k2);
-    for (let i = 0; i < n; i++) stage[i] = yNow[i] + h * (A31 * k1[i] + A32 * k2[i]);
+    for (let i = 0; i < m; i++) stage[i] = yNow[i] + h * (A31 * k1[i] + A32 * k2[i]);
     rhs(t + C3 * h, stage, k3);
-    for (let i = 0; i < n; i++) stage[i] = yNow[i] + h * (A41 * k1[i] + A42 * k2[i] + A43 * k3[i]);
+    for (let i = 0; i < m; i++) stage[i] = yNow[i] + h * (A41 * k1[i] + A42 * k2[i] + A43 * k3[i]);
     rhs(t + C4 * h, stage, k4);
-    for (let i = 0; i < n; i++) stage[i] = yNow[i] + h * (A51 * k1[i] + A52 * k2[i] + A53 * k3[i] + A54 * k4[i]);
+    for (let i = 0; i < m; i++) stage[i] = yNow[i] + h * (A51 * k1[i] + A52 * k2[i] + A53 * k3[i] + A54 * k4[i]);
     rhs(t + C5 * h, stage, k5);
-    for (let i = 0; i < n; i++) stage[i] = yNow[i] + h * (A61 * k1[i] + A62 * k2[i] + A63 * k3[i] + A64 * k4[i] + A65 * k5[i]);
+    for (let i = 0; i < m; i++) stage[i] = yNow[i] + h * (A61 * k1[i] + A62 * k2[i] + A63 * k3[i] + A64 * k4[i] + A65 * k5[i]);
     rhs(t + h, stage, k6);
     for (let i = 0; i < n; i++) yNext[i] = yNow[i] + h * (A71 * k1[i] + A73 * k3[i] + A74 * k4[i] + A75 * k5[i] + A76 * k6[i]);
     rhs(t + h, yNext, k7);

@@ -115,7 +115,7 @@ export function integrateOption(
     for (const seg of segments) {
       transmission.set(seg.transmission);
       doseRates.set(seg.doseRates);
-      step = integrate(rhs, y, seg.fromDay, seg.toDay, days, sink, ws, tolerances, Math.min(tolerances.maxStep, Math.max(step, 0.05)), dense);
+      step = integrate(rhs, y, seg.fromDay, seg.toDay, days, sink, ws, tolerances, Math.min(tolerances.maxStep, Math.max(step, 0.05)), dense, L.active);
     }
   } else {
     const { measures, fixedPhaseAt, realized } = triggered;
@@ -132,7 +132,7 @@ export function integrateOption(
         transmission.set(measures.transmissionWith(fixedPhaseAt(from)));
         const measuresChange = (from === seg.fromDay && seg.measuresChange) || switched;
         realized.push({ fromDay: from, toDay: seg.toDay, transmission: transmission.slice(), doseRates: seg.doseRates, measuresChange });
-        step = integrate(rhs, y, from, seg.toDay, days, sink, ws, tolerances, Math.min(tolerances.maxStep, Math.max(step, 0.05)), dense);
+        step = integrate(rhs, y, from, seg.toDay, days, sink, ws, tolerances, Math.min(tolerances.maxStep, Math.max(step, 0.05)), dense, L.active);
         switched = ws.stoppedAt !== null;
         from = ws.stoppedAt ?? seg.toDay;
         realized[realized.length - 1].toDay = from;

@@ -58,18 +58,36 @@ export interface StateLayout {
   dosesToNonSusceptible: number;
   /** Blocks that hold people (the rest are counters): S, E.., I.., R and W, P, V when present. */
   peopleBlocks: number[];
+  /**
+   * Components 0..active-1 are the ones the right-hand side reads (S, E, I, and W, P, U); the
+   * others (R, X, V, Xp, Q) it only writes, so the integrator need not form their stage values.
+   */
+  active: number;
   size: number;
 }
 
 export function stateLayout(bands: number, latentStages: number, infectiousStages: number, vaccination = false): StateLayout {
   const latent = bands;
   const infectious = latent + latentStages * bands;
-  const recovered = infectious + infectiousStages * bands;
-  const cumulative = recovered + bands;
-  const base = cumulative + bands;
-  const block = (k: number) => (vaccination ? base + k * bands : -1);
-  const people = [0, ...Array.from({ length: latentStages + infectiousStages + 1 }, (_, k) => latent + k * bands)];
-  if (vaccination) people.push(block(0), block(1), block(2));
+  // The blocks the right-hand side reads come first (S, E.., I.., and W, P, U with vaccination),
+  // then those it only writes (R, X, and V, Xp, Q): see `active`.
+  let next = infectious + infectiousStages * bands;
+  const take = (): number => {
+    const at = next;
+    next += bands;
+    return at;
+  };
+  const waiting = vaccination ? take() : -1;
+  const protectedSusceptible = vaccination ? take() : -1;
+  const unvaccinated = vaccination ? take() : -1;
+  const active = next;
+  const recovered = take();
+  const cumulative = take();
+  const vaccineImmune = vaccination ? take() : -1;
+  const protectedInfections = vaccination ? take() : -1;
+  const dosesToNonSusceptible = vaccination ? take() : -1;
+  const people = [0, ...Array.from({ length: latentStages + infectiousStages }, (_, k) => latent + k * bands), recovered];
+  if (vaccination) people.push(waiting, protectedSusceptible, vaccineImmune);
   return {
     bands,
     latentStages,
@@ -79,14 +97,15 @@ export function stateLayout(bands: number, latentStages: number, infectiousStage
     infectious,
     recovered,
     cumulative,
-    waiting: block(0),
-    protectedSusceptible: block(1),
-    vaccineImmune: block(2),
-    unvaccinated: block(3),
-    protectedInfections: block(4),
-    dosesToNonSusceptible: block(5),
+    waiting,
+    protectedSusceptible,
+    vaccineImmune,
+    unvaccinated,
+    protectedInfections,
+    dosesToNonSusceptible,
     peopleBlocks: people,
-    size: vaccination ? base + 6 * bands : base,
+    active,
+    size: next,
   };
 }
 
