@@ -11,6 +11,7 @@ import {
   campaignProblemText,
   checkCampaignName,
   compareOrders,
+  ordersToCompare,
   copyCampaignForOption,
   optionsUsingCampaign,
   renameCampaign,
@@ -154,6 +155,21 @@ describe('campaign edits', () => {
     expect(compareOrders(doc, 0, templates)).toBe(doc);
     // Twice: names stay unique.
     expect(valid(compareOrders(next, o, templates).scenario)).toBe(true);
+  });
+
+  it('compare orders skips a template whose order the campaign already runs', () => {
+    const own = { label: 'Its own order', priority: campaign.priority.map((g) => [...g].reverse()) };
+    const other = { label: 'Even spread across adults', priority: [[4, 5, 6], [3]] };
+    expect(ordersToCompare(campaign, [own, other])).toEqual({ added: [other], same: [own] });
+    const next = compareOrders(doc, o, [own, other]);
+    expect(next.scenario.options).toHaveLength(s.options.length + 1);
+    expect(next.scenario.options[o + 1].name).toBe(`${s.options[o].name} · Even spread across adults`);
+    expect(compareOrders(doc, o, [own])).toBe(doc);
+    // Bands with no uptake get no doses: listing them (at the end) changes nothing.
+    const unvaccinated = campaign.uptakeCeiling.flatMap((c, band) => (c === 0 ? [band] : []));
+    expect(unvaccinated.length).toBeGreaterThan(0);
+    const padded = { label: 'Same, all bands listed', priority: [...campaign.priority, ...unvaccinated.map((b) => [b])] };
+    expect(ordersToCompare(campaign, [padded]).same).toEqual([padded]);
   });
 });
 

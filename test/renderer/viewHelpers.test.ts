@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { relativeChange, screen } from '../../src/report/numberFormat.ts';
-import { changeShade, freeColourSlot, optionColour, optionLine, OPTION_COLOURS } from '../../src/renderer/lib/palette.ts';
+import { changeDirection, changeShade, freeColourSlot, optionColour, optionLine, OPTION_COLOURS } from '../../src/renderer/lib/palette.ts';
 import { commandForKey, keepsNativeUndo } from '../../src/renderer/lib/shortcuts.ts';
 import { totalOverBands } from '../../src/engine/bandTotals.ts';
 import { key } from '../helpers/keys.ts';
@@ -41,6 +41,10 @@ describe('palette', () => {
     expect(changeShade(0.5, true)).toMatch(/^rgba\(230, 159, 0/);
     expect(changeShade(0.001, true)).toBe('transparent');
     expect(changeShade(null, true)).toBe('transparent');
+    expect(changeDirection(-0.5, true)).toBe('better');
+    expect(changeDirection(0.5, true)).toBe('worse');
+    expect(changeDirection(0.5, false)).toBe('better');
+    expect(changeDirection(0.001, true)).toBeNull();
   });
 });
 

@@ -6,7 +6,7 @@
 import type { OptionResults, ScenarioResults } from '../../engine/index.ts';
 import { OUTCOMES, isReferenceCell, outcomeText, outcomesFor, overCapacity, shadeValue, type Outcome } from '../../report/outcomes.ts';
 import { relativeChange } from '../../report/numberFormat.ts';
-import { changeShade } from './palette.ts';
+import { changeDirection, changeShade } from './palette.ts';
 
 export { OUTCOME_GROUP_TITLES as ROW_GROUP_TITLES } from '../../report/outcomes.ts';
 
@@ -27,6 +27,8 @@ export interface BoardCell {
   detail: string;
   /** Background: better blue / worse orange by change against the reference, or transparent. */
   shade: string;
+  /** The same change as a word, for marks that do not rely on colour; null when unshaded. */
+  direction: 'better' | 'worse' | null;
   /** Bed rows: the peak exceeds the beds available (marked rather than shaded). */
   over: boolean;
   /** Whether the row has a capacity to be over at all. */
@@ -38,16 +40,19 @@ export function boardCell(entry: Outcome, o: OptionResults, results: ScenarioRes
   const reference = results.options[results.referenceIndex];
   const mine = shadeValue(entry, o, results);
   const theirs = shadeValue(entry, reference, results);
-  const shade =
+  const change =
     o === reference || mine.lowerIsBetter === null || mine.value === null || theirs.value === null
-      ? 'transparent'
-      : changeShade(relativeChange(mine.value, theirs.value), mine.lowerIsBetter);
+      ? null
+      : { relative: relativeChange(mine.value, theirs.value), lowerIsBetter: mine.lowerIsBetter };
+  const shade = change === null ? 'transparent' : changeShade(change.relative, change.lowerIsBetter);
+  const direction = change === null ? null : changeDirection(change.relative, change.lowerIsBetter);
   return {
     value: entry.read(o, results),
     reference: isReferenceCell(entry, o, results),
     text: outcomeText(entry, o, results, 'screen'),
     detail: entry.detail?.(o, results) ?? '',
     shade,
+    direction,
     over: overCapacity(entry, o, results),
     hasCapacity: entry.capacity !== undefined,
   };

@@ -6,6 +6,7 @@
  */
 import { ADULT_AGE_YEARS, type Scenario } from '../../engine/index.ts';
 import { freeColourSlot } from './palette.ts';
+import { sameOrder } from './priorityOrder.ts';
 import { uniqueOptionName, type WorkingDocument } from './scenarioEdits.ts';
 
 export type Campaign = Scenario['vaccinationCampaigns'][number];
@@ -117,18 +118,40 @@ export function checkCampaignName(campaigns: readonly Campaign[], index: number,
 }
 
 /**
- * Compare orders: after option `optionIndex`, adds one copy of it per template, each running a
- * copy of its campaign ordered by that template ("<campaign> · <template>"), option named
- * "<option> · <template>". One document, so one undo step. Unchanged when the option has no campaign.
+ * The order as it acts for this campaign: bands whose uptake ceiling is 0 never get a dose, so
+ * they (and groups left empty) make no difference to where doses go.
+ */
+function effectiveOrder(priority: readonly (readonly number[])[], uptakeCeiling: readonly number[]): number[][] {
+  return priority.map((group) => group.filter((band) => (uptakeCeiling[band] ?? 0) > 0)).filter((group) => group.length > 0);
+}
+
+/**
+ * The templates worth a copy of a campaign: those whose order gives doses differently from the
+ * campaign's own (`same`: the ones it already runs, up to bands that get no doses, which would
+ * only duplicate the original).
+ */
+export function ordersToCompare(campaign: Campaign, templates: readonly TemplateOrder[]): { added: TemplateOrder[]; same: TemplateOrder[] } {
+  const own = effectiveOrder(campaign.priority, campaign.uptakeCeiling);
+  const same = templates.filter((t) => sameOrder(effectiveOrder(t.priority, campaign.uptakeCeiling), own));
+  return { added: templates.filter((t) => !same.includes(t)), same };
+}
+
+/**
+ * Compare orders: after option `optionIndex`, adds one copy of it per template whose order differs
+ * from its campaign's, each running a copy of its campaign ordered by that template
+ * ("<campaign> · <template>"), option named "<option> · <template>". One document, so one undo
+ * step. Unchanged when the option has no campaign or every template is its own order.
  */
 export function compareOrders(doc: WorkingDocument, optionIndex: number, templates: readonly TemplateOrder[]): WorkingDocument {
   const found = campaignOfOption(doc.scenario, optionIndex);
-  if (found === null || templates.length === 0) return doc;
+  if (found === null) return doc;
+  const { added: differing } = ordersToCompare(found.campaign, templates);
+  if (differing.length === 0) return doc;
   const source = doc.scenario.options[optionIndex];
   const campaigns = [...doc.scenario.vaccinationCampaigns];
   const options = [...doc.scenario.options];
   const slots = [...doc.colourSlots];
-  const added = templates.map((t) => {
+  const added = differing.map((t) => {
     const campaignName = uniqueCampaignName(campaigns, `${found.campaign.name} · ${t.label}`);
     campaigns.push({ ...structuredClone(found.campaign), name: campaignName, priority: t.priority.map((g) => [...g]) });
     const optionName = uniqueOptionName(options, `${source.name} · ${t.label}`);

@@ -50,18 +50,31 @@ export function freeColourSlot(used: readonly number[]): number {
   return slot;
 }
 
+/** Changes smaller than this share of the reference are left unshaded (common practice: half a percent). */
+const SMALLEST_SHADED_CHANGE = 0.005;
+
+/**
+ * Which way a change against the reference goes for the analyst: 'better', 'worse', or null when
+ * it is too small to mark. `relativeChange` is (value - reference) / |reference|.
+ */
+export function changeDirection(relativeChange: number | null, lowerIsBetter: boolean): 'better' | 'worse' | null {
+  if (relativeChange === null || !Number.isFinite(relativeChange) || Math.abs(relativeChange) < SMALLEST_SHADED_CHANGE) return null;
+  return (lowerIsBetter ? relativeChange < 0 : relativeChange > 0) ? 'better' : 'worse';
+}
+
 /**
  * Diverging shade for a change against the reference: blue when better, orange when worse
  * (a blue/orange pair stays distinct under the common colour-vision deficiencies; Okabe & Ito 2008).
- * `relativeChange` is (value - reference) / |reference|; `lowerIsBetter` says which way is good.
- * Returns a translucent background, strength capped at a 100 % change.
+ * Returns a translucent background, strength capped at a 100 % change. The strongest blue is kept
+ * light enough for grey small text to keep 4.5:1 on it; in grey the two are told apart by the
+ * pattern the board draws on worse cells, not by the tint.
  */
 export function changeShade(relativeChange: number | null, lowerIsBetter: boolean): string {
-  if (relativeChange === null || !Number.isFinite(relativeChange) || Math.abs(relativeChange) < 0.005) return 'transparent';
-  const better = lowerIsBetter ? relativeChange < 0 : relativeChange > 0;
+  const direction = changeDirection(relativeChange, lowerIsBetter);
+  if (direction === null || relativeChange === null) return 'transparent';
   const strength = Math.min(1, Math.abs(relativeChange));
-  const alpha = (0.1 + 0.45 * strength).toFixed(2);
-  return better ? `rgba(0, 114, 178, ${alpha})` : `rgba(230, 159, 0, ${alpha})`;
+  const alpha = (0.1 + 0.3 * strength).toFixed(2);
+  return direction === 'better' ? `rgba(0, 114, 178, ${alpha})` : `rgba(230, 159, 0, ${alpha})`;
 }
 
 /** Sequential ramp for heatmaps, white to deep blue; `t` in [0, 1]. */
