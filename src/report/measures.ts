@@ -6,7 +6,7 @@
  * up to but not including `toDay`; the summary prints both ends included (fromDay to toDay - 1),
  * cut to the horizon. Settings not named in a phase stay at 100% of usual contacts.
  */
-import type { AgeFactor, Campaign, Phase, PolicyOption, Scenario, ScenarioResults, Trigger, TriggerOutcome, TriggerQuantity } from '../engine/index.ts';
+import type { AgeFactor, Campaign, MeasureBurden, OptionResults, Phase, PhaseReproduction, PolicyOption, Scenario, ScenarioResults, Trigger, TriggerOutcome, TriggerQuantity } from '../engine/index.ts';
 import { print } from './numberFormat.ts';
 
 export interface PhaseSummary {
@@ -18,6 +18,8 @@ export interface PhaseSummary {
   rule: string | null;
   /** For a triggered phase with results: what it did ("switched on 2 times, first on day 45, in force 63 days"); else null. */
   fired: string | null;
+  /** With results: R under the phase ("R 2.16 at its start, 2.16 with everyone susceptible"); else null. */
+  r: string | null;
 }
 
 /** What a trigger watches, in words, with the unit of its thresholds. */
@@ -69,6 +71,16 @@ export interface OptionSummary {
   noMeasures: string | null;
   /** The option's vaccination campaign in plain words, or null without one. */
   vaccination: string | null;
+  /** With results and measures: the contacts they removed, by setting, in full-closure days; else null. */
+  burden: string | null;
+}
+
+/** "school 56.0 full-closure days; home -11.2 (contacts added)": settings whose contacts changed. */
+export function burdenText(burden: MeasureBurden): string | null {
+  const parts = Object.entries(burden.fullClosureDays)
+    .filter(([, x]) => Math.abs(x) >= 0.05)
+    .map(([setting, x]) => `${setting} ${print.decimal(x, 1)}${x < 0 ? ' (contacts added)' : ''}`);
+  return parts.length === 0 ? null : `Contacts removed over the horizon, in full-closure days of each setting: ${parts.join('; ')}.`;
 }
 
 function bandList(bands: readonly number[], labels: readonly string[]): string {
@@ -127,8 +139,9 @@ export function campaignText(campaign: Campaign, bandLabels: readonly string[]):
   );
 }
 
-/** `triggers`: the option's results, to say what each trigger did (omit for the rule alone). */
-export function optionSummary(option: PolicyOption, scenario: Scenario, isReference: boolean, triggers: readonly TriggerOutcome[] = []): OptionSummary {
+/** `result`: the option's results, to say what each trigger did, R under each phase and the contacts removed (omit for the measures alone). */
+export function optionSummary(option: PolicyOption, scenario: Scenario, isReference: boolean, result?: OptionResults): OptionSummary {
+  const triggers = result?.triggers ?? [];
   const labels = scenario.ageBands.map((b) => b.label);
   const phases: PhaseSummary[] = [];
   const ordered = option.phases.map((phase, index) => ({ phase, index })).sort((a, b) => a.phase.fromDay - b.phase.fromDay);
@@ -141,6 +154,7 @@ export function optionSummary(option: PolicyOption, scenario: Scenario, isRefere
       what: phaseMeasuresText(phase, labels),
       rule: phase.trigger === undefined ? null : triggerRuleText(phase.trigger),
       fired: outcome === undefined ? null : triggerFiredText(outcome),
+      r: rText(result?.rByPhase[index]),
     });
   }
   const campaign = option.vaccinationCampaign === undefined ? undefined : scenario.vaccinationCampaigns.find((c) => c.name === option.vaccinationCampaign);
@@ -151,10 +165,16 @@ export function optionSummary(option: PolicyOption, scenario: Scenario, isRefere
     phases,
     noMeasures: phases.length === 0 ? `No contact measures: contacts as usual for all ${scenario.horizonDays} days.` : null,
     vaccination: campaign === undefined ? null : campaignText(campaign, labels),
+    burden: result === undefined ? null : burdenText(result.measureBurden),
   };
+}
+
+function rText(r: PhaseReproduction | undefined): string | null {
+  if (r === undefined) return null;
+  return `R ${print.r(r.rAtPhaseStart)} on day ${r.startDay}, ${print.r(r.rMeasuresOnly)} with everyone susceptible`;
 }
 
 /** Summaries of every option, in the scenario's order; with `results`, what each trigger did. */
 export function optionSummaries(scenario: Scenario, referenceIndex: number, results?: ScenarioResults): OptionSummary[] {
-  return scenario.options.map((o, k) => optionSummary(o, scenario, k === referenceIndex, results?.options[k]?.triggers ?? []));
+  return scenario.options.map((o, k) => optionSummary(o, scenario, k === referenceIndex, results?.options[k]));
 }

@@ -522,10 +522,13 @@ export const OUTCOMES: readonly Outcome[] = [
     requires: ['measures'],
     shownOn: ['board', 'table'],
     read: (o) => firstPhase(o)?.rAtPhaseStart ?? null,
+    // On screen every phase; in print the first phase's R (the report's option summaries list every phase).
     text: (o, f) =>
-      phasesByStart(o)
-        .map((p) => `${f.style === 'screen' ? 'from ' : ''}day ${p.startDay}: ${f.r(p.rAtPhaseStart)} (${f.r(p.rMeasuresOnly)})`)
-        .join(f.style === 'screen' ? ' · ' : '; '),
+      f.style === 'print'
+        ? f.r(firstPhase(o)?.rAtPhaseStart ?? Number.NaN)
+        : phasesByStart(o)
+            .map((p) => `from day ${p.startDay}: ${f.r(p.rAtPhaseStart)} (${f.r(p.rMeasuresOnly)})`)
+            .join(' · '),
   },
   {
     key: 'daysUnderMeasures',
@@ -576,7 +579,8 @@ export const OUTCOMES: readonly Outcome[] = [
     kind: 'days',
     lowerIsBetter: null,
     requires: ['measures'],
-    shownOn: ['board', 'table'],
+    // The printed report gives these by setting in its option summaries.
+    shownOn: ['board'],
     read: (o) => Object.values(o.measureBurden.fullClosureDays).reduce((acc, x) => acc + x, 0),
     text: (o, f) => {
       const parts = Object.entries(o.measureBurden.fullClosureDays)

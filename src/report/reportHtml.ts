@@ -38,8 +38,8 @@ function summaryHtml(summary: OptionSummary, index: number, styleOf: StyleOf): s
     summary.noMeasures !== null
       ? `<p>${esc(summary.noMeasures)}</p>`
       : `<ul>${summary.phases
-          .map((p) => `<li><strong>${esc(p.when)}:</strong> ${esc(p.what)}${p.rule === null ? '' : ` — ${esc(p.rule)}`}.${p.fired === null ? '' : ` It ${esc(p.fired)}.`}</li>`)
-          .join('')}</ul>`;
+          .map((p) => `<li><strong>${esc(p.when)}:</strong> ${esc(p.what)}${p.rule === null ? '' : ` — ${esc(p.rule)}`}.${p.fired === null ? '' : ` It ${esc(p.fired)}.`}${p.r === null ? '' : ` ${esc(p.r)}.`}</li>`)
+          .join('')}</ul>${summary.burden === null ? '' : `<p>${esc(summary.burden)}</p>`}`;
   const vaccination = summary.vaccination === null ? '' : `<p><strong>Vaccination:</strong> ${esc(summary.vaccination)}.</p>`;
   return `<section class="option-summary"><h3>${legendSwatchSvg(styleOf(index))} ${esc(summary.name)}${tag}</h3>${description}${measures}${vaccination}</section>`;
 }

@@ -5,6 +5,7 @@ import { optionSummaries, optionSummary, phaseWhenText } from '../../src/report/
 import { buildReportHtml } from '../../src/report/reportHtml.ts';
 import { demoScenario } from '../helpers/demo.ts';
 import type { ReportMeta } from '../../src/report/reportTypes.ts';
+import { print } from '../../src/report/numberFormat.ts';
 import { demo } from './helpers.ts';
 
 const META: ReportMeta = { appVersion: '1.2.3', generatedAt: new Date(2031, 4, 6, 7, 8), fingerprint: 'f'.repeat(64), paper: 'A4', orientation: 'portrait' };
@@ -16,8 +17,8 @@ describe('option summaries', () => {
   it('describe each demo option in plain words', () => {
     expect(summaries.map((s) => s.name)).toEqual(scenario.options.map((o) => o.name));
     expect(summaries[0]).toMatchObject({ isReference: true, phases: [], noMeasures: 'No contact measures: contacts as usual for all 365 days.', vaccination: null });
-    expect(summaries[1].phases).toEqual([{ when: 'Days 21 to 76 (56 days)', what: 'school contacts 0% of usual (closed); home contacts 120% of usual', rule: null, fired: null }]);
-    expect(summaries[2].phases).toEqual([{ when: 'Whole horizon (days 0 to 364)', what: 'work contacts 50% of usual', rule: null, fired: null }]);
+    expect(summaries[1].phases).toEqual([{ when: 'Days 21 to 76 (56 days)', what: 'school contacts 0% of usual (closed); home contacts 120% of usual', rule: null, fired: null, r: null }]);
+    expect(summaries[2].phases).toEqual([{ when: 'Whole horizon (days 0 to 364)', what: 'work contacts 50% of usual', rule: null, fired: null, r: null }]);
     expect(summaries[3].phases[0].what).toBe('work contacts of ages 70-74, 75+ at 25% of usual; other contacts of ages 70-74, 75+ at 25% of usual');
     expect(summaries[1].isReference).toBe(false);
     const vaccinated = summaries.find((s, k) => scenario.options[k].vaccinationCampaign !== undefined);
@@ -37,8 +38,8 @@ describe('option summaries', () => {
     };
     const s = optionSummary(option, scenario, false);
     expect(s.phases).toEqual([
-      { when: 'Day 10 only', what: 'no change to contacts', rule: null, fired: null },
-      { when: 'Days 300 to 364 (65 days)', what: 'other contacts 33.3% of usual; infectiousness of cases cut by 30% (isolation)', rule: null, fired: null },
+      { when: 'Day 10 only', what: 'no change to contacts', rule: null, fired: null, r: null },
+      { when: 'Days 300 to 364 (65 days)', what: 'other contacts 33.3% of usual; infectiousness of cases cut by 30% (isolation)', rule: null, fired: null, r: null },
     ]);
     expect(phaseWhenText(option.phases[0], 365)).toBeNull();
   });
@@ -85,3 +86,14 @@ function demoForTriggers() {
     ],
   };
 }
+
+describe('R under each phase and the contacts removed, in the option summaries', () => {
+  const { scenario, results } = demo();
+  const summaries = optionSummaries(scenario, results.referenceIndex, results);
+  it('gives R at the phase start and at full susceptibility, and the full-closure days by setting', () => {
+    const o = results.options[1];
+    expect(summaries[1].phases[0].r).toBe(`R ${print.r(o.rByPhase[0].rAtPhaseStart)} on day 21, ${print.r(o.rByPhase[0].rMeasuresOnly)} with everyone susceptible`);
+    expect(summaries[1].burden).toBe('Contacts removed over the horizon, in full-closure days of each setting: home -11.2 (contacts added); school 56.0.');
+    expect(summaries[0].burden).toBeNull();
+  });
+});
