@@ -111,7 +111,7 @@ export const MUTANTS: Mutant[] = [
   { id: 'dist-trim', file: 'src/engine/distributions.ts', find: 'weights[last - 1] < 1e-16', replace: 'weights[last - 1] < 1e-3', what: 'kernel tail trimmed too far' },
   { id: 'hc-icu-ward-stay', file: 'src/engine/healthcare/demand.ts', find: 'addInto(wardOccupancy, convolve(icu, g.icuPatientWardBedDays));', replace: '', what: 'ward stay of ICU patients not counted' },
   { id: 'hc-complete', file: 'src/engine/healthcare/demand.ts', find: 'lag < k.length ? k[lag] : complete', replace: 'lag < k.length ? k[lag] : 0', what: 'admissions of early infections dropped' },
-  { id: 'vx-risk-ratio', file: 'src/engine/vaccination/prepare.ts', find: '(1 - efficacyAgainstOutcome) / (1 - efficacyAgainstInfection)', replace: '(1 - efficacyAgainstOutcome)', what: 'relative risk given infection not divided by 1 - e_I' },
-  { id: 'vx-admission-default', file: 'src/engine/vaccination/prepare.ts', find: 'c.efficacyAgainstAdmission ?? c.efficacyAgainstDeath', replace: 'c.efficacyAgainstAdmission ?? 0', what: 'admission efficacy defaults to 0' },
+  { id: 'vx-risk-ratio', file: 'src/engine/vaccination/prepareCampaign.ts', find: '(1 - efficacyAgainstOutcome) / (1 - efficacyAgainstInfection)', replace: '(1 - efficacyAgainstOutcome)', what: 'relative risk given infection not divided by 1 - e_I' },
+  { id: 'vx-admission-default', file: 'src/engine/vaccination/prepareCampaign.ts', find: 'c.efficacyAgainstAdmission ?? c.efficacyAgainstDeath', replace: 'c.efficacyAgainstAdmission ?? 0', what: 'admission efficacy defaults to 0' },
   { id: 'run-per-1000', file: 'src/engine/run.ts', find: '(1000 * averted) / doses', replace: 'averted / doses', what: 'averted per dose, not per 1,000 doses' },
 ];

@@ -1,6 +1,6 @@
 /**
  * The local Chromium every headless use of a browser shares: `mixwise report --out X.pdf`
- * (report-pdf.ts) and the browser tests (playwright.config.ts). Always Debian's chromium package
+ * (reportPdf.ts) and the browser tests (playwright.config.ts). Always Debian's chromium package
  * or $CHROMIUM_PATH, never a downloaded browser.
  */
 

@@ -9,7 +9,7 @@ import { EXIT_CODES, type ExitCode } from './errors.ts';
 import { readTextFile, writeFileAtomically } from './files.ts';
 import { formatReport } from './format.ts';
 import { csvSourceOf } from './nodeFingerprint.ts';
-import { reciprocityNotes, reciprocityRows } from './reciprocity-notes.ts';
+import { reciprocityNotes, reciprocityRows } from './reciprocityNotes.ts';
 import { runOnThreads, threadsFor } from './runOnPool.ts';
 
 export interface Output {

@@ -8,7 +8,7 @@
  * words.ts, as for every command.
  */
 import { periodsOf, dailyTotals, fitGrowth, formatCsvProblem, isoDateToEpochDay, measuresRatioForOption, parseCaseCountsCsv, r0FromFit, type CaseSeries, type CountModel, type GrowthFit, type MeasuresRatio, type R0FromFit } from '../engine/index.ts';
-import { CAUTION } from './caution.ts';
+import { CAUTION } from '../report/index.ts';
 import { loadScenarioOrComplain, type Output } from './commands.ts';
 import { EXIT_CODES, type ExitCode } from './errors.ts';
 import { readTextFile } from './files.ts';

@@ -1,6 +1,6 @@
 /** The text of `mixwise --help`. */
 import { OUTPUT_FORMATS } from './args.ts';
-import { CAUTION } from './caution.ts';
+import { CAUTION } from '../report/index.ts';
 import { POOL_THRESHOLD } from './runOnPool.ts';
 
 export const HELP_TEXT = `mixwise - compare public-health policy options with an age-structured SEIR model

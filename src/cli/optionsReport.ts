@@ -10,8 +10,8 @@
  */
 import type { OptionResults, ScenarioResults } from '../engine/index.ts';
 import { BAND_OUTCOMES, OUTCOMES } from '../report/outcomes.ts';
-import { CAUTION } from './caution.ts';
-import { reciprocityRows, type ReciprocityRow } from './reciprocity-notes.ts';
+import { CAUTION } from '../report/index.ts';
+import { reciprocityRows, type ReciprocityRow } from './reciprocityNotes.ts';
 
 /**
  * One option: `name`, one member per outcome key (number or null) and per by-band key (array),

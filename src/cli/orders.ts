@@ -8,7 +8,7 @@
  */
 import { inThreadEvaluator, ORDER_OUTCOMES, parseGroupSpec, prepareOrderSearch, priorityOf, searchOrders, type OrderOutcomes, type OrderSearchJob, type OrderSearchResult, type OrderSearchSettings, type Scenario } from '../engine/index.ts';
 import { orderText } from '../report/orderText.ts';
-import { CAUTION } from './caution.ts';
+import { CAUTION } from '../report/index.ts';
 import { loadScenarioOrComplain, type Output } from './commands.ts';
 import { CliError, EXIT_CODES, reportFault, type ExitCode } from './errors.ts';
 import { HELP_TEXT } from './help.ts';

@@ -10,8 +10,8 @@ import { buildReportHtml, dailySeriesCsv, optionsTableCsv, scenarioFingerprint }
 import { loadScenarioOrComplain, type Output } from './commands.ts';
 import { EXIT_CODES, reportFault, type ExitCode } from './errors.ts';
 import { writeFileAtomically } from './files.ts';
-import { parseReportArgs, type ReportArgs } from './report-args.ts';
-import { findChromium, printHtmlToPdf } from './report-pdf.ts';
+import { parseReportArgs, type ReportArgs } from './reportArgs.ts';
+import { findChromium, printHtmlToPdf } from './reportPdf.ts';
 
 export interface ReportContext {
   /** Environment (CHROMIUM_PATH). */

@@ -7,8 +7,8 @@ import type { ScenarioResults } from '../engine/index.ts';
 import { print } from '../report/numberFormat.ts';
 import { columnGroups, optionsTable } from '../report/optionsTable.ts';
 import { BAND_OUTCOMES, formatBandValue } from '../report/outcomes.ts';
-import { CAUTION } from './caution.ts';
-import { reciprocityNotes, reciprocityRows } from './reciprocity-notes.ts';
+import { CAUTION } from '../report/index.ts';
+import { reciprocityNotes, reciprocityRows } from './reciprocityNotes.ts';
 
 /** Option columns per table, so a table fits a terminal about 120 characters wide. */
 export const OPTIONS_PER_TABLE = 4;

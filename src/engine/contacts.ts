@@ -80,6 +80,13 @@ export function effectiveContactMatrix(scenario: Scenario, phase: Phase | null):
 }
 
 /**
+ * Relative imbalance up to which a contact matrix counts as reciprocal (0.1%): far above rounding
+ * noise, far below what survey-based matrices can resolve (common practice). The app offers a
+ * correction and the CLI writes a note only above it.
+ */
+export const RECIPROCITY_TOLERANCE = 1e-3;
+
+/**
  * Largest relative reciprocity imbalance of a contact matrix:
  * max over i<j of |N_i C_ij - N_j C_ji| / max(N_i C_ij, N_j C_ji) (0 = balanced, 1 = one-sided).
  */

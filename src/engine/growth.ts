@@ -11,7 +11,7 @@
  * With one stage each this is R = (1 + r T_E)(1 + r T_I) = (1 + r/sigma)(1 + r/gamma),
  * Wallinga & Lipsitch's eq. for SEIR. Because every age band shares the same periods, the leading
  * eigenvalue of the linearised age-structured infected subsystem equals the r solving
- * rho(K) M(r) = 1 (tested against a direct eigen computation in test/engine/growth.test.ts).
+ * rho(K) M(r) = 1 (tested against a direct eigen computation in test/engine/ngm.test.ts).
  */
 import type { Scenario } from './scenario.ts';
 

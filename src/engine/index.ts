@@ -12,7 +12,7 @@ export { WorkerPool, PoolCancelled, mapInline, mapPrepared, type MapOptions, typ
 export { JOBS, optionBuffers, type Job, type JobName, type ContextOf, type TaskOf, type ResultOf } from './pool/jobs.ts';
 export { serveJobs } from './pool/serve.ts';
 export type { PoolEndpoint, PoolRequest, PoolReply, WorkerSide } from './pool/protocol.ts';
-export { effectiveContactMatrix, reciprocityCheck, correctReciprocity } from './contacts.ts';
+export { effectiveContactMatrix, reciprocityCheck, correctReciprocity, RECIPROCITY_TOLERANCE } from './contacts.ts';
 export { phaseAt, changeDays, measuresConstant } from './phases.ts';
 export {
   growthRateFromR,
@@ -26,7 +26,7 @@ export {
 export { prepareScenario, type PreparedScenario } from './prepare.ts';
 export { simulateOption } from './simulate.ts';
 export { finalSizeByBand } from './finalSize.ts';
-export { nextGenerationMatrix, dominantEigenvalue } from './ngm.ts';
+export { dominantEigenvalue } from './ngm.ts';
 export { integratorStepsSoFar } from './dopri5.ts';
 export * from './healthcare/index.ts';
 export * from './vaccination/index.ts';

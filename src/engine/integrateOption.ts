@@ -8,7 +8,7 @@ import { protectedRisk, seirRightHandSide, type StateLayout, stateLayout } from 
 import type { Segment } from './segments.ts';
 import type { Phase } from './scenario.ts';
 import type { TriggeredMeasures } from './triggeredMeasures.ts';
-import type { PreparedCampaign } from './vaccination/prepare.ts';
+import type { PreparedCampaign } from './vaccination/prepareCampaign.ts';
 
 /**
  * Daily state on days 0..H by band (band-major rows), negative rounding noise clipped to 0.

@@ -21,13 +21,6 @@ export function nextGenerationMatrixInto(out: Float64Array, transmission: Float6
   return out;
 }
 
-/** K as rows, for display and tests. */
-export function nextGenerationMatrix(transmission: Float64Array, susceptible: ArrayLike<number>, infectiousPeriodDays: number): number[][] {
-  const n = susceptible.length;
-  const flat = nextGenerationMatrixInto(new Float64Array(n * n), transmission, susceptible, infectiousPeriodDays);
-  return Array.from({ length: n }, (_, i) => Array.from(flat.subarray(i * n, (i + 1) * n)));
-}
-
 /** Entries of K below this fraction of its largest entry are dropped before the eigen decomposition. */
 const NEGLIGIBLE_ENTRY = 1e-14;
 

@@ -5,9 +5,9 @@
 import { type Calibration, calibrateTransmission } from './calibration.ts';
 import { type Periods, periodsOf } from './growth.ts';
 import { delayKernel } from './healthcare/kernels.ts';
-import { type PreparedHealthcare, prepareHealthcare } from './healthcare/prepare.ts';
+import { type PreparedHealthcare, prepareHealthcare } from './healthcare/prepareHealthcare.ts';
 import { initialStateOf } from './initialState.ts';
-import { type PreparedCampaign, prepareCampaign } from './vaccination/prepare.ts';
+import { type PreparedCampaign, prepareCampaign } from './vaccination/prepareCampaign.ts';
 import { remainingLifeExpectancyByBand } from './lifeExpectancy.ts';
 import type { Scenario } from './scenario.ts';
 import { type StateLayout, stateLayout } from './seir.ts';

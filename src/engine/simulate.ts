@@ -25,7 +25,7 @@ import { TriggeredMeasures } from './triggeredMeasures.ts';
 import { measureBurden } from './measureBurden.ts';
 import { reproductionByPhase } from './rByPhase.ts';
 import { type DosePiece, dosesByBandUntil } from './vaccination/dosePlan.ts';
-import type { PreparedCampaign } from './vaccination/prepare.ts';
+import type { PreparedCampaign } from './vaccination/prepareCampaign.ts';
 
 /** Daily differences of a cumulative series (days 0..H, by band): new counts in [d, d+1), d = 0..H-1. */
 function dailyDifferences(cumulative: Float64Array, n: number, H: number): Float64Array {

@@ -7,13 +7,13 @@
  */
 import type { z } from 'zod';
 import { type Calibration, calibrateTransmission, calibrationProblem } from './calibration.ts';
-import { healthcareProblems } from './healthcare/validation.ts';
+import { healthcareProblems } from './healthcare/healthcareProblems.ts';
 import { lifeTableProblems } from './lifeExpectancy.ts';
 import { jsonValueProblems, readJsonText } from './jsonText.ts';
 import { formatPath, formatProblem, type Problem } from './problems.ts';
 import { isReservedName, strictInputProblems } from './strictInput.ts';
-import { vaccinationProblems } from './vaccination/validation.ts';
-import { uncertaintyProblems } from './uncertainty/validation.ts';
+import { vaccinationProblems } from './vaccination/vaccinationProblems.ts';
+import { uncertaintyProblems } from './uncertainty/uncertaintyProblems.ts';
 import { HOSPITAL_TRIGGER_QUANTITIES, scenarioSchema, type Scenario, type Trigger } from './scenario.ts';
 
 /** A valid scenario comes with its calibration, to hand to `prepareScenario` / `runScenario`. */

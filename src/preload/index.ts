@@ -1,6 +1,6 @@
 /**
  * Preload: exposes one typed object, `window.mixwiseHost`, and nothing else. It forwards
- * to the main process over the channels in api.ts; main validates every message again.
+ * to the main process over the channels in src/shared/hostApi.ts; main validates every message again.
  */
 import { contextBridge, ipcRenderer } from 'electron';
 import { HOST_GLOBAL, IPC, MENU_COMMANDS, type MenuCommand, type MixwiseHost } from '../shared/hostApi.ts';

@@ -2,7 +2,7 @@
  * How each option is drawn in the printed charts. Colours: the palette of Okabe M, Ito K (2008),
  * "Color Universal Design (CUD): how to make figures and presentations that are friendly to
  * colorblind people", minus its yellow (too faint on white), plus dark grey: the same colours,
- * in the same order, as the app (src/renderer/lib/palette.ts). Because a printout may be
+ * in the same order, as the app (src/renderer/lib/optionLines.ts). Because a printout may be
  * grey, every option also has its own dash pattern and marker shape; colour, dash and marker
  * cycle with different periods (7, 4, 6), so the first 84 options all differ in at least one.
  */

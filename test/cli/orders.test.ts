@@ -1,6 +1,6 @@
 /** `mixwise orders`: JSON shape of issue 15, agreement with `run`, the table, and bad requests (one line, exit 2). */
 import { describe, expect, it } from 'vitest';
-import { CAUTION } from '../../src/cli/caution.ts';
+import { CAUTION } from '../../src/report/cautions.ts';
 import { mainAsync } from '../../src/cli/main.ts';
 import { runScenario } from '../../src/engine/index.ts';
 import { validateScenario } from '../../src/engine/validation.ts';

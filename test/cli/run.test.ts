@@ -5,7 +5,7 @@
 import { existsSync, readFileSync, readdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { CAUTION } from '../../src/cli/caution.ts';
+import { CAUTION } from '../../src/report/cautions.ts';
 import { runScenario } from '../../src/engine/index.ts';
 import { validateScenario } from '../../src/engine/validation.ts';
 import { DEMO, demoJson, runCli, tempDir, writeTemp } from './helpers.ts';

@@ -13,7 +13,7 @@ import {
   defaultInfectionHospitalisationRatio,
   SYMPTOMATIC_SHARE,
 } from '../../src/engine/healthcare/defaults.ts';
-import { prepareHealthcare } from '../../src/engine/healthcare/prepare.ts';
+import { prepareHealthcare } from '../../src/engine/healthcare/prepareHealthcare.ts';
 import { runScenario } from '../../src/engine/run.ts';
 import type { ScenarioInput } from '../../src/engine/scenario.ts';
 import { formatProblem } from '../../src/engine/problems.ts';

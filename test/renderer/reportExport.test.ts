@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import Papa from 'papaparse';
 import { csvText, exportFileName } from '../../src/renderer/lib/reportDocument.ts';
 import { commandForKey } from '../../src/renderer/lib/shortcuts.ts';
-import { OPTION_COLOURS } from '../../src/renderer/lib/palette.ts';
+import { OPTION_COLOURS } from '../../src/renderer/lib/optionLines.ts';
 import { OPTION_COLOURS as REPORT_COLOURS, scenarioFingerprint } from '../../src/report/index.ts';
 import { APP_VERSION } from '../../src/renderer/lib/appVersion.ts';
 import { runScenario } from '../../src/engine/index.ts';

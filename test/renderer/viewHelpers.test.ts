@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { relativeChange, screen } from '../../src/report/numberFormat.ts';
-import { changeDirection, changeShade, freeColourSlot, optionColour, optionLine, OPTION_COLOURS } from '../../src/renderer/lib/palette.ts';
+import { changeDirection, changeShade, freeColourSlot, optionColour, optionLine, OPTION_COLOURS } from '../../src/renderer/lib/optionLines.ts';
 import { commandForKey, keepsNativeUndo } from '../../src/renderer/lib/shortcuts.ts';
 import { totalOverBands } from '../../src/engine/bandTotals.ts';
 import { key } from '../helpers/keys.ts';

@@ -25,7 +25,7 @@
 import { convolve } from '../distributions.ts';
 import type { HealthcareOutcomes } from '../results.ts';
 import { bedDemand } from './capacity.ts';
-import type { DelayGroup, PreparedHealthcare } from './prepare.ts';
+import type { DelayGroup, PreparedHealthcare } from './prepareHealthcare.ts';
 
 /** sum_{i in bands} scale_i x series[d][i] for each day d (band-major rows of width `width`). */
 function groupSum(series: Float64Array, width: number, bands: readonly number[], scale: Float64Array): Float64Array {

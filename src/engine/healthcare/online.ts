@@ -7,7 +7,7 @@
  *
  * Cost: one day costs a sum over each kernel's length per delay group, O(H x K) for a horizon.
  */
-import type { PreparedHealthcare } from './prepare.ts';
+import type { PreparedHealthcare } from './prepareHealthcare.ts';
 
 /** sum_{a <= d} x(a) w(d - a): day d of the causal convolution of x with w. */
 function convolvedAt(x: Float64Array, w: Float64Array, d: number): number {

@@ -22,7 +22,7 @@ import { simulateOption } from '../simulate.ts';
 import type { PreparedScenario } from '../prepare.ts';
 import type { OptionResults } from '../results.ts';
 import type { PolicyOption } from '../scenario.ts';
-import { type PreparedCampaign, prepareCampaign } from './prepare.ts';
+import { type PreparedCampaign, prepareCampaign } from './prepareCampaign.ts';
 
 export const ORDER_OUTCOMES = ['deaths', 'infections', 'admissions', 'peakIcuOccupancy', 'yearsOfLifeLost'] as const;
 /** An outcome an order can be chosen to minimise. */

@@ -6,7 +6,7 @@
 import type { OptionResults, ScenarioResults } from '../../engine/index.ts';
 import { OUTCOMES, isReferenceCell, outcomeText, outcomesFor, overCapacity, shadeValue, type Outcome } from '../../report/outcomes.ts';
 import { relativeChange } from '../../report/numberFormat.ts';
-import { changeDirection, changeShade } from './palette.ts';
+import { changeDirection, changeShade } from './optionLines.ts';
 
 export { OUTCOME_GROUP_TITLES as ROW_GROUP_TITLES } from '../../report/outcomes.ts';
 

@@ -5,7 +5,7 @@
  * campaign names are unique and options refer to a campaign by name.
  */
 import { ADULT_AGE_YEARS, type Scenario } from '../../engine/index.ts';
-import { freeColourSlot } from './palette.ts';
+import { freeColourSlot } from './optionLines.ts';
 import { sameOrder } from './priorityOrder.ts';
 import { uniqueOptionName, type WorkingDocument } from './scenarioEdits.ts';
 

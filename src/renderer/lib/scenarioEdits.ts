@@ -6,7 +6,7 @@
  * along with its option so an option keeps its colour when others are added, moved or deleted.
  */
 import type { Phase, PolicyOption, Scenario } from '../../engine/index.ts';
-import { freeColourSlot } from './palette.ts';
+import { freeColourSlot } from './optionLines.ts';
 
 export interface WorkingDocument {
   scenario: Scenario;

@@ -4,10 +4,9 @@
  * Components read this and call its actions; they do no model math.
  */
 import { tick } from 'svelte';
-import { validateScenario, parseScenarioText, formatProblem, type Scenario, type ScenarioResults } from '../../engine/index.ts';
+import { validateScenario, parseScenarioText, formatProblem, scenarioRevision, type Scenario, type ScenarioResults, type OrdersInfo } from '../../engine/index.ts';
 import { EngineClient } from '../lib/engineClient.ts';
 import { problemInWords } from '../lib/problemWords.ts';
-import { scenarioRevision, type OrdersInfo } from '../../engine/index.ts';
 import { pushHistory, redoHistory, startHistory, undoHistory, type HistoryState } from '../lib/history.ts';
 import { documentFor, replaceScenario, type WorkingDocument } from '../lib/scenarioEdits.ts';
 import { clearAutosave, loadAutosave, storeAutosave, type AutosavedCopy } from '../lib/autosave.ts';

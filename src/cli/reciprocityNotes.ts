@@ -2,7 +2,7 @@
  * Notes on contact matrices that do not balance (N_i C_ij != N_j C_ji). The engine uses the
  * matrices as given; the note tells the analyst how far off they are and where.
  */
-import type { ReciprocityCheck } from '../engine/index.ts';
+import { RECIPROCITY_TOLERANCE, type ReciprocityCheck } from '../engine/index.ts';
 import { print } from '../report/numberFormat.ts';
 
 export interface ReciprocityRow {
@@ -13,18 +13,15 @@ export interface ReciprocityRow {
   at: [string, string];
 }
 
-/** Imbalance above which a matrix is reported as not reciprocal, fraction (rounding noise is far below). */
-export const RECIPROCITY_NOTE_THRESHOLD = 1e-6;
-
 export function reciprocityRows(checks: readonly ReciprocityCheck[], bandLabels: readonly string[]): ReciprocityRow[] {
   const label = (i: number): string => bandLabels[i] ?? String(i);
   return checks.map((c) => ({ setting: c.setting, largestRelativeImbalance: c.largestRelativeImbalance, at: [label(c.at[0]), label(c.at[1])] }));
 }
 
-/** One sentence per setting whose imbalance is above the threshold. */
+/** One sentence per setting whose imbalance is above the engine's RECIPROCITY_TOLERANCE. */
 export function reciprocityNotes(rows: readonly ReciprocityRow[]): string[] {
   return rows
-    .filter((r) => r.largestRelativeImbalance > RECIPROCITY_NOTE_THRESHOLD)
+    .filter((r) => r.largestRelativeImbalance > RECIPROCITY_TOLERANCE)
     .map(
       (r) =>
         `contacts in setting "${r.setting}" are not reciprocal (used as given): largest imbalance ` +
