@@ -2,6 +2,8 @@
  * `npm run bench`: what one option run costs, against a peer measured in the same run.
  * 1. The demo scenario (16 bands, 365 days), one core: median per option, as CPU time of this
  *    thread (what the engine costs, unaffected by other processes taking the core) and wall time.
+ *    Also a triggered option (measures switched by ICU occupancy) against the same measures on
+ *    fixed days.
  * 2. The peer: the same model in scipy (bench/scipy_peer.py: solve_ivp RK45, rtol 1e-6, atol
  *    scaled to the population), on the demo's options without vaccination; the ratio per option.
  *    Skipped, with a note, where python3 with scipy is missing (Debian: apt-get install python3-scipy).
@@ -56,6 +58,20 @@ for (const option of demo.options) {
   engineMs.set(option.name, cpu);
   const kind = option.vaccinationCampaign === undefined ? '' : ' (vaccination)';
   console.log(`   ${(option.name + kind).padEnd(40)} ${cpu.toFixed(3)} / ${wall.toFixed(3)}`);
+}
+
+// Triggered measures (issue 14): the same measures switched by ICU occupancy, against fixed days.
+{
+  const fixed = demo.options.find((o) => o.phases.length === 1 && o.phases[0].fromDay > 0) ?? demo.options[1];
+  const phase = fixed.phases[0];
+  const triggered: PolicyOption = {
+    ...fixed,
+    name: `${fixed.name}, when ICU fills`,
+    phases: [{ ...phase, fromDay: 0, toDay: demo.horizonDays, trigger: { quantity: 'icuOccupancy', onAbove: 80, offBelow: 40, minimumDaysOn: 14, lagDays: 3 } }],
+  };
+  const a = measure(() => simulateOption(prepared, fixed), 25, 4).cpu;
+  const b = measure(() => simulateOption(prepared, triggered), 25, 4).cpu;
+  console.log(`   ${triggered.name.padEnd(40)} ${b.toFixed(3)} ms: ${(b / a).toFixed(2)}x the same measures on fixed days (goal <= 2x)`);
 }
 
 console.log('\n2. peer: the same model in scipy solve_ivp (RK45, rtol 1e-6), options without vaccination');
