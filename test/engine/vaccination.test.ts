@@ -202,6 +202,7 @@ describe('priority templates', () => {
 });
 
 describe('property: any valid order and supply keeps every compartment non-negative', () => {
+  const share = fc.oneof(fc.constant(0), fc.constant(1), fc.double({ min: 0.05, max: 1, noNaN: true }));
   it('holds for random orders, schedules, efficacies and protection types (fast-check)', () => {
     const base = twoBand({ seed: 0.5, horizon: 120 });
     const three = valid({
@@ -219,9 +220,11 @@ describe('property: any valid order and supply keeps every compartment non-negat
     fc.assert(
       fc.property(
         order,
-        fc.array(fc.record({ fromDay: fc.integer({ min: 0, max: 100 }), dosesPerDay: fc.double({ min: 0, max: 500, noNaN: true }) }), { minLength: 1, maxLength: 3 }),
-        fc.tuple(fc.double({ min: 0, max: 1, noNaN: true }), fc.double({ min: 0, max: 1, noNaN: true }), fc.double({ min: 0, max: 1, noNaN: true })),
-        fc.double({ min: 0, max: 1, noNaN: true }),
+        // fc.double favours extremes (0, 1e-300, 1): without the explicit ranges almost no drawn
+        // campaign gave doses enough to move people, and a model losing protected people passed.
+        fc.array(fc.record({ fromDay: fc.integer({ min: 0, max: 100 }), dosesPerDay: fc.oneof(fc.constant(0), fc.double({ min: 1, max: 500, noNaN: true })) }), { minLength: 1, maxLength: 3 }),
+        fc.tuple(share, share, share),
+        share,
         fc.constantFrom('leaky' as const, 'allOrNothing' as const),
         fc.double({ min: 1, max: 30, noNaN: true }),
         (priority, steps, ceiling, efficacy, protection, delay) => {
