@@ -9,7 +9,7 @@
  * counts in persons (beds, doses).
  */
 import type { OptionResults, ScenarioResults } from '../engine/index.ts';
-import { BAND_OUTCOMES, OUTCOMES } from '../report/outcomes.ts';
+import { BAND_OUTCOMES, OUTCOMES, outcomeDatum } from '../report/outcomes.ts';
 import { CAUTION } from '../report/index.ts';
 import { reciprocityRows, type ReciprocityRow } from './reciprocityNotes.ts';
 
@@ -24,6 +24,8 @@ type MeasureDetails = Pick<OptionResults, 'triggers' | 'rByPhase' | 'measureBurd
 
 export interface OptionsReport {
   title: string;
+  /** The scenario's day 0 (ISO 8601), null without one. */
+  startDate: string | null;
   ageBands: string[];
   r0: number;
   horizonDays: number;
@@ -36,13 +38,14 @@ export interface OptionsReport {
 export function optionsReport(results: ScenarioResults): OptionsReport {
   return {
     title: results.title,
+    startDate: results.startDate,
     ageBands: results.ageBands,
     r0: results.r0,
     horizonDays: results.options[0]?.series.days ?? 0,
     referenceOption: results.options[results.referenceIndex]?.name ?? '',
     options: results.options.map((o) => {
       const row: OptionRow = { name: o.name };
-      for (const e of OUTCOMES) row[e.key] = e.read(o, results);
+      for (const e of OUTCOMES) row[e.key] = outcomeDatum(e, o, results);
       for (const b of BAND_OUTCOMES) row[b.key] = b.read(o, results);
       row.triggers = o.triggers;
       row.rByPhase = o.rByPhase;

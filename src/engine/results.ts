@@ -152,6 +152,8 @@ export interface ScenarioResults {
   title: string;
   /** The revision of the scenario these results belong to (`scenarioRevision`, revision.ts). */
   revision: string;
+  /** The scenario's day 0 as an ISO 8601 date (YYYY-MM-DD); null when the scenario has no start date. */
+  startDate: string | null;
   ageBands: string[];
   /** Basic reproduction number: NGM dominant eigenvalue, fully susceptible, no measures. */
   r0: number;

@@ -52,6 +52,7 @@ export function assembleResults(s: Scenario, prepared: Pick<PreparedScenario, 'r
   return {
     title: s.title,
     revision: scenarioRevision(s),
+    startDate: s.startDate ?? null,
     ageBands: s.ageBands.map((b) => b.label),
     r0: prepared.r0,
     beta: prepared.beta,

@@ -30,6 +30,7 @@ import { fitRecordSchema } from './fitting/fitRecordSchema.ts';
 import { lifeTableSchema } from './lifeExpectancy.ts';
 import { uncertaintySchema } from './uncertainty/schema.ts';
 import { DEFAULT_ADMISSION_DELAY, DEFAULT_ICU_PATIENT_WARD_STAY, DEFAULT_ICU_STAY, DEFAULT_WARD_STAY } from './healthcare/defaults.ts';
+import { isoDateToEpochDay } from './fitting/isoDate.ts';
 
 export const SCENARIO_FORMAT = 'mixwise-scenario';
 export const SCENARIO_VERSION = 1;
@@ -202,6 +203,11 @@ export const scenarioSchema = z.object({
   disease: diseaseSchema,
   severity: severitySchema,
   initialState: initialStateSchema,
+  /** Optional: the calendar date of day 0 (ISO 8601, YYYY-MM-DD); every day shown then also shows its date. */
+  startDate: z
+    .string()
+    .refine((text) => isoDateToEpochDay(text) !== null, { message: 'must be a calendar date written YYYY-MM-DD' })
+    .optional(),
   horizonDays: z.number().int().min(1, { message: 'must be >= 1' }).max(3650, { message: 'must be <= 3650' }),
   /** Name of the option others are compared with; the first option if absent. */
   referenceOption: z.string().optional(),

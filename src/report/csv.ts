@@ -14,7 +14,8 @@
  */
 import type { ScenarioResults } from '../engine/index.ts';
 import { CAUTION } from './cautions.ts';
-import { appliesTo, BAND_OUTCOMES, outcomesFor } from './outcomes.ts';
+import { appliesTo, BAND_OUTCOMES, outcomeDatum, outcomesFor } from './outcomes.ts';
+import { dateOfDay } from './numberFormat.ts';
 
 type Field = string | number | boolean | null;
 
@@ -77,11 +78,11 @@ export function optionsTableCsv(results: ScenarioResults, source: CsvSource): st
   const rows = results.options.map((o, k): Field[] => [
     o.name,
     k === results.referenceIndex,
-    ...outcomes.map((e) => (appliesTo(e, o) ? e.read(o, results) : null)),
+    ...outcomes.map((e) => (appliesTo(e, o) ? outcomeDatum(e, o, results) : null)),
     ...bands.flatMap((b) => (appliesTo(b, o) ? b.read(o, results) : results.ageBands.map(() => null))),
   ]);
   const units =
-    'Units: rates per day; times in days; day numbers from day 0 (the scenario\'s first day); prevalence, attack rates and shares as fractions 0-1; ' +
+    'Units: rates per day; times in days; day numbers from day 0 (the scenario\'s first day); dates ISO 8601 (YYYY-MM-DD); prevalence, attack rates and shares as fractions 0-1; ' +
     'counts in persons (beds, doses); averted = reference minus option.';
   return csvHeaderBlock('policy options table', results, source, units) + csvLines([header, ...rows]);
 }
@@ -108,24 +109,27 @@ export type DailyQuantity = keyof typeof DAILY_QUANTITIES;
  * and doses for options with a vaccination campaign) have one line per band (the band's label)
  * and one for their sum over bands (band `all`); the others exist for all bands only. Days: 0..H
  * for susceptible, prevalence and R(t); 0..H-1 for quantities counted during a day. Lines are
- * ordered by option, quantity, band, day.
+ * ordered by option, quantity, band, day. When the scenario has a start date, a `date` column
+ * (ISO 8601) follows `day`.
  */
 export function dailySeriesCsv(results: ScenarioResults, source: CsvSource): string {
-  const lines: Field[][] = [['option', 'day', 'band', 'quantity', 'value']];
+  const start = results.startDate;
+  const dayFields = (d: number): Field[] => (start === null ? [d] : [d, dateOfDay(start, d)]);
+  const lines: Field[][] = [['option', ...(start === null ? ['day'] : ['day', 'date']), 'band', 'quantity', 'value']];
   for (const o of results.options) {
     const s = o.series;
     const byBand = (quantity: DailyQuantity, values: Float64Array, dayCount: number): void => {
       for (let i = 0; i < s.bands; i++) {
-        for (let d = 0; d < dayCount; d++) lines.push([o.name, d, results.ageBands[i], quantity, values[d * s.bands + i]]);
+        for (let d = 0; d < dayCount; d++) lines.push([o.name, ...dayFields(d), results.ageBands[i], quantity, values[d * s.bands + i]]);
       }
       for (let d = 0; d < dayCount; d++) {
         let total = 0;
         for (let i = 0; i < s.bands; i++) total += values[d * s.bands + i];
-        lines.push([o.name, d, 'all', quantity, total]);
+        lines.push([o.name, ...dayFields(d), 'all', quantity, total]);
       }
     };
     const allBands = (quantity: DailyQuantity, values: Float64Array): void => {
-      for (let d = 0; d < values.length; d++) lines.push([o.name, d, 'all', quantity, values[d]]);
+      for (let d = 0; d < values.length; d++) lines.push([o.name, ...dayFields(d), 'all', quantity, values[d]]);
     };
     byBand('susceptible', s.susceptible, s.days + 1);
     byBand('prevalence', s.prevalence, s.days + 1);

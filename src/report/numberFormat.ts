@@ -20,7 +20,8 @@ export type NumberStyle = 'screen' | 'print';
  * - `fraction`: a share 0-1, written as a percentage
  * - `ratePerDay`: an exponential growth rate per day
  * - `days`: a duration in days (one decimal unless whole)
- * - `day`: a day number of the horizon (day 0 = the scenario's first day)
+ * - `day`: a day number of the horizon (day 0 = the scenario's first day), followed by its calendar
+ *   date in brackets when the scenario's start date is known (`ValueContext`)
  * - `ratio`: a dimensionless ratio such as R, two decimals (a unit such as "per 1,000 doses" may follow)
  * - `date`: a day number of the horizon written as its calendar date (ISO 8601) when the scenario's
  *   start date is known (`ValueContext`), else as a day
@@ -201,8 +202,11 @@ export function formatValue(format: ValueFormat, value: number, style: NumberSty
       return f.growthRate(value);
     case 'days':
       return style === 'screen' ? `${wholeOrOneDecimal(value)} ${value === 1 ? 'day' : 'days'}` : f.days(value);
-    case 'day':
-      return f.day(value);
+    case 'day': {
+      // With a start date a day also shows its date: screen "day 45 (2026-04-15)", print "45 (2026-04-15)".
+      const date = context.startDate == null ? null : dateOfDay(context.startDate, value);
+      return date === null ? f.day(value) : `${f.day(value)} (${date})`;
+    }
     case 'ratio':
       return withUnit(f.decimal(value, digits));
     case 'date': {

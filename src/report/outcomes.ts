@@ -9,7 +9,7 @@
  * Pure TypeScript: no DOM, no Node.
  */
 import type { BedDemand, OptionResults, ScenarioResults } from '../engine/index.ts';
-import { screen, type NumberStyle, type ValueContext, type ValueFormat, formatValue, numberFormatter, type NumberFormatter } from './numberFormat.ts';
+import { dateOfDay, screen, type NumberStyle, type ValueContext, type ValueFormat, formatValue, numberFormatter, type NumberFormatter } from './numberFormat.ts';
 
 export type OutcomeGroup = 'spread' | 'hospital' | 'vaccination' | 'measures';
 
@@ -184,6 +184,20 @@ export const OUTCOMES: readonly Outcome[] = [
     lowerIsBetter: null,
     requires: [],
     shownOn: ['board', 'table'],
+    read: (o) => o.peakDay,
+  },
+  {
+    key: 'peakDate',
+    column: 'peak_date',
+    label: 'Peak date',
+    printLabel: 'Peak date (most infected)',
+    hint: 'Calendar date of the peak day (the scenario\'s start date plus the peak day)',
+    group: 'spread',
+    kind: 'date',
+    lowerIsBetter: null,
+    requires: [],
+    // The peak day's row already shows its date on the board and in the report.
+    shownOn: [],
     read: (o) => o.peakDay,
   },
   {
@@ -630,9 +644,26 @@ export function appliesTo(entry: { requires: readonly Requirement[] }, o: Option
   return entry.requires.every((r) => holds(r, o));
 }
 
-/** Outcomes that apply to at least one option of these results, in catalogue order; only those shown on `surface` when given. */
+/** Outcomes that apply to at least one option of these results, in catalogue order; only those shown on `surface` when given. Dates need the scenario's start date. */
 export function outcomesFor(results: ScenarioResults, surface?: Surface): Outcome[] {
-  return OUTCOMES.filter((e) => (surface === undefined || e.shownOn.includes(surface)) && results.options.some((o) => appliesTo(e, o)));
+  return OUTCOMES.filter(
+    (e) => (surface === undefined || e.shownOn.includes(surface)) && (e.kind !== 'date' || results.startDate !== null) && results.options.some((o) => appliesTo(e, o)),
+  );
+}
+
+/** How the results write dates: day numbers as calendar dates from the scenario's start date. */
+export function valueContextOf(results: ScenarioResults): ValueContext {
+  return { startDate: results.startDate };
+}
+
+/**
+ * An outcome as data (JSON and CSV): the number, or for a `date` outcome its ISO 8601 date
+ * (null without a start date); null where the engine gives none.
+ */
+export function outcomeDatum(entry: Outcome, o: OptionResults, results: ScenarioResults): number | string | null {
+  const value = entry.read(o, results);
+  if (entry.kind !== 'date' || value === null) return value;
+  return results.startDate === null ? null : dateOfDay(results.startDate, value);
 }
 
 /** Whether this option is the one the others are compared with. */
@@ -650,7 +681,7 @@ export function isReferenceCell(entry: Outcome, o: OptionResults, results: Scena
  * "reference" for a comparison in the reference's own column, else the value in the style (with its unit
  * on screen).
  */
-export function outcomeText(entry: Outcome, o: OptionResults, results: ScenarioResults, style: NumberStyle, context: ValueContext = {}): string {
+export function outcomeText(entry: Outcome, o: OptionResults, results: ScenarioResults, style: NumberStyle, context: ValueContext = valueContextOf(results)): string {
   if (!appliesTo(entry, o)) return NOT_APPLICABLE[style];
   if (isReferenceCell(entry, o, results)) return REFERENCE_CELL;
   if (entry.text !== undefined) return entry.text(o, numberFormatter(style));
