@@ -9,7 +9,7 @@ import { mainAsync } from '../../src/cli/main.ts';
 import { scenarioFingerprintSync } from '../../src/cli/nodeFingerprint.ts';
 import { runScenario } from '../../src/engine/index.ts';
 import { scenarioFingerprint } from '../../src/report/fingerprint.ts';
-import { BAND_OUTCOMES, OUTCOMES } from '../../src/report/outcomes.ts';
+import { BAND_OUTCOMES, OUTCOMES, outcomeDatum } from '../../src/report/outcomes.ts';
 import { demoScenario } from '../helpers/demo.ts';
 import { DEMO, demoJson, runCli, writeTemp } from './helpers.ts';
 
@@ -49,7 +49,7 @@ describe('catalogue keys are the JSON keys of mixwise run --format json', () => 
 
   it('each key holds the value the catalogue reads from the engine', () => {
     results.options.forEach((o, k) => {
-      for (const e of OUTCOMES) expect(json.options[k][e.key], e.key).toBe(e.read(o, results));
+      for (const e of OUTCOMES) expect(json.options[k][e.key], e.key).toBe(outcomeDatum(e, o, results));
       for (const b of BAND_OUTCOMES) expect(json.options[k][b.key], b.key).toEqual(b.read(o, results));
     });
   });
