@@ -3,8 +3,11 @@
  * Each writes through `Output` and returns its exit code; file and usage faults are thrown
  * as `CliError` and reported by main.
  */
-import { formatProblem, parseScenarioText, reciprocityBySetting, runScenario, type Calibration, type Scenario, type ScenarioResults, type ValidationResult } from '../engine/index.ts';
-import type { OutputFormat } from './args.ts';
+import { formatProblem, parseScenarioText, reciprocityBySetting, runScenario, type Calibration, type DrawResult, type Scenario, type ScenarioResults, type ValidationResult } from '../engine/index.ts';
+import type { DrawOptions, OutputFormat } from './args.ts';
+import { mergeParts, partFileText } from './drawParts.ts';
+import { computeDraws, scenarioForDraws, summarise } from './uncertainty.ts';
+import { DRAW_OUTCOME_KEYS } from '../report/drawOutcomes.ts';
 import { EXIT_CODES, type ExitCode } from './errors.ts';
 import { readTextFile, writeFileAtomically } from './files.ts';
 import { formatReport } from './format.ts';
@@ -33,23 +36,48 @@ export function loadScenarioOrComplain(io: Output, file: string): { scenario: Sc
 }
 
 function writeResults(io: Output, scenario: Scenario, results: ScenarioResults, format: OutputFormat, out: string | null): ExitCode {
-  const text = formatReport(results, format, csvSourceOf(scenario));
-  if (out === null) io.out(text);
-  else writeFileAtomically(out, text);
+  write(io, out, formatReport(results, format, csvSourceOf(scenario)));
   return EXIT_CODES.ok;
 }
 
-/** `run` on this thread. */
-export function runCommand(io: Output, file: string, format: OutputFormat, out: string | null): ExitCode {
+function write(io: Output, out: string | null, text: string): void {
+  if (out === null) io.out(text);
+  else writeFileAtomically(out, text);
+}
+
+/** The options report of a scenario, with the summary of its draws when it has an uncertainty section. */
+function reportText(scenario: Scenario, calibration: Calibration | undefined, format: OutputFormat, draws: () => DrawResult[]): string {
+  const summary = scenario.uncertainty === undefined ? undefined : summarise(scenario, draws());
+  return formatReport(runScenario(scenario, calibration), format, csvSourceOf(scenario), summary);
+}
+
+/** `run` on this thread; with an uncertainty section, also its draws (or the slice `--draw-range` asks for). */
+export function runCommand(io: Output, file: string, format: OutputFormat, out: string | null, drawOptions: DrawOptions = {}): ExitCode {
   const loaded = loadScenarioOrComplain(io, file);
   if (loaded === null) return EXIT_CODES.invalidScenario;
-  return writeResults(io, loaded.scenario, runScenario(loaded.scenario, loaded.calibration), format, out);
+  const scenario = scenarioForDraws(loaded.scenario, drawOptions);
+  const range = drawOptions.range;
+  if (range !== undefined) {
+    write(io, out, partFileText(scenario, DRAW_OUTCOME_KEYS, range.from, range.to, computeDraws(scenario, range.from, range.to)));
+    return EXIT_CODES.ok;
+  }
+  write(io, out, reportText(scenario, loaded.calibration, format, () => computeDraws(scenario, 0, scenario.uncertainty?.draws ?? 0)));
+  return EXIT_CODES.ok;
+}
+
+/** `mixwise merge PART...`: the output a single run over all the parts' draws gives. */
+export function mergeCommand(io: Output, files: readonly string[], format: OutputFormat, out: string | null): ExitCode {
+  const merged = mergeParts(files.map((file) => ({ file, text: readTextFile(file) })), DRAW_OUTCOME_KEYS);
+  write(io, out, reportText(merged.scenario, merged.calibration, format, () => merged.results));
+  return EXIT_CODES.ok;
 }
 
 /** `run` with the options spread over worker threads when there are many (runOnPool.ts); the same output. */
-export async function runCommandOnThreads(io: Output, file: string, format: OutputFormat, out: string | null, workers: number | null): Promise<ExitCode> {
+export async function runCommandOnThreads(io: Output, file: string, format: OutputFormat, out: string | null, workers: number | null, drawOptions: DrawOptions = {}): Promise<ExitCode> {
   const loaded = loadScenarioOrComplain(io, file);
   if (loaded === null) return EXIT_CODES.invalidScenario;
+  // Uncertainty draws still run on this thread (the pool for draws is not wired yet).
+  if (loaded.scenario.uncertainty !== undefined || Object.keys(drawOptions).length > 0) return runCommand(io, file, format, out, drawOptions);
   return writeResults(io, loaded.scenario, await runOnThreads(loaded.scenario, loaded.calibration, threadsFor(loaded.scenario, workers)), format, out);
 }
 

@@ -1,17 +1,20 @@
 /** Renders the results of `mixwise run` in the format asked for on the command line. */
-import type { ScenarioResults } from '../engine/index.ts';
+import type { ScenarioResults, UncertaintyResults } from '../engine/index.ts';
 import { optionsTableCsv, type CsvSource } from '../report/csv.ts';
 import type { OutputFormat } from './args.ts';
 import { formatMarkdown } from './formatMarkdown.ts';
 import { formatText } from './formatText.ts';
 import { optionsReport } from './optionsReport.ts';
 import { printedReport } from './tableModel.ts';
+import { withUncertainty } from './uncertainty.ts';
 
-/** `source` names the scenario and program version in the CSV header block. */
-export function formatReport(results: ScenarioResults, format: OutputFormat, source: CsvSource): string {
+/** `source` names the scenario and program version in the CSV header block; `draws` summarises the uncertainty draws, if any. */
+export function formatReport(results: ScenarioResults, format: OutputFormat, source: CsvSource, draws?: UncertaintyResults): string {
   switch (format) {
-    case 'json':
-      return `${JSON.stringify(optionsReport(results), null, 2)}\n`;
+    case 'json': {
+      const report = optionsReport(results);
+      return `${JSON.stringify(draws === undefined ? report : withUncertainty(report, draws), null, 2)}\n`;
+    }
     case 'csv':
       return optionsTableCsv(results, source);
     case 'md':

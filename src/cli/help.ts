@@ -12,6 +12,14 @@ Usage:
       file is replaced only once the new one is complete. --workers N spreads the options
       over N threads (default: one per core from ${POOL_THRESHOLD} options up, else 1); the
       numbers are the same, digit for digit, whatever N.
+  mixwise run FILE [--draws N] [--seed S] [--draw-range A:B --out PART]
+      With an "uncertainty" section in FILE: also N Latin hypercube draws of the uncertain
+      parameters (--draws and --seed override the file), giving intervals of every outcome,
+      the chance each option does better than the reference or best, and the PRCC of each
+      parameter. --draw-range A:B computes draws A to B-1 only and writes a part file.
+  mixwise merge PART... [--out PATH] [--format json|table|md|csv]
+      Combine the part files of one scenario into exactly the output of a single run
+      (default format: json). The parts may come from other processes or machines.
   mixwise check FILE
       Check the scenario FILE against the format's rules; list every problem with its
       place in the file.

@@ -4,7 +4,7 @@
  */
 import packageJson from '../../package.json' with { type: 'json' };
 import { parseArgs } from './args.ts';
-import { checkCommand, runCommand, runCommandOnThreads, type Output } from './commands.ts';
+import { checkCommand, mergeCommand, runCommand, runCommandOnThreads, type Output } from './commands.ts';
 import { EXIT_CODES, reportFault, type ExitCode } from './errors.ts';
 import { fitCommand } from './fit.ts';
 import { HELP_TEXT } from './help.ts';
@@ -23,7 +23,9 @@ function execute(argv: readonly string[], io: Output): ExitCode {
       io.out(`mixwise ${packageJson.version}\n`);
       return EXIT_CODES.ok;
     case 'run':
-      return runCommand(io, command.file, command.format, command.out);
+      return runCommand(io, command.file, command.format, command.out, command.draws);
+    case 'merge':
+      return mergeCommand(io, command.files, command.format, command.out);
     case 'check':
       return checkCommand(io, command.file);
   }
@@ -49,7 +51,7 @@ export async function mainAsync(argv: readonly string[], io: Output): Promise<Ex
   if (argv[0] === 'run' && !wantsHelp) {
     try {
       const command = parseArgs(argv);
-      if (command.kind === 'run') return await runCommandOnThreads(io, command.file, command.format, command.out, command.workers);
+      if (command.kind === 'run') return await runCommandOnThreads(io, command.file, command.format, command.out, command.workers, command.draws);
     } catch (err) {
       return reportFault(err, (text) => io.err(text));
     }

@@ -15,9 +15,9 @@ function usageMessage(argv: string[]): string {
 
 describe('parseArgs', () => {
   it('reads run with its defaults and both option spellings', () => {
-    expect(parseArgs(['run', 'a.json'])).toEqual({ kind: 'run', file: 'a.json', format: 'table', out: null, workers: null });
-    expect(parseArgs(['run', '--format', 'csv', 'a.json', '--out', 'o.csv'])).toEqual({ kind: 'run', file: 'a.json', format: 'csv', out: 'o.csv', workers: null });
-    expect(parseArgs(['run', 'a.json', '--format=md', '--out=x.md'])).toEqual({ kind: 'run', file: 'a.json', format: 'md', out: 'x.md', workers: null });
+    expect(parseArgs(['run', 'a.json'])).toEqual({ kind: 'run', file: 'a.json', format: 'table', out: null, workers: null, draws: {} });
+    expect(parseArgs(['run', '--format', 'csv', 'a.json', '--out', 'o.csv'])).toEqual({ kind: 'run', file: 'a.json', format: 'csv', out: 'o.csv', workers: null, draws: {} });
+    expect(parseArgs(['run', 'a.json', '--format=md', '--out=x.md'])).toEqual({ kind: 'run', file: 'a.json', format: 'md', out: 'x.md', workers: null, draws: {} });
     expect(parseArgs(['run', '--', '--odd-name.json'])).toMatchObject({ file: '--odd-name.json' });
   });
 

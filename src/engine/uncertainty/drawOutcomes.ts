@@ -20,39 +20,14 @@ import { distributionQuantile } from './quantiles.ts';
 import type { Uncertainty } from './schema.ts';
 
 /**
- * The numeric outcomes kept for every draw and option, keyed by their JSON key; null where an
- * outcome does not exist (no hospital section, not growing, no reference to compare with).
+ * Which numbers a draw keeps of each option's results, and under which keys. The engine does not
+ * choose them: the caller passes the outcome catalogue's reader (src/report/drawOutcomes.ts), so
+ * intervals are keyed exactly as the outcomes of `mixwise run --format json`.
  */
-export const DRAW_OUTCOMES: readonly { key: string; read: (o: OptionResults) => number | null }[] = [
-  { key: 'rStart', read: (o) => o.rStart },
-  { key: 'growthRatePerDay', read: (o) => o.growthRatePerDay },
-  { key: 'doublingTimeDays', read: (o) => o.doublingTimeDays },
-  { key: 'peakDay', read: (o) => o.peakDay },
-  { key: 'peakPrevalence', read: (o) => o.peakPrevalence },
-  { key: 'infections', read: (o) => o.infections },
-  { key: 'attackRate', read: (o) => o.attackRate },
-  { key: 'deaths', read: (o) => o.deaths },
-  { key: 'yearsOfLifeLost', read: (o) => o.yearsOfLifeLost },
-  { key: 'infectionsAverted', read: (o) => o.comparison?.infectionsAverted ?? null },
-  { key: 'deathsAverted', read: (o) => o.comparison?.deathsAverted ?? null },
-  { key: 'doses', read: (o) => o.vaccination?.doses ?? null },
-  { key: 'deathsAvertedPer1000Doses', read: (o) => o.comparison?.deathsAvertedPer1000Doses ?? null },
-  { key: 'admissions', read: (o) => o.healthcare?.admissions ?? null },
-  { key: 'icuAdmissions', read: (o) => o.healthcare?.icuAdmissions ?? null },
-  { key: 'peakWardOccupancy', read: (o) => o.healthcare?.ward.peakOccupancy ?? null },
-  { key: 'wardDaysOverCapacity', read: (o) => o.healthcare?.ward.daysOverCapacity ?? null },
-  { key: 'peakIcuOccupancy', read: (o) => o.healthcare?.icu.peakOccupancy ?? null },
-  { key: 'peakIcuDay', read: (o) => o.healthcare?.icu.peakDay ?? null },
-  { key: 'icuDaysOverCapacity', read: (o) => o.healthcare?.icu.daysOverCapacity ?? null },
-  { key: 'icuFirstDayOverCapacity', read: (o) => o.healthcare?.icu.firstDayOverCapacity ?? null },
-  { key: 'icuDaysOverSurgeCapacity', read: (o) => o.healthcare?.icu.daysOverSurgeCapacity ?? null },
-];
-
-export const DRAW_OUTCOME_KEYS: readonly string[] = DRAW_OUTCOMES.map((x) => x.key);
-
-/** Outcome vector of one option in DRAW_OUTCOMES order; NaN stands for null. */
-export function outcomeVector(o: OptionResults): Float64Array {
-  return Float64Array.from(DRAW_OUTCOMES, ({ read }) => read(o) ?? Number.NaN);
+export interface OutcomeReader {
+  keys: readonly string[];
+  /** Values of option `k` in `keys` order; NaN where the outcome does not exist for it. */
+  read(options: readonly OptionResults[], k: number, referenceIndex: number): Float64Array;
 }
 
 /** Everything the draw loop shares: built once per process (or worker) from the scenario. */
@@ -78,7 +53,7 @@ export function parameterValues(p: PreparedDraws, draw: number): number[] {
 }
 
 export type DrawResult =
-  | { draw: number; ok: true; /** One outcome vector per option (DRAW_OUTCOMES order, NaN = null). */ outcomes: Float64Array[] }
+  | { draw: number; ok: true; /** One outcome vector per option (the reader's keys, NaN = none). */ outcomes: Float64Array[] }
   | { draw: number; ok: false; reason: string };
 
 /** The scenario of draw i, prepared for running, or the rule it breaks. */
@@ -95,14 +70,14 @@ function failure(draw: number, err: unknown): DrawResult {
 }
 
 /** Every option of the scenario under draw i (comparisons against the reference of the same draw). */
-export function evaluateDraw(p: PreparedDraws, draw: number): DrawResult {
+export function evaluateDraw(p: PreparedDraws, draw: number, reader: OutcomeReader): DrawResult {
   try {
     const prepared = preparedScenarioOfDraw(p, draw);
     if (!prepared.ok) return { draw, ok: false, reason: prepared.reason };
     const results = prepared.prepared.scenario.options.map((o) => simulateOption(prepared.prepared, o));
     const reference = results[p.referenceIndex];
     for (const r of results) r.comparison = compareWithReference(r, reference);
-    return { draw, ok: true, outcomes: results.map(outcomeVector) };
+    return { draw, ok: true, outcomes: results.map((_, k) => reader.read(results, k, p.referenceIndex)) };
   } catch (err) {
     return failure(draw, err);
   }
@@ -110,25 +85,25 @@ export function evaluateDraw(p: PreparedDraws, draw: number): DrawResult {
 
 /**
  * One option (which need not be one of the scenario's, e.g. a candidate vaccination order) under
- * draw i, without comparison: its outcome vector, or the reason the draw fails. Measures of the
- * option are adjusted for `measureAdherence` as the scenario's own options are.
+ * draw i, without comparison: its results, or the reason the draw fails. Measures of the option
+ * are adjusted for `measureAdherence` as the scenario's own options are.
  */
-export function evaluateOptionUnderDraw(p: PreparedDraws, draw: number, option: PolicyOption): { ok: true; outcomes: Float64Array } | { ok: false; reason: string } {
+export function evaluateOptionUnderDraw(p: PreparedDraws, draw: number, option: PolicyOption): { ok: true; results: OptionResults } | { ok: false; reason: string } {
   try {
     const values = parameterValues(p, draw);
     const withOption: Scenario = { ...p.scenario, options: [option], referenceOption: undefined };
     const drawn = applyDraw(withOption, p.uncertainty.parameters.map((q) => q.name), values);
     const checked = validateScenario(drawn);
     if (!checked.ok) return { ok: false, reason: formatProblem(checked.problems[0]) };
-    return { ok: true, outcomes: outcomeVector(simulateOption(prepareScenario(checked.scenario, checked.calibration), checked.scenario.options[0])) };
+    return { ok: true, results: simulateOption(prepareScenario(checked.scenario, checked.calibration), checked.scenario.options[0]) };
   } catch (err) {
     return { ok: false, reason: `the run failed: ${err instanceof Error ? err.message : String(err)}` };
   }
 }
 
 /** Draws from..to-1, in order. */
-export function evaluateDrawRange(p: PreparedDraws, from: number, to: number): DrawResult[] {
+export function evaluateDrawRange(p: PreparedDraws, from: number, to: number, reader: OutcomeReader): DrawResult[] {
   const out: DrawResult[] = [];
-  for (let i = from; i < to; i++) out.push(evaluateDraw(p, i));
+  for (let i = from; i < to; i++) out.push(evaluateDraw(p, i, reader));
   return out;
 }

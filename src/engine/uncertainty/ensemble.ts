@@ -11,7 +11,7 @@
  * the comparisons stay paired.
  */
 import type { Scenario } from '../scenario.ts';
-import { DRAW_OUTCOME_KEYS, type DrawResult, parameterValues, type PreparedDraws } from './drawOutcomes.ts';
+import { type DrawResult, parameterValues, type PreparedDraws } from './drawOutcomes.ts';
 import { partialRankCorrelations } from './prcc.ts';
 import { type Interval, intervalOf, probabilityLower, probabilityLowest } from './summaries.ts';
 
@@ -68,8 +68,8 @@ function failureNotes(failed: readonly Extract<DrawResult, { ok: false }>[]): st
   return notes;
 }
 
-/** Summaries of all draws; `results` must hold draws 0..N-1 in order. */
-export function summariseDraws(p: PreparedDraws, results: readonly DrawResult[]): UncertaintyResults {
+/** Summaries of all draws; `results` must hold draws 0..N-1 in order, their vectors in `keys` order. */
+export function summariseDraws(p: PreparedDraws, results: readonly DrawResult[], keys: readonly string[]): UncertaintyResults {
   const u = p.uncertainty;
   if (results.length !== u.draws || results.some((r, i) => r.draw !== i)) throw new Error(`expected draws 0..${u.draws - 1} in order`);
   const good = results.filter((r): r is Extract<DrawResult, { ok: true }> => r.ok);
@@ -77,11 +77,11 @@ export function summariseDraws(p: PreparedDraws, results: readonly DrawResult[])
   const optionCount = p.scenario.options.length;
   /** values(k, key)[i]: option k, outcome `key`, i-th successful draw. */
   const values = (k: number, key: string): Float64Array => {
-    const column = DRAW_OUTCOME_KEYS.indexOf(key);
+    const column = keys.indexOf(key);
     return Float64Array.from(good, (r) => r.outcomes[k][column]);
   };
   const defined = (key: string): boolean => good.length > 0 && Array.from({ length: optionCount }, (_, k) => values(k, key)).every((v) => v.every((x) => !Number.isNaN(x)));
-  const presentKeys = DRAW_OUTCOME_KEYS.filter((key) => good.some((r) => r.outcomes.some((o) => !Number.isNaN(o[DRAW_OUTCOME_KEYS.indexOf(key)]))));
+  const presentKeys = keys.filter((key) => good.some((r) => r.outcomes.some((o) => !Number.isNaN(o[keys.indexOf(key)]))));
   const compared = COMPARED_OUTCOMES.filter(defined);
   const best = new Map(compared.map((key) => [key, probabilityLowest(Array.from({ length: optionCount }, (_, k) => values(k, key)))]));
 

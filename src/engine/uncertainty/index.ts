@@ -6,9 +6,7 @@ export { normalQuantile, normalCdf } from './normal.ts';
 export { distributionQuantile, distributionMedian, lognormalSigma } from './quantiles.ts';
 export { applyDraw, applyParameter } from './applyDraw.ts';
 export {
-  DRAW_OUTCOMES,
-  DRAW_OUTCOME_KEYS,
-  outcomeVector,
+  type OutcomeReader,
   prepareDraws,
   parameterValues,
   evaluateDraw,

@@ -9,6 +9,7 @@ import {
   type UncertaintyInput,
 } from '../../../src/engine/index.ts';
 import { valid } from '../../helpers/scenarios.ts';
+import { catalogueReader, DRAW_OUTCOME_KEYS } from '../../../src/report/drawOutcomes.ts';
 
 /** Root of z = 1 - exp(-R0 z) in (0, 1) by bisection (Kermack & McKendrick 1927, Proc R Soc Lond A 115:700). */
 function finalSize(r0: number): number {
@@ -41,7 +42,7 @@ function oneBandWith(uncertainty: UncertaintyInput, options: Scenario['options']
 
 function run(s: Scenario) {
   const p = prepareDraws(s);
-  return summariseDraws(p, evaluateDrawRange(p, 0, p.uncertainty.draws));
+  return summariseDraws(p, evaluateDrawRange(p, 0, p.uncertainty.draws, catalogueReader), DRAW_OUTCOME_KEYS);
 }
 
 describe('uncertainty: published and structural checks', () => {
@@ -71,12 +72,12 @@ describe('uncertainty: published and structural checks', () => {
       [{ name: 'none', description: '', phases: [] }, same],
     );
     const p = prepareDraws(s);
-    const draws = evaluateDrawRange(p, 0, 40);
+    const draws = evaluateDrawRange(p, 0, 40, catalogueReader);
     for (const d of draws) {
       if (!d.ok) throw new Error(d.reason);
       expect(Array.from(d.outcomes[1])).toEqual(Array.from(d.outcomes[0]));
     }
-    const r = summariseDraws(p, draws);
+    const r = summariseDraws(p, draws, DRAW_OUTCOME_KEYS);
     expect(r.options[1].probabilityBetterThanReference).toEqual({ deaths: 0, infections: 0 });
     expect(r.options[1].intervals.deathsAverted).toEqual({ median: 0, low: 0, high: 0 });
     // Tied in every draw: each is best in half of them.
