@@ -48,7 +48,8 @@ Usage:
       supply, uptake ceilings, efficacy and delay unchanged) and print the K best (default 5)
       for the outcome (default deaths), with the other outcomes and the gap to the best,
       beside the built-in orders. --groups joins bands into priority groups by band index,
-      e.g. 0-3,4-9,10-12,13-15 (default: the campaign's own groups); every band the campaign
+      e.g. 0-3,4-9,10-12,13-15, or ten-year (bands joined by decade of age) or bands (each band
+      alone); default: the campaign's own groups. Every band the campaign
       can vaccinate must be in exactly one group. Up to 8 groups the search is exhaustive and
       proves the best orders; above, a heuristic local search from the built-in orders and
       four random orders (seeded by --seed), within --budget simulated orders (default 1500),

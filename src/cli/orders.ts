@@ -6,7 +6,7 @@
  * scenario (unknown option or outcome, an option without a campaign, groups that miss or repeat
  * a band) is one line per problem and exit code 2, like an invalid scenario.
  */
-import { inThreadEvaluator, ORDER_OUTCOMES, parseGroupSpec, prepareOrderSearch, priorityOf, searchOrders, type OrderOutcomes, type OrderSearchJob, type OrderSearchResult, type OrderSearchSettings, type Scenario } from '../engine/index.ts';
+import { inThreadEvaluator, namedGroups, ORDER_OUTCOMES, parseGroupSpec, prepareOrderSearch, priorityOf, searchOrders, type OrderOutcomes, type OrderSearchJob, type OrderSearchResult, type OrderSearchSettings, type Scenario } from '../engine/index.ts';
 import { orderText } from '../report/orderText.ts';
 import { CAUTION } from '../report/index.ts';
 import { loadScenarioOrComplain, type Output } from './commands.ts';
@@ -62,8 +62,8 @@ function prepareJob(scenario: Scenario, args: OrdersArgs): OrderSearchJob {
   const flag: Record<string, string> = { option: '--option', outcome: '--minimise', groups: '--groups' };
   let groups: number[][] | undefined;
   if (args.groups !== null) {
-    const parsed = parseGroupSpec(args.groups);
-    if (parsed === null) throw new CliError(`${args.file}: --groups must list band indices and ranges separated by commas, e.g. 0-3,4-9,10-15, got ${JSON.stringify(args.groups)}`, EXIT_CODES.invalidScenario);
+    const parsed = namedGroups(args.groups, scenario.ageBands.map((b) => b.lowerAgeYears)) ?? parseGroupSpec(args.groups);
+    if (parsed === null) throw new CliError(`${args.file}: --groups must be ten-year, bands, or band indices and ranges separated by commas (e.g. 0-3,4-9,10-15), got ${JSON.stringify(args.groups)}`, EXIT_CODES.invalidScenario);
     groups = parsed;
   }
   const prepared = prepareOrderSearch(scenario, { option: args.option, outcome: args.outcome, groups });

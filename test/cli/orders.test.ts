@@ -68,7 +68,7 @@ describe('mixwise orders with a request that does not fit', () => {
     ['an option without a campaign', ['--option', 'No measures'], /--option must run a vaccination campaign/],
     ['groups that repeat a band', ['--option', OPTION, '--groups', '0-5,5-15'], /--groups must not repeat a band: band 5 \(25-29\) appears twice/],
     ['groups that miss a band', ['--option', OPTION, '--groups', '0-9,10-14'], /--groups must include band 15 \(75\+\), which the campaign can vaccinate/],
-    ['groups that are not band indices', ['--option', OPTION, '--groups', 'young,old'], /--groups must list band indices and ranges/],
+    ['groups that are not band indices', ['--option', OPTION, '--groups', 'young,old'], /--groups must be ten-year, bands, or band indices and ranges/],
   ];
   for (const [what, words, message] of cases) {
     it(`exits 2 with one line for ${what}`, async () => {

@@ -4,7 +4,7 @@ export { dosePlan, dosesByBandUntil, type DosePiece } from './dosePlan.ts';
 export { ORDER_TEMPLATES, ADULT_AGE_YEARS, priorityFromTemplate, perCapitaInfectionShare, type OrderTemplate } from './orders.ts';
 export { allocateDoses, coverageNeededForRBelowOne, type CoverageNeeded } from './coverage.ts';
 export { relativeRiskGivenInfection } from './prepareCampaign.ts';
-export { parseGroupSpec, groupSpecOf, groupProblems, groupPermutationFor } from './orderGroups.ts';
+export { parseGroupSpec, groupSpecOf, groupProblems, groupPermutationFor, tenYearGroups, namedGroups } from './orderGroups.ts';
 export {
   ORDER_OUTCOMES,
   evaluateOrder,

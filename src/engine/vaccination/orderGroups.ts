@@ -78,3 +78,20 @@ export function groupPermutationFor(groups: readonly (readonly number[])[], band
   const first = groups.map((g) => Math.min(...g.map((b) => rank.get(b) ?? Infinity)));
   return groups.map((_, k) => k).sort((a, b) => (first[a] === first[b] ? a - b : first[a] - first[b]));
 }
+
+/** Bands joined by decade of their lower age (0-9, 10-19, ...): ten-year groups. */
+export function tenYearGroups(lowerAgesYears: readonly number[]): number[][] {
+  const byDecade = new Map<number, number[]>();
+  lowerAgesYears.forEach((age, b) => {
+    const decade = Math.floor(age / 10);
+    byDecade.set(decade, [...(byDecade.get(decade) ?? []), b]);
+  });
+  return [...byDecade.keys()].sort((a, b) => a - b).map((d) => byDecade.get(d) as number[]);
+}
+
+/** Named group sets: "ten-year" and "bands" (every band its own group); null for other names. */
+export function namedGroups(name: string, lowerAgesYears: readonly number[]): number[][] | null {
+  if (name === 'ten-year') return tenYearGroups(lowerAgesYears);
+  if (name === 'bands') return lowerAgesYears.map((_, b) => [b]);
+  return null;
+}
