@@ -7,7 +7,7 @@
  * cut to the horizon. Settings not named in a phase stay at 100% of usual contacts.
  */
 import type { AgeFactor, Campaign, MeasureBurden, OptionResults, Phase, PhaseReproduction, PolicyOption, Scenario, ScenarioResults, Trigger, TriggerOutcome, TriggerQuantity } from '../engine/index.ts';
-import { print } from './numberFormat.ts';
+import { dateOfDay, print } from './numberFormat.ts';
 
 export interface PhaseSummary {
   /** "Days 21 to 76 (56 days)" or "Whole horizon (days 0 to 364)"; with a trigger, the window it may act in. */
@@ -107,15 +107,23 @@ export function phaseMeasuresText(phase: Phase, bandLabels: readonly string[]): 
   return parts.length === 0 ? 'no change to contacts' : parts.join('; ');
 }
 
-/** When a phase applies, both ends included, within the horizon; null when it lies outside it. */
-export function phaseWhenText(phase: Phase, horizonDays: number): string | null {
+/**
+ * When a phase applies, both ends included, within the horizon; null when it lies outside it.
+ * With the scenario's start date, the calendar dates follow: "Days 21 to 76 (56 days; 2031-03-22 to 2031-05-16)".
+ */
+export function phaseWhenText(phase: Phase, horizonDays: number, startDate: string | null = null): string | null {
   const first = phase.fromDay;
   const last = Math.min(phase.toDay, horizonDays) - 1;
   if (last < first) return null;
   const length = last - first + 1;
-  if (first === 0 && last === horizonDays - 1) return `Whole horizon (days 0 to ${last})`;
-  if (length === 1) return `Day ${first} only`;
-  return `Days ${first} to ${last} (${length} days)`;
+  const dates = (a: number, b: number) => {
+    const from = startDate === null ? null : dateOfDay(startDate, a);
+    const to = startDate === null ? null : dateOfDay(startDate, b);
+    return from === null || to === null ? '' : a === b ? `; ${from}` : `; ${from} to ${to}`;
+  };
+  if (first === 0 && last === horizonDays - 1) return `Whole horizon (days 0 to ${last}${dates(0, last)})`;
+  if (length === 1) return `Day ${first} only${startDate === null ? '' : ` (${dates(first, first).slice(2)})`}`;
+  return `Days ${first} to ${last} (${length} days${dates(first, last)})`;
 }
 
 /**
@@ -146,7 +154,7 @@ export function optionSummary(option: PolicyOption, scenario: Scenario, isRefere
   const phases: PhaseSummary[] = [];
   const ordered = option.phases.map((phase, index) => ({ phase, index })).sort((a, b) => a.phase.fromDay - b.phase.fromDay);
   for (const { phase, index } of ordered) {
-    const when = phaseWhenText(phase, scenario.horizonDays);
+    const when = phaseWhenText(phase, scenario.horizonDays, scenario.startDate ?? null);
     if (when === null) continue;
     const outcome = triggers.find((t) => t.phase === index);
     phases.push({

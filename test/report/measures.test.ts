@@ -97,3 +97,14 @@ describe('R under each phase and the contacts removed, in the option summaries',
     expect(summaries[0].burden).toBeNull();
   });
 });
+
+describe('phase days with the scenario start date', () => {
+  it('puts the calendar dates beside the day numbers, across a leap day', () => {
+    const phase = { fromDay: 21, toDay: 77, settingMultipliers: {}, ageFactors: [], caseIsolation: 0 };
+    // 2028 is a leap year: day 21 after 2028-02-08 is 2028-02-29, day 76 is 2028-04-24.
+    expect(phaseWhenText(phase, 365, '2028-02-08')).toBe('Days 21 to 76 (56 days; 2028-02-29 to 2028-04-24)');
+    expect(phaseWhenText({ ...phase, fromDay: 0, toDay: 365 }, 365, '2028-02-08')).toBe('Whole horizon (days 0 to 364; 2028-02-08 to 2029-02-06)');
+    expect(phaseWhenText({ ...phase, toDay: 22 }, 365, '2028-02-08')).toBe('Day 21 only (2028-02-29)');
+    expect(phaseWhenText(phase, 365)).toBe('Days 21 to 76 (56 days)');
+  });
+});
