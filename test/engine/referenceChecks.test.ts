@@ -6,19 +6,8 @@ import { describe, expect, it } from 'vitest';
 import { runScenario } from '../../src/engine/run.ts';
 import { correctReciprocity } from '../../src/engine/contacts.ts';
 import { doublingTimeDays, generationIntervalTransform, growthRateFromR, halvingTimeDays, reproductionNumberFromGrowthRate } from '../../src/engine/growth.ts';
+import { oneGroupFinalSize } from '../helpers/byHand.ts';
 import { oneBand, twoBand, valid } from '../helpers/scenarios.ts';
-
-/** Root of z = 1 - exp(-R0 z) in (0, 1) by bisection: an independent solve of the relation. */
-function oneGroupFinalSize(r0: number): number {
-  let lo = 1e-9;
-  let hi = 1;
-  for (let k = 0; k < 200; k++) {
-    const mid = (lo + hi) / 2;
-    if (mid - (1 - Math.exp(-r0 * mid)) < 0) lo = mid;
-    else hi = mid;
-  }
-  return (lo + hi) / 2;
-}
 
 describe('final size, one group', () => {
   // Kermack & McKendrick 1927, Proc R Soc Lond A 115:700: z = 1 - exp(-R0 z); valid for SEIR too.

@@ -39,3 +39,18 @@ export function dominantByMathjs(rows: number[][], precision?: number): number {
   const list = (Array.isArray(values) ? values : (values as { toArray(): unknown[] }).toArray()) as (number | { re: number })[];
   return Math.max(...list.map((v) => (typeof v === 'number' ? v : v.re)));
 }
+
+/**
+ * Root of z = 1 - exp(-R0 z) in (0, 1) by bisection: the one-group final size (Kermack &
+ * McKendrick 1927, Proc R Soc Lond A 115:700), solved independently of the engine.
+ */
+export function oneGroupFinalSize(r0: number): number {
+  let lo = 1e-9;
+  let hi = 1;
+  for (let k = 0; k < 200; k++) {
+    const mid = (lo + hi) / 2;
+    if (mid - (1 - Math.exp(-r0 * mid)) < 0) lo = mid;
+    else hi = mid;
+  }
+  return (lo + hi) / 2;
+}

@@ -63,7 +63,7 @@ function splitFields(line: string, delimiter: string): string[] {
   return fields;
 }
 
-/** Most data rows read: 25 years of daily counts for 21 age bands, far beyond any fitting window. */
+/** Most data rows read: 25 years of daily counts for 21 age bands, far more than any fit uses. */
 export const MAX_DATA_ROWS = 200_000;
 /**
  * Longest gap between consecutive dates, days. Reporting pauses over holidays last days, not

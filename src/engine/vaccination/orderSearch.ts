@@ -18,6 +18,7 @@
 import { priorityFromTemplate, ORDER_TEMPLATES } from './orders.ts';
 import { evaluateOrder, type OrderEvaluation, type OrderOutcome, type OrderOutcomes, type OrderSearchJob } from './orderEvaluation.ts';
 import { groupPermutationFor } from './orderGroups.ts';
+import { streamSeed, uniformAt } from '../uncertainty/splitmix64.ts';
 
 /** Largest number of groups searched exhaustively (8! = 40,320 orders). */
 export const EXHAUSTIVE_LIMIT = 8;
@@ -105,16 +106,11 @@ function factorial(m: number): number {
   return f;
 }
 
-/** mulberry32: a small seeded generator, so random starts repeat exactly (common practice). */
+/** Uniform numbers in (0, 1) for the random starts: stream 0 of the engine's one seeded generator (uncertainty/splitmix64.ts). */
 function seededRandom(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
+  const stream = streamSeed(seed, 0);
+  let n = 0;
+  return () => uniformAt(stream, n++);
 }
 
 /** The built-in orders and the option's own campaign order, as orders of the job's groups. */

@@ -9,19 +9,9 @@ import {
   type UncertaintyInput,
 } from '../../../src/engine/index.ts';
 import { valid } from '../../helpers/scenarios.ts';
+import { oneGroupFinalSize } from '../../helpers/byHand.ts';
 import { catalogueReader, DRAW_OUTCOME_KEYS } from '../../../src/report/drawOutcomes.ts';
 
-/** Root of z = 1 - exp(-R0 z) in (0, 1) by bisection (Kermack & McKendrick 1927, Proc R Soc Lond A 115:700). */
-function finalSize(r0: number): number {
-  let lo = 1e-9;
-  let hi = 1;
-  for (let k = 0; k < 200; k++) {
-    const mid = (lo + hi) / 2;
-    if (mid - (1 - Math.exp(-r0 * mid)) < 0) lo = mid;
-    else hi = mid;
-  }
-  return (lo + hi) / 2;
-}
 
 function oneBandWith(uncertainty: UncertaintyInput, options: Scenario['options'] = [{ name: 'none', description: '', phases: [] }]): Scenario {
   return valid({
@@ -57,8 +47,8 @@ describe('uncertainty: published and structural checks', () => {
     const interval = r.options[0].intervals.attackRate;
     if (interval === null || interval === undefined) throw new Error('no attack-rate interval');
     for (const [value, p] of [[interval.low, 0.05], [interval.median, 0.5], [interval.high, 0.95]] as const) {
-      expect(value).toBeGreaterThan(finalSize(q(p - 1 / N)) - 2e-4);
-      expect(value).toBeLessThan(finalSize(q(p + 1 / N)) + 2e-4);
+      expect(value).toBeGreaterThan(oneGroupFinalSize(q(p - 1 / N)) - 2e-4);
+      expect(value).toBeLessThan(oneGroupFinalSize(q(p + 1 / N)) + 2e-4);
     }
     expect(r.uncertainty.failedDraws).toBe(0);
     // R0 drives the attack rate monotonically: PRCC (Spearman with one parameter) is 1.
