@@ -7,9 +7,10 @@ import { Solver } from 'odex';
 import { describe, expect, it } from 'vitest';
 import { Dopri5Workspace, integrate } from '../../src/engine/dopri5.ts';
 import { runScenario } from '../../src/engine/run.ts';
-import type { Phase, Scenario } from '../../src/engine/scenario.ts';
+import type { Scenario } from '../../src/engine/scenario.ts';
 import { demoScenario } from '../helpers/demo.ts';
-import { contactsUnder, dominantByMathjs, nextGenerationMatrixByHand } from '../helpers/byHand.ts';
+import { dominantByMathjs, nextGenerationMatrixByHand } from '../helpers/byHand.ts';
+import { seirByHand } from '../helpers/seirByHand.ts';
 import { valid } from '../helpers/scenarios.ts';
 
 describe('dopri5', () => {
@@ -38,76 +39,32 @@ describe('dopri5', () => {
 });
 
 /**
- * The SEIR model written out again here from its equations (DESIGN.md section 2), independently of
- * the engine's right-hand side, transmission matrix and calibration, for band i:
- *   lambda_i = beta u_i (1 - c) sum_j C_ij h_j I_j / N_j,  C_ij = sum_s m_s min(f_si, f_sj) C^s_ij
- *   dS/dt = -lambda S, dE_1/dt = lambda S - a_E E_1, dE_k/dt = a_E (E_(k-1) - E_k),
- *   dI_1/dt = a_E E_kE - a_I I_1, dI_k/dt = a_I (I_(k-1) - I_k), dR/dt = a_I I_kI,
- * a_E = k_E / T_E, a_I = k_I / T_I (Erlang stages; Anderson & May 1991, Infectious Diseases of
- * Humans; Wearing, Rohani & Keeling 2005, PLoS Med 2:e174). Band-major state [S, E.., I.., R, X].
- * beta = R0 / rho(K at beta = 1), K_ij = D u_i C_ij h_j N_i / N_j (test/helpers/byHand.ts) with
- * mathjs's eigenvalues. Solved with odex.
+ * The engine against the SEIR model written out again (test/helpers/seirByHand.ts), with
+ * beta = R0 / rho(K at beta = 1), K_ij = D u_i C_ij h_j N_i / N_j (test/helpers/byHand.ts) from
+ * mathjs's eigenvalues, solved with odex and restarted where the option's measures change.
  */
 function referenceModel(s: Scenario) {
-  const n = s.ageBands.length;
+  const seir = seirByHand(s);
   const N = s.populationPersons;
-  const kE = s.disease.latentStages;
-  const kI = s.disease.infectiousStages;
-  const aE = kE / s.disease.latentPeriodDays;
-  const aI = kI / s.disease.infectiousPeriodDays;
-  const u = s.disease.relativeSusceptibility ?? N.map(() => 1);
-  const h = s.disease.relativeInfectiousness ?? N.map(() => 1);
-  const width = kE + kI + 3;
   const r0 = (s.disease.transmission as { r0: number }).r0;
   const beta = r0 / dominantByMathjs(nextGenerationMatrixByHand(s, 1, N, null));
-  const rhs = (phase: Phase | null) => {
-    const Cp = contactsUnder(s, phase);
-    const keep = 1 - (phase?.caseIsolation ?? 0);
-    return (_t: number, y: number[]): number[] => {
-      const dy = new Array<number>(y.length).fill(0);
-      const I = N.map((_, j) => y.slice(j * width + 1 + kE, j * width + 1 + kE + kI).reduce((a, b) => a + b, 0));
-      for (let i = 0; i < n; i++) {
-        const o = i * width;
-        let lambda = 0;
-        for (let j = 0; j < n; j++) lambda += (beta * u[i] * keep * Cp[i][j] * h[j] * I[j]) / N[j];
-        const infection = lambda * y[o];
-        dy[o] = -infection;
-        for (let k = 0; k < kE; k++) dy[o + 1 + k] = (k === 0 ? infection : aE * y[o + k]) - aE * y[o + 1 + k];
-        for (let k = 0; k < kI; k++) dy[o + 1 + kE + k] = (k === 0 ? aE * y[o + kE] : aI * y[o + kE + k]) - aI * y[o + 1 + kE + k];
-        dy[o + 1 + kE + kI] = aI * y[o + kE + kI];
-        dy[o + 2 + kE + kI] = infection;
-      }
-      return dy;
-    };
-  };
-  const y0 = N.flatMap((Ni, i) => {
-    const seed = s.initialState.infectedPersons[i];
-    const band = new Array<number>(width).fill(0);
-    band[0] = Ni - seed;
-    band[s.initialState.infectedCompartment === 'latent' ? 1 : 1 + kE] = seed;
-    return band;
-  });
   /** Daily states of `option`, restarting the solver where its measures change. */
   const solve = (option: Scenario['options'][number], horizon: number): Map<number, number[]> => {
     const days = new Map<number, number[]>();
     const cuts = [...new Set([0, horizon, ...option.phases.flatMap((p) => [p.fromDay, p.toDay]).filter((d) => d > 0 && d < horizon)])].sort((a, b) => a - b);
-    let y = y0;
+    let y = seir.initialState();
     for (let k = 0; k + 1 < cuts.length; k++) {
       const phase = option.phases.find((p) => cuts[k] >= p.fromDay && cuts[k] < p.toDay) ?? null;
       const solver = new Solver(y.length);
       solver.absoluteTolerance = 1e-8;
       solver.relativeTolerance = 1e-10;
       solver.denseOutput = true;
-      y = solver.solve(rhs(phase), cuts[k], y, cuts[k + 1], solver.grid(1, (t, state) => { days.set(Math.round(t), state.slice()); })).y;
+      y = solver.solve(seir.rhs(seir.forceOfInfection(beta, phase)), cuts[k], y, cuts[k + 1], solver.grid(1, (t, state) => { days.set(Math.round(t), state.slice()); })).y;
       days.set(cuts[k + 1], y.slice());
     }
     return days;
   };
-  const at = (y: number[], i: number) => {
-    const band = y.slice(i * width, (i + 1) * width);
-    return { susceptible: band[0], infected: band.slice(1, 1 + kE + kI).reduce((a, b) => a + b, 0), cumulative: band[width - 1] };
-  };
-  return { beta, solve, at };
+  return { beta, solve, at: seir.band };
 }
 
 describe('the engine against the model written out independently, solved by odex', () => {

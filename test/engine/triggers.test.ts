@@ -1,11 +1,11 @@
 /**
  * Measures switched by triggers, against an independent implementation written here from the
  * model equations (DESIGN.md section 2) and the rule (src/engine/triggers.ts doc comment):
- * - the SEIR system with Erlang stages has its own right-hand side, solved day by day with the
- *   `odex` library (a Dormand-Prince 5(4) code independent of the engine's integrator;
- *   Hairer, Norsett & Wanner 1993, Solving ODEs I), restarted at every whole day;
- * - the contact matrix under several phases, the daily infections, the hospital convolutions and
- *   the trigger rule are coded again below. Only beta and the hospital kernels (already tested in
+ * - the SEIR system with Erlang stages has its own right-hand side (test/helpers/seirByHand.ts,
+ *   contacts under several phases in test/helpers/byHand.ts), solved day by day with the `odex`
+ *   library (a Dormand-Prince 5(4) code independent of the engine's integrator; Hairer, Norsett &
+ *   Wanner 1993, Solving ODEs I), restarted at every whole day;
+ * - the daily infections, the hospital convolutions and the trigger rule are coded again below. Only beta and the hospital kernels (already tested in
  *   healthcare-kernels.test.ts) are taken from the engine.
  */
 import { Solver } from 'odex';
@@ -13,9 +13,10 @@ import { describe, expect, it } from 'vitest';
 import { prepareScenario, type PreparedScenario } from '../../src/engine/prepare.ts';
 import type { OptionResults } from '../../src/engine/results.ts';
 import { runScenario } from '../../src/engine/run.ts';
-import type { Phase, PolicyOption, Scenario, ScenarioInput, TriggerQuantity } from '../../src/engine/scenario.ts';
+import type { PolicyOption, Scenario, ScenarioInput, TriggerQuantity } from '../../src/engine/scenario.ts';
 import { validateScenario } from '../../src/engine/validation.ts';
 import { demoScenario } from '../helpers/demo.ts';
+import { seirByHand } from '../helpers/seirByHand.ts';
 import { valid } from '../helpers/scenarios.ts';
 
 /** One band, 1e6 people, R0 2.5, latent 3 d, infectious 5 d, with a hospital section. */
@@ -38,32 +39,6 @@ function oneBandWithHospital(horizonDays = 300): ScenarioInput {
 
 // ---------------------------------------------------------------- independent reference model
 
-/** Contacts under the phases in force: multipliers multiply, pair factors min(f_i, f_j) multiply. */
-function contactsUnder(s: Scenario, phases: readonly Phase[]): number[][] {
-  const n = s.ageBands.length;
-  const c = Array.from({ length: n }, () => new Array<number>(n).fill(0));
-  for (const setting of s.settings) {
-    for (let i = 0; i < n; i++) {
-      for (let j = 0; j < n; j++) {
-        let w = 1;
-        for (const ph of phases) {
-          w *= ph.settingMultipliers[setting.name] ?? 1;
-          let fi = 1;
-          let fj = 1;
-          for (const af of ph.ageFactors) {
-            if (af.setting !== setting.name) continue;
-            if (af.bands.includes(i)) fi *= af.factor;
-            if (af.bands.includes(j)) fj *= af.factor;
-          }
-          w *= Math.min(fi, fj);
-        }
-        c[i][j] += w * setting.contactsPerDay[i][j];
-      }
-    }
-  }
-  return c;
-}
-
 interface ReferenceRun {
   attackRateByBand: number[];
   /** Per triggered phase (in phase order): the days the measures came into force and lifted. */
@@ -76,54 +51,11 @@ function referenceRun(p: PreparedScenario, option: PolicyOption): ReferenceRun {
   const s = p.scenario;
   const n = s.ageBands.length;
   const H = s.horizonDays;
-  const kE = s.disease.latentStages;
-  const kI = s.disease.infectiousStages;
-  const aE = kE / s.disease.latentPeriodDays;
-  const aI = kI / s.disease.infectiousPeriodDays;
   const N = s.populationPersons;
-  const u = s.disease.relativeSusceptibility ?? new Array<number>(n).fill(1);
-  const h = s.disease.relativeInfectiousness ?? new Array<number>(n).fill(1);
   const totalN = N.reduce((a, b) => a + b, 0);
-  // state: S (n), E stages (kE n), I stages (kI n), X cumulative infections (n)
-  const size = n * (2 + kE + kI);
-  const y0 = new Array<number>(size).fill(0);
-  for (let i = 0; i < n; i++) {
-    y0[i] = N[i] - s.initialState.infectedPersons[i];
-    y0[n + i] = s.initialState.infectedPersons[i];
-  }
-  let M: number[][] = [];
-  const f = (_t: number, y: number[]): number[] => {
-    const dy = new Array<number>(size).fill(0);
-    for (let i = 0; i < n; i++) {
-      let lambda = 0;
-      for (let j = 0; j < n; j++) {
-        let inf = 0;
-        for (let k = 0; k < kI; k++) inf += y[n + kE * n + k * n + j];
-        lambda += M[i][j] * inf;
-      }
-      const newInf = lambda * y[i];
-      dy[i] = -newInf;
-      dy[n + i] += newInf;
-      for (let k = 0; k < kE; k++) {
-        const out = aE * y[n + k * n + i];
-        dy[n + k * n + i] -= out;
-        dy[(k + 1 < kE ? n + (k + 1) * n : n + kE * n) + i] += out;
-      }
-      for (let k = 0; k < kI; k++) {
-        const out = aI * y[n + kE * n + k * n + i];
-        dy[n + kE * n + k * n + i] -= out;
-        if (k + 1 < kI) dy[n + kE * n + (k + 1) * n + i] += out;
-      }
-      dy[n * (1 + kE + kI) + i] = newInf;
-    }
-    return dy;
-  };
-  const matrixFor = (phases: Phase[]): number[][] => {
-    const c = contactsUnder(s, phases);
-    let keep = 1;
-    for (const ph of phases) keep *= 1 - ph.caseIsolation;
-    return c.map((row, i) => row.map((cij, j) => (N[j] > 0 ? (p.beta * u[i] * cij * h[j] * keep) / N[j] : 0)));
-  };
+  const seir = seirByHand(s);
+  let f = seir.rhs(seir.forceOfInfection(p.beta, []));
+  const cumulativeOf = (y: readonly number[]) => Array.from({ length: n }, (_, i) => seir.band(y, i).cumulative);
 
   // Hospital demand, convolutions written out (demand.ts formulas), one delay group assumed.
   const hc = p.healthcare;
@@ -166,19 +98,19 @@ function referenceRun(p: PreparedScenario, option: PolicyOption): ReferenceRun {
   const due = triggered.map((): [number, boolean] | null => null);
   const onDays = triggered.map((): number[] => []);
   const offDays = triggered.map((): number[] => []);
-  let y = y0;
+  let y = seir.initialState();
   let cumulativeBefore = new Array<number>(n).fill(0);
   for (let d = 0; d < H; d++) {
     if (d > 0) {
-      const x = Array.from({ length: n }, (_, i) => Math.max(0, y[n * (1 + kE + kI) + i] - cumulativeBefore[i]) + (d - 1 === 0 ? s.initialState.infectedPersons[i] : 0));
+      const x = Array.from({ length: n }, (_, i) => Math.max(0, seir.band(y, i).cumulative - cumulativeBefore[i]) + (d - 1 === 0 ? s.initialState.infectedPersons[i] : 0));
       dailyInfections.push(x);
       completeDay(d - 1);
-      cumulativeBefore = y.slice(n * (1 + kE + kI));
+      cumulativeBefore = cumulativeOf(y);
     }
     const quantity = (q: TriggerQuantity): number => {
       if (q === 'infectiousPer100k') {
         let inf = 0;
-        for (let k = n * (1 + kE); k < n * (1 + kE + kI); k++) inf += y[k];
+        for (let i = 0; i < n; i++) inf += seir.band(y, i).infectious;
         return (inf / totalN) * 1e5;
       }
       if (d === 0) return 0;
@@ -217,8 +149,8 @@ function referenceRun(p: PreparedScenario, option: PolicyOption): ReferenceRun {
       if (!on[t] && before) offDays[t].push(d);
     });
     const fixed = option.phases.filter((ph) => ph.trigger === undefined && d >= ph.fromDay && d < ph.toDay);
-    M = matrixFor([...fixed, ...triggered.filter((_, t) => on[t]).map(({ ph }) => ph)]);
-    const solver = new Solver(size);
+    f = seir.rhs(seir.forceOfInfection(p.beta, [...fixed, ...triggered.filter((_, t) => on[t]).map(({ ph }) => ph)]));
+    const solver = new Solver(seir.size);
     solver.absoluteTolerance = 1e-9;
     solver.relativeTolerance = 1e-11;
     y = solver.solve(f, d, y, d + 1).y;
@@ -226,7 +158,7 @@ function referenceRun(p: PreparedScenario, option: PolicyOption): ReferenceRun {
   triggered.forEach((_, t) => {
     if (on[t]) offDays[t].push(H);
   });
-  const X = y.slice(n * (1 + kE + kI));
+  const X = cumulativeOf(y);
   return { attackRateByBand: X.map((x, i) => (x + s.initialState.infectedPersons[i]) / N[i]), onDays, offDays };
 }
 

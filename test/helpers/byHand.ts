@@ -6,17 +6,19 @@ import { eigs } from 'mathjs';
 import type { Phase, Scenario } from '../../src/engine/scenario.ts';
 
 /**
- * Contacts per day under a phase (DESIGN.md section 2): C_ij = sum_s m_s min(f_si, f_sj) C^s_ij,
- * m_s the setting's multiplier (1 when not named), f_si the product of the phase's age factors for
- * band i in setting s (1 when none).
+ * Contacts per day under the phases in force (DESIGN.md section 2): for one phase
+ * C_ij = sum_s m_s min(f_si, f_sj) C^s_ij, m_s the setting's multiplier (1 when not named), f_si the
+ * product of the phase's age factors for band i in setting s (1 when none). Phases in force
+ * together multiply: each contributes its own m_s min(f_si, f_sj). `null` or `[]` is no measures.
  */
-export function contactsUnder(s: Scenario, phase: Phase | null): number[][] {
+export function contactsUnder(s: Scenario, phases: Phase | null | readonly Phase[]): number[][] {
+  const inForce: readonly Phase[] = phases === null ? [] : 'fromDay' in phases ? [phases] : phases;
   const n = s.ageBands.length;
-  const factor = (setting: string, band: number) =>
-    (phase?.ageFactors ?? []).filter((a) => a.setting === setting && a.bands.includes(band)).reduce((f, a) => f * a.factor, 1);
+  const factor = (phase: Phase, setting: string, band: number) =>
+    phase.ageFactors.filter((a) => a.setting === setting && a.bands.includes(band)).reduce((f, a) => f * a.factor, 1);
   return Array.from({ length: n }, (_, i) => Array.from({ length: n }, (_, j) => s.settings.reduce((acc, st) => {
-    const m = phase?.settingMultipliers[st.name] ?? 1;
-    return acc + m * Math.min(factor(st.name, i), factor(st.name, j)) * st.contactsPerDay[i][j];
+    const w = inForce.reduce((prod, ph) => prod * (ph.settingMultipliers[st.name] ?? 1) * Math.min(factor(ph, st.name, i), factor(ph, st.name, j)), 1);
+    return acc + w * st.contactsPerDay[i][j];
   }, 0)));
 }
 
