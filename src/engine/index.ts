@@ -6,7 +6,7 @@ export { formatProblem, formatPath, type Problem } from './problems.ts';
 export { calibrateTransmission, calibrationProblem, LARGEST_TRANSMISSION_RATE_PER_DAY, type Calibration } from './calibration.ts';
 export { reproductionNumber, reproductionAtUnitTransmission } from './reproductionNumber.ts';
 export { initialStateOf, initialSusceptibleOf } from './initialState.ts';
-export { runScenario, runScenarioOnPool, assembleResults, referenceIndexOf, reciprocityBySetting, compareWithReference } from './run.ts';
+export { runScenario, runScenarioOnPool, runScenarioSummary, runScenarioSummaryOnPool, assembleResults, referenceIndexOf, reciprocityBySetting, compareWithReference } from './run.ts';
 export { scenarioRevision } from './revision.ts';
 export { WorkerPool, PoolCancelled, mapInline, mapPrepared, type MapOptions, type CancelSignal } from './pool/pool.ts';
 export { JOBS, optionBuffers, type Job, type JobName, type ContextOf, type TaskOf, type ResultOf } from './pool/jobs.ts';
@@ -24,7 +24,7 @@ export {
   type Periods,
 } from './growth.ts';
 export { prepareScenario, type PreparedScenario } from './prepare.ts';
-export { simulateOption } from './simulate.ts';
+export { simulateOption, type SeriesDetail, type OptionRunSettings } from './simulate.ts';
 export { finalSizeByBand } from './finalSize.ts';
 export { dominantEigenvalue } from './ngm.ts';
 export { integratorStepsSoFar } from './dopri5.ts';

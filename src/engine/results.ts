@@ -33,8 +33,12 @@ export interface DailySeries {
   doses: Float64Array;
 }
 
-/** Results of one policy option over the horizon. */
-export interface OptionResults {
+/**
+ * Every number of one policy option over the horizon except the daily series: what a summary run
+ * returns (`simulateOption(p, option, { series: 'summary' })`, simulate.ts). Each field equals,
+ * bit for bit, the same field of a full run.
+ */
+export interface OptionSummary {
   name: string;
   /** R on day 0 under this option's measures and the initial susceptibles (NGM dominant eigenvalue). */
   rStart: number;
@@ -67,7 +71,6 @@ export interface OptionResults {
    * only when they are constant over the whole horizon; otherwise null.
    */
   finalSize: { attackRate: number; attackRateByBand: number[] } | null;
-  series: DailySeries;
   /** Hospital and ICU demand against capacity; null when the scenario has no `healthcare` section. */
   healthcare: HealthcareOutcomes | null;
   /** The option's vaccination campaign; null when it has none. */
@@ -82,6 +85,11 @@ export interface OptionResults {
   measureBurden: MeasureBurden;
   /** Against the reference option (filled when the reference is run with it; null otherwise). */
   comparison: Comparison | null;
+}
+
+/** Results of one policy option over the horizon: the summary and the daily series. */
+export interface OptionResults extends OptionSummary {
+  series: DailySeries;
 }
 
 /**
@@ -148,7 +156,8 @@ export interface ReciprocityCheck {
   at: [number, number];
 }
 
-export interface ScenarioResults {
+/** Results of a scenario; `O` = `OptionSummary` for a summary run (`ScenarioSummary`). */
+export interface ScenarioResults<O extends OptionSummary = OptionResults> {
   title: string;
   /** The revision of the scenario these results belong to (`scenarioRevision`, revision.ts). */
   revision: string;
@@ -161,9 +170,12 @@ export interface ScenarioResults {
   beta: number;
   /** Index into `options` of the reference option. */
   referenceIndex: number;
-  options: OptionResults[];
+  options: O[];
   reciprocity: ReciprocityCheck[];
 }
+
+/** A scenario's results without the daily series (run.ts, `runScenarioSummary`). */
+export type ScenarioSummary = ScenarioResults<OptionSummary>;
 
 /** Doses of one option's campaign within the horizon. */
 export interface VaccinationOutcomes {

@@ -8,7 +8,7 @@ import { reciprocityCheck } from './contacts.ts';
 import type { Calibration } from './calibration.ts';
 import { mapPrepared, type MapOptions, type WorkerPool } from './pool/pool.ts';
 import { prepareScenario, type PreparedScenario } from './prepare.ts';
-import type { Comparison, OptionResults, ReciprocityCheck, ScenarioResults } from './results.ts';
+import type { Comparison, OptionSummary, ReciprocityCheck, ScenarioResults, ScenarioSummary } from './results.ts';
 import { scenarioRevision } from './revision.ts';
 import type { Scenario } from './scenario.ts';
 
@@ -24,7 +24,7 @@ export function reciprocityBySetting(s: Scenario): ReciprocityCheck[] {
 }
 
 /** Averted = reference minus option; per 1,000 of the option's doses when it gives any. */
-export function compareWithReference(option: OptionResults, reference: OptionResults): Comparison {
+export function compareWithReference(option: OptionSummary, reference: OptionSummary): Comparison {
   const doses = option.vaccination?.doses ?? 0;
   const per1000 = (averted: number | null) => (doses > 0 && averted !== null ? (1000 * averted) / doses : null);
   const infectionsAverted = reference.infections - option.infections;
@@ -45,7 +45,7 @@ export function compareWithReference(option: OptionResults, reference: OptionRes
  * The results of a scenario from its options' results (one per option, in option order): the
  * reference index, each option's comparison with the reference, and the revision they belong to.
  */
-export function assembleResults(s: Scenario, prepared: Pick<PreparedScenario, 'r0' | 'beta'>, options: OptionResults[]): ScenarioResults {
+export function assembleResults<O extends OptionSummary>(s: Scenario, prepared: Pick<PreparedScenario, 'r0' | 'beta'>, options: O[]): ScenarioResults<O> {
   if (options.length !== s.options.length) throw new Error(`expected results for ${s.options.length} options, got ${options.length}`);
   const referenceIndex = referenceIndexOf(s);
   for (const o of options) o.comparison = compareWithReference(o, options[referenceIndex]);
@@ -62,7 +62,7 @@ export function assembleResults(s: Scenario, prepared: Pick<PreparedScenario, 'r
   };
 }
 
-/** The option indices of a scenario, the task list of the `optionRuns` job. */
+/** The option indices of a scenario, the task list of the `optionRuns` and `optionSummaries` jobs. */
 function everyOption(s: Scenario): number[] {
   return s.options.map((_, k) => k);
 }
@@ -80,5 +80,20 @@ export function runScenario(s: Scenario, calibration?: Calibration, options: Map
 /** As `runScenario`, with the options spread over a worker pool; the same results, byte for byte. */
 export async function runScenarioOnPool(pool: WorkerPool, s: Scenario, calibration?: Calibration, options: MapOptions = {}): Promise<ScenarioResults> {
   const runs = await pool.map('optionRuns', s, everyOption(s), options);
+  return assembleResults(s, prepareScenario(s, calibration), runs);
+}
+
+/**
+ * As `runScenario` without the daily series (simulate.ts, `series: 'summary'`): every outcome of
+ * the catalogue, bit for bit the full run's, for the options table and other outcome-only readers.
+ */
+export function runScenarioSummary(s: Scenario, calibration?: Calibration, options: MapOptions = {}): ScenarioSummary {
+  const prepared = prepareScenario(s, calibration);
+  return assembleResults(s, prepared, mapPrepared('optionSummaries', prepared, everyOption(s), options));
+}
+
+/** As `runScenarioSummary`, over a worker pool. */
+export async function runScenarioSummaryOnPool(pool: WorkerPool, s: Scenario, calibration?: Calibration, options: MapOptions = {}): Promise<ScenarioSummary> {
+  const runs = await pool.map('optionSummaries', s, everyOption(s), options);
   return assembleResults(s, prepareScenario(s, calibration), runs);
 }

@@ -18,7 +18,7 @@ import { hasTriggers, measuresConstant, phaseAt } from './phases.ts';
 import type { PreparedScenario } from './prepare.ts';
 import { reproductionByDay } from './reproduction.ts';
 import { reproductionNumber } from './reproductionNumber.ts';
-import type { DailySeries, OptionResults, VaccinationOutcomes } from './results.ts';
+import type { DailySeries, OptionResults, OptionSummary, VaccinationOutcomes } from './results.ts';
 import type { PolicyOption } from './scenario.ts';
 import { type Segment, segmentsOf } from './segments.ts';
 import { TriggeredMeasures } from './triggeredMeasures.ts';
@@ -90,10 +90,31 @@ function vaccinationOutcomes(campaign: PreparedCampaign, plan: readonly DosePiec
 }
 
 /**
- * Runs one option of a prepared scenario. `accuracy` overrides the integrator's error tolerances
- * (dopri5.ts; the defaults are those every view uses), for checks against a tighter solution.
+ * How much of an option run to keep: `full`, every outcome and the daily series (the views'
+ * curves, the daily CSV); `summary`, every outcome without the daily series, for the many-run
+ * loops that read only outcomes (uncertainty draws, order searches, the options table). A summary
+ * run skips the daily R(t) (the R at the start, R by phase and every other outcome stay), the
+ * daily deaths and doses and keeps no per-day arrays; its outcomes equal the full run's bit for bit
+ * (test/engine/summaryRuns.test.ts).
  */
-export function simulateOption(p: PreparedScenario, option: PolicyOption, accuracy: Accuracy = {}): OptionResults {
+export type SeriesDetail = 'full' | 'summary';
+
+/**
+ * `series`: what to keep (SeriesDetail; default `full`). `accuracy` overrides the integrator's
+ * error tolerances (dopri5.ts; the defaults are those every view uses), for checks against a
+ * tighter solution.
+ */
+export interface OptionRunSettings {
+  series?: SeriesDetail;
+  accuracy?: Accuracy;
+}
+
+/** Runs one option of a prepared scenario: every outcome and, unless `series: 'summary'`, the daily series. */
+export function simulateOption(p: PreparedScenario, option: PolicyOption, settings?: OptionRunSettings & { series?: 'full' }): OptionResults;
+export function simulateOption(p: PreparedScenario, option: PolicyOption, settings: OptionRunSettings & { series: 'summary' }): OptionSummary;
+export function simulateOption(p: PreparedScenario, option: PolicyOption, settings?: OptionRunSettings): OptionSummary | OptionResults;
+export function simulateOption(p: PreparedScenario, option: PolicyOption, settings: OptionRunSettings = {}): OptionSummary | OptionResults {
+  const full = settings.series !== 'summary';
   const s = p.scenario;
   const n = p.bands.bands;
   const H = s.horizonDays;
@@ -105,13 +126,12 @@ export function simulateOption(p: PreparedScenario, option: PolicyOption, accura
   const triggered = hasTriggers(option)
     ? { measures: new TriggeredMeasures(p, option, campaign?.admissionRiskFactor ?? 1), fixedPhaseAt: (t: number) => phaseAt(option, t), realized: [] as Segment[] }
     : null;
-  const daily = integrateOption(p, fixedSegments, campaign, triggered, accuracy);
+  const daily = integrateOption(p, fixedSegments, campaign, triggered, settings.accuracy);
   const segments = triggered === null ? fixedSegments : triggered.realized;
   const triggers = triggered === null ? [] : triggered.measures.controller.outcomes(H);
   const burden = measureBurden(s, option, triggers);
 
   const rStart = reproductionNumber(segments[0].transmission, p.initialSusceptible, p.periods.infectiousPeriodDays);
-  const rt = reproductionByDay(p, segments, daily.effectiveSusceptible);
   const growthRatePerDay = growthRateFromR(rStart, p.periods);
 
   let peakDay = 0;
@@ -133,18 +153,9 @@ export function simulateOption(p: PreparedScenario, option: PolicyOption, accura
   const infections = sum(infectionsByBand);
   const yllByBand = yearsOfLifeLostByBand(deathsByBand, p.remainingLifeExpectancy);
 
-  const incidence = dailyIncidence(p, daily.cumulative);
-  const protectedIncidence = campaign === null ? null : dailyDifferences(daily.protectedCumulative, n, H);
-  const series: DailySeries = {
-    days: H,
-    bands: n,
-    susceptible: daily.susceptible,
-    prevalence: daily.prevalence,
-    incidence,
-    deaths: convolve(weightedBandSum(weightedIncidence(incidence, protectedIncidence, deathFactor), n, p.infectionFatalityRatio), p.deathDelayWeights),
-    rt,
-    doses: dailyDoses(plan, n, H),
-  };
+  // Daily infections: for the series and the hospital demand.
+  const incidence = full || p.healthcare !== null ? dailyIncidence(p, daily.cumulative) : null;
+  const protectedIncidence = incidence === null || campaign === null ? null : dailyDifferences(daily.protectedCumulative, n, H);
 
   let finalSize: OptionResults['finalSize'] = null;
   if (campaign === null && measuresConstant(option, H)) {
@@ -153,7 +164,7 @@ export function simulateOption(p: PreparedScenario, option: PolicyOption, accura
     finalSize = { attackRateByBand: z.map(fraction), attackRate: fraction(sum(z.map((x, i) => x * population[i])) / totalPopulation) };
   }
 
-  return {
+  const summary: OptionSummary = {
     name: option.name,
     rStart,
     growthRatePerDay,
@@ -171,8 +182,7 @@ export function simulateOption(p: PreparedScenario, option: PolicyOption, accura
     yearsOfLifeLost: sum(yllByBand),
     yearsOfLifeLostByBand: yllByBand,
     finalSize,
-    series,
-    healthcare: p.healthcare === null ? null : healthcareDemand(p.healthcare, weightedIncidence(incidence, protectedIncidence, campaign?.admissionRiskFactor ?? 1)),
+    healthcare: p.healthcare === null || incidence === null ? null : healthcareDemand(p.healthcare, weightedIncidence(incidence, protectedIncidence, campaign?.admissionRiskFactor ?? 1)),
     vaccination: campaign === null ? null : vaccinationOutcomes(campaign, plan, n, H, daily.dosesToNonSusceptible),
     triggers,
     daysUnderMeasures: burden.daysUnderMeasures,
@@ -180,4 +190,16 @@ export function simulateOption(p: PreparedScenario, option: PolicyOption, accura
     measureBurden: burden,
     comparison: null,
   };
+  if (!full || incidence === null) return summary;
+  const series: DailySeries = {
+    days: H,
+    bands: n,
+    susceptible: daily.susceptible,
+    prevalence: daily.prevalence,
+    incidence,
+    deaths: convolve(weightedBandSum(weightedIncidence(incidence, protectedIncidence, deathFactor), n, p.infectionFatalityRatio), p.deathDelayWeights),
+    rt: reproductionByDay(p, segments, daily.effectiveSusceptible),
+    doses: dailyDoses(plan, n, H),
+  };
+  return { ...summary, series };
 }

@@ -4,11 +4,11 @@
  * this list, so an outcome is added by one entry here plus its computation in the engine
  * (see DEVELOPERS.md, "Adding an outcome").
  *
- * An entry only reads and formats what the engine returned (`OptionResults`); averted
+ * An entry only reads and formats what the engine returned (`OptionSummary`: a full or a summary run); averted
  * quantities and the reference option come from the engine's `comparison` and `referenceIndex`.
  * Pure TypeScript: no DOM, no Node.
  */
-import type { BedDemand, OptionResults, ScenarioResults } from '../engine/index.ts';
+import type { BedDemand, OptionSummary, ScenarioSummary } from '../engine/index.ts';
 import { dateOfDay, screen, type NumberStyle, type ValueContext, type ValueFormat, formatValue, numberFormatter, type NumberFormatter } from './numberFormat.ts';
 
 export type OutcomeGroup = 'spread' | 'hospital' | 'vaccination' | 'measures';
@@ -61,15 +61,15 @@ export interface Outcome extends ValueFormat {
   shadeBy?: string;
   shownOn: readonly Surface[];
   /** The number, read from the engine's results; null when the option has none (see `whenNull`). */
-  read(o: OptionResults, results: ScenarioResults): number | null;
+  read(o: OptionSummary, results: ScenarioSummary): number | null;
   /** Text when the outcome applies but the engine gives null (e.g. "never", "flat"); default: not applicable. */
   whenNull?: string;
   /** Writes the cell itself instead of `formatValue` (e.g. doubling or halving time). */
-  text?(o: OptionResults, f: NumberFormatter): string;
+  text?(o: OptionSummary, f: NumberFormatter): string;
   /** Beds available, for bed outcomes: the board marks options whose peak exceeds it. */
-  capacity?(o: OptionResults): number | null;
+  capacity?(o: OptionSummary): number | null;
   /** A second line on the board (screen style). */
-  detail?(o: OptionResults, results: ScenarioResults): string;
+  detail?(o: OptionSummary, results: ScenarioSummary): string;
 }
 
 /** Shown where an outcome does not apply to an option (no campaign, no hospital section). */
@@ -86,9 +86,9 @@ function shareOfReference(averted: number | null | undefined, referenceCount: nu
   return `${screen.signedPercent(averted / referenceCount)} of reference`;
 }
 
-const referenceOf = (results: ScenarioResults): OptionResults => results.options[results.referenceIndex];
+const referenceOf = (results: ScenarioSummary): OptionSummary => results.options[results.referenceIndex];
 
-function beds(key: string, column: string, label: string, printLabel: string, hint: string, shownOn: readonly Surface[], pick: (o: OptionResults) => BedDemand | undefined): Outcome {
+function beds(key: string, column: string, label: string, printLabel: string, hint: string, shownOn: readonly Surface[], pick: (o: OptionSummary) => BedDemand | undefined): Outcome {
   return {
     key,
     column,
@@ -606,11 +606,11 @@ export const OUTCOMES: readonly Outcome[] = [
 ];
 
 /** The option's phases in the order they start. */
-function phasesByStart(o: OptionResults): OptionResults['rByPhase'] {
+function phasesByStart(o: OptionSummary): OptionSummary['rByPhase'] {
   return [...o.rByPhase].sort((a, b) => a.startDay - b.startDay);
 }
 
-function firstPhase(o: OptionResults): OptionResults['rByPhase'][number] | undefined {
+function firstPhase(o: OptionSummary): OptionSummary['rByPhase'][number] | undefined {
   return phasesByStart(o)[0];
 }
 
@@ -622,7 +622,7 @@ export function outcome(key: string): Outcome {
 }
 
 /** Whether one requirement holds for an option. */
-function holds(requirement: Requirement, o: OptionResults): boolean {
+function holds(requirement: Requirement, o: OptionSummary): boolean {
   switch (requirement) {
     case 'healthcare':
       return o.healthcare !== null;
@@ -640,19 +640,19 @@ function holds(requirement: Requirement, o: OptionResults): boolean {
 }
 
 /** Whether an outcome applies to an option (every requirement holds). */
-export function appliesTo(entry: { requires: readonly Requirement[] }, o: OptionResults): boolean {
+export function appliesTo(entry: { requires: readonly Requirement[] }, o: OptionSummary): boolean {
   return entry.requires.every((r) => holds(r, o));
 }
 
 /** Outcomes that apply to at least one option of these results, in catalogue order; only those shown on `surface` when given. Dates need the scenario's start date. */
-export function outcomesFor(results: ScenarioResults, surface?: Surface): Outcome[] {
+export function outcomesFor(results: ScenarioSummary, surface?: Surface): Outcome[] {
   return OUTCOMES.filter(
     (e) => (surface === undefined || e.shownOn.includes(surface)) && (e.kind !== 'date' || results.startDate !== null) && results.options.some((o) => appliesTo(e, o)),
   );
 }
 
 /** How the results write dates: day numbers as calendar dates from the scenario's start date. */
-export function valueContextOf(results: ScenarioResults): ValueContext {
+export function valueContextOf(results: ScenarioSummary): ValueContext {
   return { startDate: results.startDate };
 }
 
@@ -660,19 +660,19 @@ export function valueContextOf(results: ScenarioResults): ValueContext {
  * An outcome as data (JSON and CSV): the number, or for a `date` outcome its ISO 8601 date
  * (null without a start date); null where the engine gives none.
  */
-export function outcomeDatum(entry: Outcome, o: OptionResults, results: ScenarioResults): number | string | null {
+export function outcomeDatum(entry: Outcome, o: OptionSummary, results: ScenarioSummary): number | string | null {
   const value = entry.read(o, results);
   if (entry.kind !== 'date' || value === null) return value;
   return results.startDate === null ? null : dateOfDay(results.startDate, value);
 }
 
 /** Whether this option is the one the others are compared with. */
-export function isReference(o: OptionResults, results: ScenarioResults): boolean {
+export function isReference(o: OptionSummary, results: ScenarioSummary): boolean {
   return results.options[results.referenceIndex] === o;
 }
 
 /** A comparison outcome in the reference option's own column (shown as "reference"). */
-export function isReferenceCell(entry: Outcome, o: OptionResults, results: ScenarioResults): boolean {
+export function isReferenceCell(entry: Outcome, o: OptionSummary, results: ScenarioSummary): boolean {
   return entry.comparison === true && appliesTo(entry, o) && isReference(o, results);
 }
 
@@ -681,7 +681,7 @@ export function isReferenceCell(entry: Outcome, o: OptionResults, results: Scena
  * "reference" for a comparison in the reference's own column, else the value in the style (with its unit
  * on screen).
  */
-export function outcomeText(entry: Outcome, o: OptionResults, results: ScenarioResults, style: NumberStyle, context: ValueContext = valueContextOf(results)): string {
+export function outcomeText(entry: Outcome, o: OptionSummary, results: ScenarioSummary, style: NumberStyle, context: ValueContext = valueContextOf(results)): string {
   if (!appliesTo(entry, o)) return NOT_APPLICABLE[style];
   if (isReferenceCell(entry, o, results)) return REFERENCE_CELL;
   if (entry.text !== undefined) return entry.text(o, numberFormatter(style));
@@ -691,13 +691,13 @@ export function outcomeText(entry: Outcome, o: OptionResults, results: ScenarioR
 }
 
 /** The number a row is shaded by (its own, or that of `shadeBy`). */
-export function shadeValue(entry: Outcome, o: OptionResults, results: ScenarioResults): { value: number | null; lowerIsBetter: boolean | null } {
+export function shadeValue(entry: Outcome, o: OptionSummary, results: ScenarioSummary): { value: number | null; lowerIsBetter: boolean | null } {
   const by = entry.shadeBy === undefined ? entry : outcome(entry.shadeBy);
   return { value: by.read(o, results), lowerIsBetter: by.lowerIsBetter };
 }
 
 /** True when a bed outcome's peak exceeds the beds available. */
-export function overCapacity(entry: Outcome, o: OptionResults, results: ScenarioResults): boolean {
+export function overCapacity(entry: Outcome, o: OptionSummary, results: ScenarioSummary): boolean {
   const capacity = entry.capacity?.(o) ?? null;
   const value = entry.read(o, results);
   return capacity !== null && value !== null && value > capacity;
@@ -710,7 +710,7 @@ export interface BandOutcome extends ValueFormat {
   label: string;
   requires: readonly Requirement[];
   /** Zeros where the outcome does not apply, so JSON arrays always have one value per band. */
-  read(o: OptionResults, results: ScenarioResults): number[];
+  read(o: OptionSummary, results: ScenarioSummary): number[];
   /** Printed as a by-band table in the CLI's table and Markdown. */
   printTable: boolean;
 }
@@ -733,6 +733,6 @@ export const BAND_OUTCOMES: readonly BandOutcome[] = [
 ];
 
 /** One band's value of a by-band outcome as text ("—"/"n/a" where the outcome does not apply to the option). */
-export function formatBandValue(entry: BandOutcome, o: OptionResults, results: ScenarioResults, band: number, style: NumberStyle): string {
+export function formatBandValue(entry: BandOutcome, o: OptionSummary, results: ScenarioSummary, band: number, style: NumberStyle): string {
   return appliesTo(entry, o) ? formatValue(entry, entry.read(o, results)[band], style) : NOT_APPLICABLE[style];
 }

@@ -34,7 +34,7 @@ function worstDifference(s: Scenario): { option: string; outcome: string; relati
   let worst = { option: '', outcome: '', relative: 0 };
   for (const option of s.options) {
     const fast = outcomes(simulateOption(p, option));
-    const tight = outcomes(simulateOption(p, option, TIGHT));
+    const tight = outcomes(simulateOption(p, option, { accuracy: TIGHT }));
     for (const [name, reference] of Object.entries(tight)) {
       const relative = reference === 0 ? Math.abs(fast[name]) : Math.abs(fast[name] - reference) / Math.abs(reference);
       if (relative > worst.relative) worst = { option: option.name, outcome: name, relative };
@@ -65,8 +65,8 @@ describe('accuracy of the default tolerances', () => {
   it('a looser tolerance is caught: rtol 1e-3 misses by more than 1e-6', { timeout: 120_000 }, () => {
     const s = demoScenario();
     const p = prepareScenario(s);
-    const loose = outcomes(simulateOption(p, s.options[1], { relative: 1e-3 }));
-    const tight = outcomes(simulateOption(p, s.options[1], TIGHT));
+    const loose = outcomes(simulateOption(p, s.options[1], { accuracy: { relative: 1e-3 } }));
+    const tight = outcomes(simulateOption(p, s.options[1], { accuracy: TIGHT }));
     expect(Math.abs(loose.peakInfectedPersons - tight.peakInfectedPersons) / tight.peakInfectedPersons).toBeGreaterThan(AGREEMENT);
   });
 });

@@ -8,8 +8,8 @@
  * with `transferables` naming the result's typed-array buffers so they move without copying.
  */
 import { prepareScenario, type PreparedScenario } from '../prepare.ts';
-import type { OptionResults } from '../results.ts';
-import type { Scenario } from '../scenario.ts';
+import type { OptionResults, OptionSummary } from '../results.ts';
+import type { PolicyOption, Scenario } from '../scenario.ts';
 import { simulateOption } from '../simulate.ts';
 import { ordersInfo, type OrdersInfo } from '../vaccination/ordersInfo.ts';
 
@@ -20,23 +20,32 @@ export interface Job<Context, Prepared, Task, Result> {
   transferables(result: Result): ArrayBuffer[];
 }
 
-/** The typed-array buffers of one option's results. */
-export function optionBuffers(o: OptionResults): ArrayBuffer[] {
-  const s = o.series;
-  const arrays = [s.susceptible, s.prevalence, s.incidence, s.deaths, s.rt, s.doses];
+/** The typed-array buffers of one option's results (daily series, when it has them, and hospital series). */
+export function optionBuffers(o: OptionSummary | OptionResults): ArrayBuffer[] {
+  const s = 'series' in o ? o.series : null;
+  const arrays = s === null ? [] : [s.susceptible, s.prevalence, s.incidence, s.deaths, s.rt, s.doses];
   const h = o.healthcare?.series;
   if (h) arrays.push(h.admissions, h.icuAdmissions, h.wardOccupancy, h.icuOccupancy);
   return [...new Set(arrays.map((a) => a.buffer as ArrayBuffer))];
 }
 
+function optionOf(prepared: PreparedScenario, k: number): PolicyOption {
+  const option = prepared.scenario.options[k];
+  if (option === undefined) throw new Error(`the scenario has no option ${k}`);
+  return option;
+}
+
 /** Option k of a scenario: context = the validated scenario, task = the option's index. */
 const optionRuns: Job<Scenario, PreparedScenario, number, OptionResults> = {
   prepare: prepareScenario,
-  run: (prepared, k) => {
-    const option = prepared.scenario.options[k];
-    if (option === undefined) throw new Error(`the scenario has no option ${k}`);
-    return simulateOption(prepared, option);
-  },
+  run: (prepared, k) => simulateOption(prepared, optionOf(prepared, k)),
+  transferables: optionBuffers,
+};
+
+/** As `optionRuns` without the daily series (simulate.ts, `series: 'summary'`). */
+const optionSummaries: Job<Scenario, PreparedScenario, number, OptionSummary> = {
+  prepare: prepareScenario,
+  run: (prepared, k) => simulateOption(prepared, optionOf(prepared, k), { series: 'summary' }),
   transferables: optionBuffers,
 };
 
@@ -49,6 +58,7 @@ const ordersInfoJob: Job<Scenario, PreparedScenario, number, OrdersInfo> = {
 
 export const JOBS = {
   optionRuns,
+  optionSummaries,
   ordersInfo: ordersInfoJob,
 };
 
