@@ -177,9 +177,3 @@ export function copyCampaignForOption(doc: WorkingDocument, optionIndex: number)
   const scenario = { ...doc.scenario, vaccinationCampaigns: [...campaigns, { ...structuredClone(found.campaign), name }] };
   return setOptionCampaign(withScenario(doc, scenario), optionIndex, name);
 }
-
-/** A validation message about campaign `index`, without the file path prefix: "efficacyAgainstDeath must be ...". */
-export function campaignProblemText(problem: string, index: number): string {
-  const prefix = `vaccinationCampaigns[${index}].`;
-  return problem.startsWith(prefix) ? problem.slice(prefix.length) : problem;
-}

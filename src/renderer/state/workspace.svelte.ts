@@ -4,9 +4,9 @@
  * Components read this and call its actions; they do no model math.
  */
 import { tick } from 'svelte';
-import { validateScenario, parseScenarioText, formatProblem, scenarioRevision, type Scenario, type ScenarioResults, type OrdersInfo } from '../../engine/index.ts';
+import { parseScenarioText, formatProblem, scenarioRevision, type Scenario, type ScenarioResults, type OrdersInfo } from '../../engine/index.ts';
 import { EngineClient } from '../lib/engineClient.ts';
-import { problemInWords } from '../lib/problemWords.ts';
+import { checkEdit, type EditResult } from '../lib/editCheck.ts';
 import { pushHistory, redoHistory, startHistory, undoHistory, type HistoryState } from '../lib/history.ts';
 import { documentFor, replaceScenario, type WorkingDocument } from '../lib/scenarioEdits.ts';
 import { clearAutosave, loadAutosave, storeAutosave, type AutosavedCopy } from '../lib/autosave.ts';
@@ -142,20 +142,20 @@ class Workspace {
 
   /**
    * Commits an edited document after validating its scenario with the engine's rules.
-   * Returns the problems (and changes nothing) when the edit would make the scenario invalid.
+   * When the edit would make the scenario invalid, nothing changes and the result lists the
+   * problems (path and message in the app's words; see editCheck.ts).
    */
-  commit(next: WorkingDocument, mergeKey: string | null = null): string[] {
-    if (next === this.history.present) return [];
-    const check = validateScenario(next.scenario);
-    // Problems of an edit are shown next to its field: in the app's words, not the file's paths.
-    if (!check.ok) return check.problems.map((p) => problemInWords(p, next.scenario));
+  commit(next: WorkingDocument, mergeKey: string | null = null): EditResult {
+    if (next === this.history.present) return { ok: true };
+    const check = checkEdit(next.scenario);
+    if (!check.ok) return check;
     this.history = pushHistory(this.history, { ...next, scenario: check.scenario }, mergeKey, performance.now());
     this.afterChange();
-    return [];
+    return { ok: true };
   }
 
   /** Commits a whole new scenario (assumptions edits, CSV import). */
-  commitScenario(scenario: Scenario, mergeKey: string | null = null): string[] {
+  commitScenario(scenario: Scenario, mergeKey: string | null = null): EditResult {
     return this.commit(replaceScenario(this.history.present, scenario), mergeKey);
   }
 
