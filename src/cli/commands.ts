@@ -18,6 +18,8 @@ import { runOnThreads, threadsFor } from './runOnPool.ts';
 export interface Output {
   out(text: string): void;
   err(text: string): void;
+  /** True when `err` writes to a terminal: progress lines rewritten in place are then welcome. */
+  errIsTerminal?: boolean;
 }
 
 function loadScenario(file: string): ValidationResult {

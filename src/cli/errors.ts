@@ -12,6 +12,8 @@ export const EXIT_CODES = {
   fileError: 3,
   /** A fault in the program itself (please report it). */
   internal: 4,
+  /** Stopped by Ctrl-C (SIGINT) before the end; nothing written (128 + signal 2, the shells' convention). */
+  cancelled: 130,
 } as const;
 
 export type ExitCode = (typeof EXIT_CODES)[keyof typeof EXIT_CODES];

@@ -43,7 +43,7 @@ Usage:
       --series the daily series (option, day, band, quantity, value).
   mixwise orders FILE --option NAME [--minimise deaths|infections|admissions|
           peakIcuOccupancy|yearsOfLifeLost] [--groups SPEC] [--top K] [--format table|json]
-          [--method auto|exhaustive|heuristic] [--budget N] [--seed N]
+          [--method auto|exhaustive|heuristic] [--budget N] [--seed N] [--workers N]
       Search the priority orders of the groups of option NAME's vaccination campaign (its
       supply, uptake ceilings, efficacy and delay unchanged) and print the K best (default 5)
       for the outcome (default deaths), with the other outcomes and the gap to the best,
@@ -53,14 +53,16 @@ Usage:
       can vaccinate must be in exactly one group. Up to 8 groups the search is exhaustive and
       proves the best orders; above, a heuristic local search from the built-in orders and
       four random orders (seeded by --seed), within --budget simulated orders (default 1500),
-      which proves nothing.
+      which proves nothing. --workers N spreads the simulations over N threads (default: one
+      per core from 6 groups up, else 1); the result is the same whatever N. Progress goes to
+      stderr; Ctrl-C stops the search and exits with code 130, writing nothing.
       An unknown option or outcome, an option without a campaign, or groups that miss or
       repeat a band exit with code 2.
   mixwise --help       Show this text.
   mixwise --version    Show the version.
 
 Exit codes: 0 done, 1 wrong command line, 2 scenario not valid (or not JSON),
-3 a file cannot be read or written, 4 internal fault.
+3 a file cannot be read or written, 4 internal fault, 130 stopped by Ctrl-C.
 
 The scenario format is described in docs/scenario.schema.json.
 ${CAUTION}

@@ -63,6 +63,7 @@ export async function mainAsync(argv: readonly string[], io: Output): Promise<Ex
 export const processOutput: Output = {
   out: (text) => void process.stdout.write(text),
   err: (text) => void process.stderr.write(text),
+  errIsTerminal: process.stderr.isTTY === true,
 };
 
 export function runProcess(): void {

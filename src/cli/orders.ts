@@ -1,13 +1,19 @@
 /**
  * `mixwise orders FILE --option NAME [--minimise OUTCOME] [--groups SPEC] [--top K]
- * [--format table|json] [--method auto|exhaustive|heuristic] [--budget N] [--seed N]`:
- * the best priority orders of the option's campaign groups for one outcome, beside the built-in
- * orders (search: src/engine/vaccination/orderSearch.ts). A request that does not fit the
- * scenario (unknown option or outcome, an option without a campaign, groups that miss or repeat
- * a band) is one line per problem and exit code 2, like an invalid scenario.
+ * [--format table|json] [--method auto|exhaustive|heuristic] [--budget N] [--seed N]
+ * [--workers N]`: the best priority orders of the option's campaign groups for one outcome,
+ * beside the built-in orders (search: src/engine/vaccination/orderSearch.ts), on N worker
+ * threads (orderPool.ts; the same orders and numbers whatever N). A request that does not fit
+ * the scenario (unknown option or outcome, an option without a campaign, groups that miss or
+ * repeat a band) is one line per problem and exit code 2, like an invalid scenario.
+ *
+ * stderr gets one line when the search starts and, on a terminal, a progress line updated in
+ * place; Ctrl-C stops the search, prints one line and exits with code 130, writing nothing.
  */
-import { inThreadEvaluator, namedGroups, ORDER_OUTCOMES, parseGroupSpec, prepareOrderSearch, priorityOf, searchOrders, type OrderOutcomes, type OrderSearchJob, type OrderSearchResult, type OrderSearchSettings, type Scenario } from '../engine/index.ts';
-import { orderText } from '../report/orderText.ts';
+import { availableParallelism } from 'node:os';
+import { inThreadEvaluator, namedGroups, ORDER_OUTCOMES, parseGroupSpec, PoolCancelled, poolEvaluator, prepareOrderSearch, priorityOf, searchOrders, type OrderEvaluator, type OrderOutcomes, type OrderSearchJob, type OrderSearchRequest, type OrderSearchResult, type OrderSearchSettings, type Scenario, type SearchProgress } from '../engine/index.ts';
+import { gapText, orderText } from '../report/orderText.ts';
+import { nodeWorkerPool } from './workerThreads.ts';
 import { CAUTION } from '../report/index.ts';
 import { loadScenarioOrComplain, type Output } from './commands.ts';
 import { CliError, EXIT_CODES, reportFault, type ExitCode } from './errors.ts';
@@ -21,10 +27,15 @@ interface OrdersArgs {
   outcome: string;
   groups: string | null;
   format: 'table' | 'json';
+  /** Worker threads; null = the default (threadsForSearch). */
+  workers: number | null;
   settings: Partial<OrderSearchSettings>;
 }
 
-const VALUE_OPTIONS = ['--option', '--minimise', '--groups', '--top', '--format', '--method', '--budget', '--seed'];
+const VALUE_OPTIONS = ['--option', '--minimise', '--groups', '--top', '--format', '--method', '--budget', '--seed', '--workers'];
+
+/** From this many groups up (720 orders), a search uses one thread per core by default; below, starting threads costs more than they save. */
+export const POOL_GROUPS = 6;
 
 function wholeNumber(name: string, text: string | undefined, min: number): number | undefined {
   if (text === undefined) return undefined;
@@ -48,6 +59,7 @@ function parseOrdersArgs(words: readonly string[]): OrdersArgs {
     outcome: values.get('--minimise') ?? 'deaths',
     groups: values.get('--groups') ?? null,
     format,
+    workers: wholeNumber('--workers', values.get('--workers'), 1) ?? null,
     settings: {
       method,
       top: wholeNumber('--top', values.get('--top'), 1),
@@ -58,7 +70,7 @@ function parseOrdersArgs(words: readonly string[]): OrdersArgs {
 }
 
 /** The request's problems become one `mixwise: FILE: --name rule` line each and exit code 2. */
-function prepareJob(scenario: Scenario, args: OrdersArgs): OrderSearchJob {
+function prepareRequest(scenario: Scenario, args: OrdersArgs): { job: OrderSearchJob; request: OrderSearchRequest } {
   const flag: Record<string, string> = { option: '--option', outcome: '--minimise', groups: '--groups' };
   let groups: number[][] | undefined;
   if (args.groups !== null) {
@@ -66,12 +78,13 @@ function prepareJob(scenario: Scenario, args: OrdersArgs): OrderSearchJob {
     if (parsed === null) throw new CliError(`${args.file}: --groups must be ten-year, bands, or band indices and ranges separated by commas (e.g. 0-3,4-9,10-15), got ${JSON.stringify(args.groups)}`, EXIT_CODES.invalidScenario);
     groups = parsed;
   }
-  const prepared = prepareOrderSearch(scenario, { option: args.option, outcome: args.outcome, groups });
+  const request: OrderSearchRequest = { option: args.option, outcome: args.outcome, groups };
+  const prepared = prepareOrderSearch(scenario, request);
   if (!prepared.ok) {
     const lines = prepared.problems.map((p) => `${args.file}: ${flag[p.path] ?? p.path} ${p.rule}${p.value === undefined ? '' : `, got ${p.value}`}`);
     throw new CliError(lines.join('\nmixwise: '), EXIT_CODES.invalidScenario);
   }
-  return prepared.job;
+  return { job: prepared.job, request };
 }
 
 const OUTCOME_HEADINGS: Record<keyof OrderOutcomes, string> = {
@@ -94,7 +107,7 @@ function tableText(scenario: Scenario, job: OrderSearchJob, result: OrderSearchR
   const shown = ORDER_OUTCOMES.filter((k) => k !== result.outcome && (scenario.healthcare !== undefined || (k !== 'admissions' && k !== 'peakIcuOccupancy')));
   const heading = ['Order', OUTCOME_HEADINGS[result.outcome], 'Gap to best', ...shown.map((k) => OUTCOME_HEADINGS[k])];
   const best = result.orders[0]?.value ?? 0;
-  const line = (text: string, value: number, outcomes: OrderOutcomes) => [text, count(value), value === best ? '0' : `+${count(value - best)}`, ...shown.map((k) => count(outcomes[k]))];
+  const line = (text: string, value: number, outcomes: OrderOutcomes) => [text, count(value), gapText(value - best), ...shown.map((k) => count(outcomes[k]))];
   const ranked = result.orders.map((o, k) => line(`${k + 1}. ${orderText(priorityOf(job, o.permutation), bands)}${o.noDosesFrom === null ? '' : ` (groups after the first ${o.noDosesFrom} get no doses within the horizon)`}`, o.value, o.outcomes));
   const builtIn = result.builtIn.map((b) => line(`${b.name}: ${orderText(priorityOf(job, b.permutation), bands)}`, b.value, b.outcomes));
   return [
@@ -146,11 +159,63 @@ async function orders(io: Output, words: readonly string[]): Promise<ExitCode> {
   const loaded = loadScenarioOrComplain(io, args.file);
   if (loaded === null) return EXIT_CODES.invalidScenario;
   const { scenario } = loaded;
-  const job = prepareJob(scenario, args);
+  const { job, request } = prepareRequest(scenario, args);
   const settings = Object.fromEntries(Object.entries(args.settings).filter(([, v]) => v !== undefined)) as Partial<OrderSearchSettings>;
-  const result = await searchOrders(job, inThreadEvaluator(job), settings);
+  const threads = args.workers ?? (job.groups.length >= POOL_GROUPS ? availableParallelism() : 1);
+  const stop = new AbortController();
+  const onInterrupt = () => stop.abort();
+  process.once('SIGINT', onInterrupt);
+  const pool = threads > 1 ? nodeWorkerPool(threads) : null;
+  const progress = progressLine(io);
+  let result: OrderSearchResult | null = null;
+  try {
+    const evaluator = pool === null ? yieldingEvaluator(inThreadEvaluator(job), stop.signal) : poolEvaluator(pool, { scenario, request }, stop.signal);
+    io.err(`mixwise: orders: searching the orders of ${job.groups.length} groups on ${threads === 1 ? 'one thread' : `${threads} threads`} (Ctrl-C stops)\n`);
+    result = await searchOrders(job, evaluator, settings, { onProgress: progress.show, isCancelled: () => stop.signal.aborted });
+  } catch (err) {
+    if (!(err instanceof PoolCancelled)) throw err;
+  } finally {
+    process.removeListener('SIGINT', onInterrupt);
+    pool?.close();
+    progress.clear();
+  }
+  if (result === null || result.cancelled) {
+    io.err(`mixwise: orders: stopped by Ctrl-C${result === null ? '' : ` after ${result.evaluated.toLocaleString('en')} orders simulated`}; nothing written\n`);
+    return EXIT_CODES.cancelled;
+  }
   io.out(args.format === 'json' ? jsonText(scenario, job, result) : tableText(scenario, job, result));
   return EXIT_CODES.ok;
+}
+
+/**
+ * The in-thread evaluator, giving the event loop a turn before each batch so Ctrl-C is heard
+ * (a batch runs synchronously); a batch asked for after the signal is rejected as cancelled.
+ */
+function yieldingEvaluator(inner: OrderEvaluator, signal: AbortSignal): OrderEvaluator {
+  return {
+    async evaluate(permutations) {
+      await new Promise((resolve) => setImmediate(resolve));
+      if (signal.aborted) throw new PoolCancelled();
+      return inner.evaluate(permutations);
+    },
+  };
+}
+
+/** Progress on a terminal's stderr, one line rewritten in place (nothing elsewhere). */
+function progressLine(io: Output): { show(p: SearchProgress): void; clear(): void } {
+  if (io.errIsTerminal !== true) return { show: () => {}, clear: () => {} };
+  let shown = false;
+  return {
+    show(p) {
+      const ruledOut = p.ruledOut > 0 ? `, ${p.ruledOut.toLocaleString('en')} ruled out by bounds` : '';
+      const best = p.best === null ? '' : `, best so far ${groupThousands(p.best)}`;
+      io.err(`\r\x1b[K${Math.floor(p.fraction * 100)}%: ${p.evaluated.toLocaleString('en')} orders simulated${ruledOut}${best}`);
+      shown = true;
+    },
+    clear() {
+      if (shown) io.err('\r\x1b[K');
+    },
+  };
 }
 
 /** Runs `mixwise orders` with the words after "orders"; never throws. */

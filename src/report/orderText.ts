@@ -3,6 +3,7 @@
  * other groups by their band labels joined with "+", and an order as its groups joined with " > ".
  * Shared by the command line, the app and the printed report.
  */
+import { groupThousands } from './numberFormat.ts';
 
 export interface BandAges {
   label: string;
@@ -25,4 +26,16 @@ export function groupLabel(group: readonly number[], bands: readonly BandAges[])
 /** "75+ > 70-74 > 20-69". */
 export function orderText(groups: readonly (readonly number[])[], bands: readonly BandAges[]): string {
   return groups.map((g) => groupLabel(g, bands)).join(' > ');
+}
+
+/**
+ * The gap of an order's value to the best: "0" for the best value itself, one decimal below
+ * one unit ("+0.3", "+<0.1" below 0.05), so a small but real gap never reads as none, and
+ * whole units with thousands separators above ("+1,234").
+ */
+export function gapText(gap: number): string {
+  if (!(gap > 0)) return '0';
+  if (gap < 0.05) return '+<0.1';
+  if (gap < 0.95) return `+${gap.toFixed(1)}`;
+  return `+${groupThousands(gap)}`;
 }

@@ -1,10 +1,15 @@
-/** `mixwise orders`: JSON shape of issue 15, agreement with `run`, the table, and bad requests (one line, exit 2). */
+/**
+ * `mixwise orders`: JSON shape of issue 15, agreement with `run`, the table, the same bytes on one
+ * thread and on two, progress on a terminal, Ctrl-C, and bad requests (one line, exit 2).
+ */
+import { spawn } from 'node:child_process';
+import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { CAUTION } from '../../src/report/cautions.ts';
 import { mainAsync } from '../../src/cli/main.ts';
 import { runScenario } from '../../src/engine/index.ts';
 import { validateScenario } from '../../src/engine/validation.ts';
-import { DEMO, demoJson, writeTemp, type Captured } from './helpers.ts';
+import { DEMO, ROOT, demoJson, writeTemp, type Captured } from './helpers.ts';
 
 async function runAsync(...argv: string[]): Promise<Captured> {
   let stdout = '';
@@ -12,6 +17,17 @@ async function runAsync(...argv: string[]): Promise<Captured> {
   const code = await mainAsync(argv, { out: (t) => void (stdout += t), err: (t) => void (stderr += t) });
   return { code, stdout, stderr };
 }
+
+/** As runAsync, with stderr taken for a terminal (progress lines rewritten in place). */
+async function runOnTerminal(...argv: string[]): Promise<Captured> {
+  let stdout = '';
+  let stderr = '';
+  const code = await mainAsync(argv, { out: (t) => void (stdout += t), err: (t) => void (stderr += t), errIsTerminal: true });
+  return { code, stdout, stderr };
+}
+
+/** The one line the search writes to stderr when it starts (no progress off a terminal). */
+const STARTED = /^mixwise: orders: searching the orders of \d+ groups on (one thread|\d+ threads) \(Ctrl-C stops\)\n$/;
 
 const OPTION = 'Vaccinate oldest first';
 // Three groups (0-19, 20-59, 60+): six orders, quick to search exhaustively.
@@ -23,7 +39,7 @@ describe('mixwise orders --format json', async () => {
 
   it('exits 0 with the shape of issue 15', () => {
     expect(code).toBe(0);
-    expect(stderr).toBe('');
+    expect(stderr).toMatch(STARTED);
     expect(json).toMatchObject({ option: OPTION, outcome: 'infections', method: 'exhaustive', proven: true });
     expect(json.evaluated).toBeGreaterThan(0);
     expect(json.orders).toHaveLength(3);
@@ -46,6 +62,47 @@ describe('mixwise orders --format json', async () => {
     const option = runScenario(v.scenario).options.find((o) => o.name === OPTION);
     expect(option?.infections).toBe(json.orders[0].value);
     expect(option?.yearsOfLifeLost).toBe(json.orders[0].outcomes.yearsOfLifeLost);
+  });
+});
+
+describe('mixwise orders --workers', () => {
+  // Four groups (0-19, 20-49, 50-64, 65+): 24 orders, several batches of the branch and bound.
+  const words = ['orders', DEMO, '--option', OPTION, '--groups', '0-3,4-9,10-12,13-15', '--format', 'json'];
+  it('prints the same bytes on one thread and on two', { timeout: 180_000 }, async () => {
+    const one = await runAsync(...words, '--workers', '1');
+    const two = await runAsync(...words, '--workers', '2');
+    expect(one.code).toBe(0);
+    expect(two.stderr).toMatch(/on 2 threads/);
+    expect(JSON.parse(one.stdout).evaluated).toBeGreaterThan(4);
+    expect(two.stdout).toBe(one.stdout);
+  });
+
+  it('shows progress on a terminal and clears it before the result', async () => {
+    const r = await runOnTerminal(...words, '--workers', '1', '--top', '2');
+    expect(r.code).toBe(0);
+    expect(r.stderr).toMatch(/\r\x1b\[K\d+%: \d+ orders simulated(, \d+ ruled out by bounds)?, best so far [\d,]+/);
+    expect(r.stderr.endsWith('\r\x1b[K')).toBe(true);
+    expect(JSON.parse(r.stdout).orders).toHaveLength(2);
+  });
+});
+
+describe('mixwise orders stopped by Ctrl-C', () => {
+  it('exits 130 with one line and writes nothing', { timeout: 120_000 }, async () => {
+    // Ten-year groups of the demo: thousands of orders, so the search is still going when stopped.
+    const child = spawn(process.execPath, [join(ROOT, 'bin/mixwise.mjs'), 'orders', DEMO, '--option', OPTION, '--groups', 'ten-year', '--workers', '1'], { cwd: ROOT });
+    let stdout = '';
+    let stderr = '';
+    child.stdout.on('data', (d) => void (stdout += d));
+    const code = await new Promise<number | null>((resolve) => {
+      child.stderr.on('data', (d) => {
+        stderr += d;
+        if (STARTED.test(stderr)) child.kill('SIGINT');
+      });
+      child.on('close', (c) => resolve(c));
+    });
+    expect(code).toBe(130);
+    expect(stdout).toBe('');
+    expect(stderr.split('\n')[1]).toMatch(/^mixwise: orders: stopped by Ctrl-C( after [\d,]+ orders simulated)?; nothing written$/);
   });
 });
 

@@ -66,6 +66,27 @@ describe('worker pool', () => {
     expect(first.name).toBe('option 0');
   });
 
+  it('leaves no listener on a signal shared by maps that have settled', async () => {
+    const s = manyOptions(2);
+    const control = new AbortController();
+    let listeners = 0;
+    const signal = {
+      get aborted() {
+        return control.signal.aborted;
+      },
+      addEventListener: (type: 'abort', listener: () => void, options?: { once?: boolean }) => {
+        listeners++;
+        control.signal.addEventListener(type, listener, options);
+      },
+      removeEventListener: (type: 'abort', listener: () => void) => {
+        listeners--;
+        control.signal.removeEventListener(type, listener);
+      },
+    };
+    for (let k = 0; k < 3; k++) await pool.map('optionRuns', s, [0], { signal });
+    expect(listeners).toBe(0);
+  });
+
   it('rejects a map whose task fails, with the task message', async () => {
     await expect(pool.map('optionRuns', manyOptions(2), [0, 7])).rejects.toThrow('the scenario has no option 7');
   });

@@ -12,6 +12,8 @@ import type { OptionResults, OptionSummary } from '../results.ts';
 import type { PolicyOption, Scenario } from '../scenario.ts';
 import { simulateOption } from '../simulate.ts';
 import { ordersInfo, type OrdersInfo } from '../vaccination/ordersInfo.ts';
+import { evaluateOrder, type OrderEvaluation, type OrderSearchJob } from '../vaccination/orderEvaluation.ts';
+import { orderSearchJobOf, type OrderEvaluationContext } from '../vaccination/orderJob.ts';
 
 export interface Job<Context, Prepared, Task, Result> {
   prepare(context: Context): Prepared;
@@ -56,10 +58,18 @@ const ordersInfoJob: Job<Scenario, PreparedScenario, number, OrdersInfo> = {
   transferables: () => [],
 };
 
+/** The order search (vaccination/orderPool.ts, orderJob.ts): context = the scenario and the search request, task = an order of the groups. */
+const orderEvaluations: Job<OrderEvaluationContext, OrderSearchJob, number[], OrderEvaluation> = {
+  prepare: orderSearchJobOf,
+  run: evaluateOrder,
+  transferables: () => [],
+};
+
 export const JOBS = {
   optionRuns,
   optionSummaries,
   ordersInfo: ordersInfoJob,
+  orderEvaluations,
 };
 
 export type JobName = keyof typeof JOBS;

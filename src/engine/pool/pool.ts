@@ -23,6 +23,7 @@ const PIPELINE = 2;
 export interface CancelSignal {
   readonly aborted: boolean;
   addEventListener(type: 'abort', listener: () => void, options?: { once?: boolean }): void;
+  removeEventListener(type: 'abort', listener: () => void): void;
 }
 
 export interface MapOptions {
@@ -49,6 +50,8 @@ interface MapState {
   total: number;
   options: MapOptions;
   settled: boolean;
+  /** The map's listener on `options.signal`, removed when it settles (one signal may serve many maps). */
+  onAbort: (() => void) | null;
   resolve(results: unknown[]): void;
   reject(err: Error): void;
 }
@@ -98,11 +101,15 @@ export class WorkerPool {
         total: tasks.length,
         options,
         settled: false,
+        onAbort: null,
         resolve: resolve as (results: unknown[]) => void,
         reject,
       };
       if (tasks.length === 0) return this.settle(map, null);
-      options.signal?.addEventListener('abort', () => this.settle(map, new PoolCancelled()), { once: true });
+      if (options.signal !== undefined) {
+        map.onAbort = () => this.settle(map, new PoolCancelled());
+        options.signal.addEventListener('abort', map.onAbort, { once: true });
+      }
       tasks.forEach((task, index) => this.queue.push({ map, index, task }));
       this.dispatch();
     });
@@ -174,6 +181,7 @@ export class WorkerPool {
   private settle(map: MapState, err: Error | null): void {
     if (map.settled) return;
     map.settled = true;
+    if (map.onAbort !== null) map.options.signal?.removeEventListener('abort', map.onAbort);
     for (let k = this.queue.length - 1; k >= 0; k--) if (this.queue[k].map === map) this.queue.splice(k, 1);
     for (const slot of this.slots) slot.contexts.delete(map.contextId);
     if (err === null) map.resolve(map.results);

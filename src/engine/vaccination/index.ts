@@ -14,7 +14,7 @@ export {
   type OrderEvaluation,
   type OrderSearchJob,
 } from './orderEvaluation.ts';
-export { prepareOrderSearch, type OrderSearchRequest, type PreparedOrderSearch } from './orderJob.ts';
+export { prepareOrderSearch, orderSearchJobOf, type OrderSearchRequest, type PreparedOrderSearch, type OrderEvaluationContext } from './orderJob.ts';
 export {
   searchOrders,
   inThreadEvaluator,
@@ -30,4 +30,5 @@ export {
   type SearchProgress,
   type SearchControl,
 } from './orderSearch.ts';
+export { poolEvaluator } from './orderPool.ts';
 export { ordersInfo, type OrdersInfo } from './ordersInfo.ts';

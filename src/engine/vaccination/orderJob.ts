@@ -5,7 +5,7 @@
  */
 import { prepareScenario } from '../prepare.ts';
 import type { Scenario } from '../scenario.ts';
-import type { Problem } from '../problems.ts';
+import { formatProblem, type Problem } from '../problems.ts';
 import { ORDER_OUTCOMES, type OrderOutcome, type OrderSearchJob } from './orderEvaluation.ts';
 import { groupProblems } from './orderGroups.ts';
 
@@ -48,4 +48,17 @@ export function prepareOrderSearch(s: Scenario, request: OrderSearchRequest): Pr
     ok: true,
     job: { prepared, option, campaign: preparedCampaign, outcome, groups: groups.filter(eligible), idleGroups: groups.filter((g) => !eligible(g)) },
   };
+}
+
+/** What every worker of a pool needs to evaluate orders (orderPool.ts): plain data, cloned across the worker boundary. */
+export interface OrderEvaluationContext {
+  scenario: Scenario;
+  request: OrderSearchRequest;
+}
+
+/** The job of a context; throws with the request's problems (callers check the request first). */
+export function orderSearchJobOf(context: OrderEvaluationContext): OrderSearchJob {
+  const prepared = prepareOrderSearch(context.scenario, context.request);
+  if (!prepared.ok) throw new Error(prepared.problems.map(formatProblem).join('; '));
+  return prepared.job;
 }

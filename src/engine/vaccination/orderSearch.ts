@@ -55,12 +55,18 @@ export interface SearchProgress {
   /** Fraction done, 0-1 (orders accounted for in an exhaustive search; budget used in a heuristic one). */
   fraction: number;
   evaluated: number;
+  /** Orders ruled out by a proven bound without being simulated (exhaustive search; 0 in a heuristic one). */
+  ruledOut: number;
   best: number | null;
 }
 
 export interface SearchControl {
   onProgress?: (p: SearchProgress) => void;
-  /** Checked between batches; the search then stops and returns what it has. */
+  /**
+   * Checked between batches; the search then stops and returns what it has. When it is true, a
+   * batch the evaluator rejects (e.g. a pool map cancelled by the same signal) also ends the
+   * search as cancelled instead of failing it.
+   */
   isCancelled?: () => boolean;
 }
 
@@ -207,7 +213,8 @@ async function exhaustive(state: SearchState, start: number[]): Promise<boolean>
   const H = state.job.prepared.scenario.horizonDays;
   const total = factorial(m);
   let accounted = 0;
-  const report = () => state.control.onProgress?.({ fraction: accounted / total, evaluated: state.evaluated, best: state.bestValue() });
+  let ruledOut = 0;
+  const report = () => state.control.onProgress?.({ fraction: accounted / total, evaluated: state.evaluated, ruledOut, best: state.bestValue() });
 
   // `leaf` is an evaluated order that starts with `prefix`.
   const visit = async (prefix: number[], leaf: OrderEvaluation): Promise<boolean> => {
@@ -233,6 +240,7 @@ async function exhaustive(state: SearchState, start: number[]): Promise<boolean>
       const threshold = state.threshold();
       if (bound >= threshold + BOUND_MARGIN * Math.abs(threshold)) {
         accounted += factorial(m - depth - 1);
+        ruledOut += factorial(m - depth - 1);
         continue;
       }
       if (!(await visit(childPrefix, e))) return false;
@@ -269,7 +277,7 @@ function neighbours(perm: readonly number[]): number[][] {
 
 /** Heuristic local search (module comment); returns false when cancelled. */
 async function localSearch(state: SearchState, starts: number[][], budget: number): Promise<boolean> {
-  const report = () => state.control.onProgress?.({ fraction: Math.min(1, state.evaluated / budget), evaluated: state.evaluated, best: state.bestValue() });
+  const report = () => state.control.onProgress?.({ fraction: Math.min(1, state.evaluated / budget), evaluated: state.evaluated, ruledOut: 0, best: state.bestValue() });
   for (const start of starts) {
     if (state.evaluated >= budget) break;
     let [current] = await state.evaluate([start]);
@@ -312,16 +320,22 @@ export async function searchOrders(job: OrderSearchJob, evaluator: OrderEvaluato
   let completed: boolean;
   let methodNote: string;
   const ordersInAll = factorial(m);
+  // A batch rejected because the search was cancelled ends it like a cancel between batches.
+  const unlessCancelled = (run: Promise<boolean>) =>
+    run.catch((err: unknown) => {
+      if (state.cancelled()) return false;
+      throw err;
+    });
   if (method === 'exhaustive') {
     const start = builtIn.reduce((a, b) => (b.value < a.value ? b : a)).permutation;
-    completed = await exhaustive(state, start);
+    completed = await unlessCancelled(exhaustive(state, start));
     methodNote = completed
       ? `Exhaustive: all ${ordersInAll.toLocaleString('en')} orders of ${m} groups accounted for, ${state.evaluated.toLocaleString('en')} simulated; the rest were ruled out by proven lower bounds or give the same campaign. The top orders are the best of all orders.`
       : `Exhaustive search cancelled after ${state.evaluated.toLocaleString('en')} orders: the top orders are the best found so far, not proven best.`;
   } else {
     const random = seededRandom(s.seed);
     const starts = [...builtIns.map((b) => b.permutation), ...Array.from({ length: s.randomStarts }, () => randomPermutation(m, random))];
-    completed = await localSearch(state, starts, s.budget);
+    completed = await unlessCancelled(localSearch(state, starts, s.budget));
     methodNote = `Heuristic: local search (swaps and moves of groups) from ${builtIns.length} built-in and ${s.randomStarts} random orders (seed ${s.seed}); ${state.evaluated.toLocaleString('en')} of ${ordersInAll.toLocaleString('en')} orders simulated. The top orders are the best found, not proven best.${completed ? '' : ' Cancelled before the end.'}`;
   }
   return {
