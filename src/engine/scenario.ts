@@ -29,7 +29,7 @@ import { campaignSchema } from './vaccination/schema.ts';
 import { fitRecordSchema } from './fitting/fitRecordSchema.ts';
 import { lifeTableSchema } from './lifeExpectancy.ts';
 import { uncertaintySchema } from './uncertainty/schema.ts';
-import { DEFAULT_ADMISSION_DELAY, DEFAULT_ICU_PATIENT_WARD_STAY, DEFAULT_ICU_STAY, DEFAULT_WARD_STAY } from './healthcare/defaults.ts';
+import { DEFAULT_ICU_PATIENT_WARD_STAY } from './healthcare/defaults.ts';
 import { isoDateToEpochDay } from './fitting/isoDate.ts';
 
 export const SCENARIO_FORMAT = 'mixwise-scenario';
@@ -168,20 +168,23 @@ export const bedCapacitySchema = z.object({
 /**
  * Hospital and ICU demand (see src/engine/healthcare). Ratios by band default to Ferguson et al.
  * 2020 (Imperial College Report 9, Table 1) turned into per-infection values; delays default to
- * the values cited in src/engine/healthcare/defaults.ts. A `...ByBand` list, when given, replaces
- * the common delay band by band.
+ * the values cited in src/engine/healthcare/defaults.ts. A delay is given either once for every
+ * band (`admissionDelay`) or band by band (`admissionDelayByBand`), never both: the list would
+ * silently replace the common delay (healthcareProblems.ts refuses the pair). The common delays
+ * therefore have no default in the schema; `commonDelays` (healthcare/defaults.ts) fills them in
+ * where they are read.
  */
 export const healthcareSchema = z.object({
   /** IHR by band: fraction of infections admitted to hospital, 0-1. */
   infectionHospitalisationRatio: z.array(fraction).optional(),
   /** Share of admissions that need ICU, by band, 0-1. */
   icuShareOfAdmissions: z.array(fraction).optional(),
-  /** Infection to hospital admission. */
-  admissionDelay: delaySchema.default(() => ({ ...DEFAULT_ADMISSION_DELAY })),
-  /** Length of stay in a ward of patients who do not need ICU. */
-  wardStay: delaySchema.default(() => ({ ...DEFAULT_WARD_STAY })),
-  /** Length of stay in ICU. */
-  icuStay: delaySchema.default(() => ({ ...DEFAULT_ICU_STAY })),
+  /** Infection to hospital admission, every band (default DEFAULT_ADMISSION_DELAY). */
+  admissionDelay: delaySchema.describe('Every band (default mean 10 days, shape 4); not together with admissionDelayByBand').optional(),
+  /** Length of stay in a ward of patients who do not need ICU, every band (default DEFAULT_WARD_STAY). */
+  wardStay: delaySchema.describe('Every band (default mean 8 days, shape 2); not together with wardStayByBand').optional(),
+  /** Length of stay in ICU, every band (default DEFAULT_ICU_STAY). */
+  icuStay: delaySchema.describe('Every band (default mean 10 days, shape 2); not together with icuStayByBand').optional(),
   /** Days ICU patients spend in a ward outside ICU (counted in ward beds from admission). */
   icuPatientWardStay: delaySchema.default(() => ({ ...DEFAULT_ICU_PATIENT_WARD_STAY })),
   admissionDelayByBand: z.array(delaySchema).optional(),

@@ -4,7 +4,7 @@
  * hospital ratios left out of the file are the program defaults, named as such with their source.
  * The only figures derived here are summaries of inputs (totals, mean contacts per person).
  */
-import { DEFAULT_ADMISSION_DELAY, DEFAULT_ICU_PATIENT_WARD_STAY, DEFAULT_ICU_STAY, DEFAULT_WARD_STAY, defaultIcuShareOfAdmissions, defaultInfectionHospitalisationRatio, type ScenarioResults, type Delay, type Scenario } from '../engine/index.ts';
+import { DEFAULT_ADMISSION_DELAY, DEFAULT_ICU_PATIENT_WARD_STAY, DEFAULT_ICU_STAY, DEFAULT_WARD_STAY, commonDelays, defaultIcuShareOfAdmissions, defaultInfectionHospitalisationRatio, type ScenarioResults, type Delay, type Scenario } from '../engine/index.ts';
 import { fitRecordRows } from './fitRecord.ts';
 import { print } from './numberFormat.ts';
 import type { BandTable, ParameterRow } from './reportTypes.ts';
@@ -17,6 +17,11 @@ export const DELAY_DEFAULT_SOURCE = 'Program default (src/engine/healthcare/defa
 const orFile = (source: string): string => (source.trim() === '' ? FROM_FILE : source);
 const sameDelay = (a: Delay, b: Delay): boolean => a.meanDays === b.meanDays && a.shape === b.shape;
 const delayText = (d: Delay): string => `mean ${print.decimal(d.meanDays, 1)}, gamma shape ${print.decimal(d.shape, 1)}`;
+/** A delay given band by band: the range of its means. */
+function byBandDelayText(delays: readonly Delay[]): string {
+  const means = delays.map((d) => d.meanDays);
+  return `band by band: mean ${print.decimal(Math.min(...means), 1)} to ${print.decimal(Math.max(...means), 1)}`;
+}
 
 /** Population-weighted mean contacts per person per day in one setting: sum_i N_i sum_j C_ij / sum_i N_i. */
 function meanContactsPerPerson(matrix: number[][], population: number[]): number {
@@ -83,15 +88,16 @@ export function parameterRows(scenario: Scenario, results: ScenarioResults): Par
     const hospitalSource = orFile(h.source);
     add('Infection-hospitalisation ratio (IHR)', 'by band, below', 'fraction of infections', h.infectionHospitalisationRatio === undefined ? HOSPITAL_DEFAULT_SOURCE : hospitalSource);
     add('ICU share of admissions', 'by band, below', 'fraction of admissions', h.icuShareOfAdmissions === undefined ? HOSPITAL_DEFAULT_SOURCE : hospitalSource);
-    const delays: [string, Delay, Delay, boolean][] = [
-      ['Infection to hospital admission', h.admissionDelay, DEFAULT_ADMISSION_DELAY, h.admissionDelayByBand !== undefined],
-      ['Ward stay (patients not needing ICU)', h.wardStay, DEFAULT_WARD_STAY, h.wardStayByBand !== undefined],
-      ['ICU stay', h.icuStay, DEFAULT_ICU_STAY, h.icuStayByBand !== undefined],
-      ['Ward days of ICU patients outside ICU', h.icuPatientWardStay, DEFAULT_ICU_PATIENT_WARD_STAY, false],
+    const common = commonDelays(h);
+    const delays: [string, Delay, Delay, readonly Delay[] | undefined][] = [
+      ['Infection to hospital admission', common.admissionDelay, DEFAULT_ADMISSION_DELAY, h.admissionDelayByBand],
+      ['Ward stay (patients not needing ICU)', common.wardStay, DEFAULT_WARD_STAY, h.wardStayByBand],
+      ['ICU stay', common.icuStay, DEFAULT_ICU_STAY, h.icuStayByBand],
+      ['Ward days of ICU patients outside ICU', h.icuPatientWardStay, DEFAULT_ICU_PATIENT_WARD_STAY, undefined],
     ];
     for (const [name, delay, fallback, byBand] of delays) {
-      const value = byBand ? `${delayText(delay)} (replaced band by band in the file)` : delayText(delay);
-      add(name, value, 'days', sameDelay(delay, fallback) && !byBand ? DELAY_DEFAULT_SOURCE : hospitalSource);
+      if (byBand !== undefined) add(name, byBandDelayText(byBand), 'days', hospitalSource);
+      else add(name, delayText(delay), 'days', sameDelay(delay, fallback) ? DELAY_DEFAULT_SOURCE : hospitalSource);
     }
     const surge = (n: number | undefined) => (n === undefined ? '' : `; ${print.persons(n)} at full surge`);
     add('Ward beds', `${print.persons(h.capacity.wardBeds)}${surge(h.capacity.wardSurgeBeds)}`, 'beds', hospitalSource);

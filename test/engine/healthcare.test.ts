@@ -9,6 +9,7 @@ import { dailyDelayWeights } from '../../src/engine/distributions.ts';
 import { bedDemand } from '../../src/engine/healthcare/capacity.ts';
 import { healthcareDemand } from '../../src/engine/healthcare/demand.ts';
 import {
+  commonDelays,
   defaultIcuShareOfAdmissions,
   defaultInfectionHospitalisationRatio,
   SYMPTOMATIC_SHARE,
@@ -102,8 +103,9 @@ describe('defaults: Ferguson et al. 2020, Imperial College Report 9, Table 1', (
     const h = prepareHealthcare(scenario)!;
     expect(Array.from(h.infectionHospitalisationRatio)).toEqual([0.8 * 0.001, 0.8 * 0.032, 0.8 * 0.243].map((x) => expect.closeTo(x, 12)));
     expect(Array.from(h.icuShareOfAdmissions)).toEqual([0.05, 0.05, 0.432].map((x) => expect.closeTo(x, 12)));
-    expect(scenario.healthcare?.wardStay).toEqual({ meanDays: 8, shape: 2 });
-    expect(scenario.healthcare?.icuStay).toEqual({ meanDays: 10, shape: 2 });
+    const defaults = { admissionDelay: { meanDays: 10, shape: 4 }, wardStay: { meanDays: 8, shape: 2 }, icuStay: { meanDays: 10, shape: 2 } };
+    expect(commonDelays(scenario.healthcare!)).toEqual(defaults);
+    expect(h).toEqual(prepareHealthcare(run(threeBand({ capacity: CAPACITY, ...defaults })).scenario));
   });
 });
 

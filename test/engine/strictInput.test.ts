@@ -6,6 +6,7 @@ import { describe, expect, it } from 'vitest';
 import { formatProblem, parseScenarioText, validateScenario } from '../../src/engine/index.ts';
 import { MAX_LISTED_PROBLEMS } from '../../src/engine/validation.ts';
 import { closestName } from '../../src/engine/strictInput.ts';
+import { applyParameter } from '../../src/engine/uncertainty/applyDraw.ts';
 import { demoJson } from '../cli/helpers.ts';
 
 function problemsOf(input: unknown): string[] {
@@ -37,6 +38,39 @@ describe('unknown and contradictory fields', () => {
     const s = demoJson();
     s.disease.transmission = { kind: 'r0', r0: 2.5, doublingTimeDays: 3 };
     expect(problemsOf(s)).toEqual(['disease.transmission.doublingTimeDays does not go with kind "r0": it belongs to kind "doublingTime" (give the fields of one form only)']);
+  });
+
+  it.each([
+    ['admissionDelay', 'admissionDelayByBand'],
+    ['wardStay', 'wardStayByBand'],
+    ['icuStay', 'icuStayByBand'],
+  ])('refuses a common %s given together with %s (the list silently replaced it), naming both', (common, byBand) => {
+    const s = demoJson();
+    s.healthcare[common] = { meanDays: 9, shape: 2 };
+    s.healthcare[byBand] = s.ageBands.map(() => ({ meanDays: 5, shape: 2 }));
+    expect(problemsOf(s)).toEqual([`healthcare.${byBand} must not be given together with healthcare.${common}: the list replaces the common delay for every band, so give one of them`]);
+    delete s.healthcare[common];
+    expect(validateScenario(s).ok).toBe(true);
+  });
+
+  it('keeps a by-band delay valid when the read scenario is checked again (the app and the draws re-check what they read)', () => {
+    const s = demoJson();
+    s.healthcare.wardStayByBand = s.ageBands.map(() => ({ meanDays: 5, shape: 2 }));
+    const first = validateScenario(s);
+    if (!first.ok) throw new Error(first.problems.map(formatProblem).join('\n'));
+    expect(first.scenario.healthcare?.wardStay).toBeUndefined();
+    const again = validateScenario(JSON.parse(JSON.stringify(first.scenario)));
+    expect(again.ok).toBe(true);
+    const scaled = validateScenario(applyParameter(first.scenario, 'wardStayScale', 2));
+    if (!scaled.ok) throw new Error(scaled.problems.map(formatProblem).join('\n'));
+    expect(scaled.scenario.healthcare?.wardStayByBand?.[0].meanDays).toBe(10);
+    expect(scaled.scenario.healthcare?.wardStay).toBeUndefined();
+  });
+
+  it('refuses a lognormal given both a 95% range and a geometric standard deviation, naming both', () => {
+    const s = demoJson();
+    s.uncertainty = { draws: 10, parameters: [{ name: 'ifrScale', distribution: { kind: 'lognormal', median: 1, range95: [0.5, 2], geometricSd: 1.5 }, source: 'test' }] };
+    expect(problemsOf(s)).toEqual(['uncertainty.parameters[0].distribution.geometricSd must not be given together with uncertainty.parameters[0].distribution.range95: give exactly one of them']);
   });
 
   it('escapes odd field names instead of printing raw control characters', () => {

@@ -74,3 +74,7 @@ export function defaultIcuShareOfAdmissions(s: Banded): number[] {
   return s.ageBands.map((b) => REPORT9_CRITICAL_CARE_PERCENT_OF_HOSPITALISED[report9BandOf(b.lowerAgeYears)] / 100);
 }
 
+/** The delays given once for every band, or their defaults where the scenario does not give them. */
+export function commonDelays(h: { admissionDelay?: Delay; wardStay?: Delay; icuStay?: Delay }): { admissionDelay: Delay; wardStay: Delay; icuStay: Delay } {
+  return { admissionDelay: h.admissionDelay ?? DEFAULT_ADMISSION_DELAY, wardStay: h.wardStay ?? DEFAULT_WARD_STAY, icuStay: h.icuStay ?? DEFAULT_ICU_STAY };
+}

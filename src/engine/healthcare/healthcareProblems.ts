@@ -1,6 +1,7 @@
 /**
- * Rules of the `healthcare` section that tie fields together: one entry per age band, and surge
- * capacity not below usual capacity. Called by `crossFieldProblems` in validation.ts.
+ * Rules of the `healthcare` section that tie fields together: one entry per age band, a delay given
+ * either for every band or band by band (not both: the list would silently replace the common
+ * delay), and surge capacity not below usual capacity. Called by `crossFieldProblems` in validation.ts.
  */
 import type { Scenario } from '../scenario.ts';
 import type { Problem } from '../problems.ts';
@@ -20,6 +21,16 @@ export function healthcareProblems(s: Scenario): Problem[] {
   for (const [field, values] of byBand) {
     if (values !== undefined && values.length !== n) {
       problems.push({ path: `healthcare.${field}`, rule: `must have one entry per age band (${n})`, value: `${values.length} entries` });
+    }
+  }
+  const pairs: [string, unknown, string, unknown][] = [
+    ['admissionDelay', h.admissionDelay, 'admissionDelayByBand', h.admissionDelayByBand],
+    ['wardStay', h.wardStay, 'wardStayByBand', h.wardStayByBand],
+    ['icuStay', h.icuStay, 'icuStayByBand', h.icuStayByBand],
+  ];
+  for (const [common, commonValue, byBandField, byBandValue] of pairs) {
+    if (commonValue !== undefined && byBandValue !== undefined) {
+      problems.push({ path: `healthcare.${byBandField}`, rule: `must not be given together with healthcare.${common}: the list replaces the common delay for every band, so give one of them` });
     }
   }
   const c = h.capacity;

@@ -7,7 +7,7 @@
  * costs one set of convolutions, whatever the number of bands.
  */
 import type { Delay, Scenario } from '../scenario.ts';
-import { defaultIcuShareOfAdmissions, defaultInfectionHospitalisationRatio } from './defaults.ts';
+import { commonDelays, defaultIcuShareOfAdmissions, defaultInfectionHospitalisationRatio } from './defaults.ts';
 import { delayKernel, bedDayKernel } from './kernels.ts';
 
 /** Bands with the same delays, and their kernels. */
@@ -54,11 +54,12 @@ export function prepareHealthcare(s: Scenario): PreparedHealthcare | null {
   const ihr = Float64Array.from(h.infectionHospitalisationRatio ?? defaultInfectionHospitalisationRatio(s));
   const icuShare = Float64Array.from(h.icuShareOfAdmissions ?? defaultIcuShareOfAdmissions(s));
 
+  const common = commonDelays(h);
   const byKey = new Map<string, DelayGroup>();
   for (let i = 0; i < n; i++) {
-    const admission = h.admissionDelayByBand?.[i] ?? h.admissionDelay;
-    const ward = h.wardStayByBand?.[i] ?? h.wardStay;
-    const icu = h.icuStayByBand?.[i] ?? h.icuStay;
+    const admission = h.admissionDelayByBand?.[i] ?? common.admissionDelay;
+    const ward = h.wardStayByBand?.[i] ?? common.wardStay;
+    const icu = h.icuStayByBand?.[i] ?? common.icuStay;
     const key = `${keyOf(admission)}|${keyOf(ward)}|${keyOf(icu)}`;
     let group = byKey.get(key);
     if (group === undefined) {

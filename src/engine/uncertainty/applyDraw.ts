@@ -6,7 +6,7 @@
  * - hospitalisationScale, icuShareScale: the same for the infection-hospitalisation ratio and the
  *   ICU share of admissions (their defaults when the file gives none).
  * - wardStayScale, icuStayScale: mean length of stay in a ward (patients never needing ICU) or in
- *   ICU -> s x mean, the common value and every by-band value.
+ *   ICU -> s x mean: the by-band values when the file gives them, else the common value (or its default).
  * - contactScale.<setting>: that setting's contact matrix -> s C^s.
  * - measureAdherence a (the share of every measure's reduction achieved): in every phase of every
  *   option, setting multipliers and age factors m -> 1 - a (1 - m), case isolation c -> a c.
@@ -15,7 +15,7 @@
  * A value that breaks a rule of the format (e.g. an IFR above 1) is caught by validating the
  * result (see `drawOutcomes.ts`): the draw fails with that rule, it is not clipped.
  */
-import { defaultIcuShareOfAdmissions, defaultInfectionHospitalisationRatio } from '../healthcare/defaults.ts';
+import { commonDelays, defaultIcuShareOfAdmissions, defaultInfectionHospitalisationRatio } from '../healthcare/defaults.ts';
 import type { Delay, Healthcare, Scenario } from '../scenario.ts';
 import { CONTACT_SCALE_PREFIX } from './schema.ts';
 
@@ -46,9 +46,9 @@ export function applyParameter(s: Scenario, name: string, value: number): Scenar
     case 'icuShareScale':
       return withHealthcare(s, (h) => ({ icuShareOfAdmissions: scaled(h.icuShareOfAdmissions ?? defaultIcuShareOfAdmissions(s), value) }));
     case 'wardStayScale':
-      return withHealthcare(s, (h) => ({ wardStay: scaledDelay(h.wardStay, value), wardStayByBand: h.wardStayByBand?.map((x) => scaledDelay(x, value)) }));
+      return withHealthcare(s, (h) => (h.wardStayByBand !== undefined ? { wardStayByBand: h.wardStayByBand.map((x) => scaledDelay(x, value)) } : { wardStay: scaledDelay(commonDelays(h).wardStay, value) }));
     case 'icuStayScale':
-      return withHealthcare(s, (h) => ({ icuStay: scaledDelay(h.icuStay, value), icuStayByBand: h.icuStayByBand?.map((x) => scaledDelay(x, value)) }));
+      return withHealthcare(s, (h) => (h.icuStayByBand !== undefined ? { icuStayByBand: h.icuStayByBand.map((x) => scaledDelay(x, value)) } : { icuStay: scaledDelay(commonDelays(h).icuStay, value) }));
     case 'measureAdherence':
       return {
         ...s,

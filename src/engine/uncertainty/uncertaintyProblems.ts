@@ -31,7 +31,9 @@ function distributionProblems(d: Distribution, at: string): Problem[] {
       }
       break;
     case 'lognormal':
-      if ((d.range95 === undefined) === (d.geometricSd === undefined)) {
+      if (d.range95 !== undefined && d.geometricSd !== undefined) {
+        problems.push({ path: `${at}.geometricSd`, rule: `must not be given together with ${at}.range95: give exactly one of them` });
+      } else if (d.range95 === undefined && d.geometricSd === undefined) {
         problems.push({ path: at, rule: 'must give exactly one of range95 [low, high] or geometricSd' });
       } else if (d.range95 !== undefined && !(d.range95[0] < d.median && d.median < d.range95[1])) {
         problems.push({ path: `${at}.range95`, rule: `must have low < median (${d.median}) < high`, value: JSON.stringify(d.range95) });

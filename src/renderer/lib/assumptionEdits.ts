@@ -55,7 +55,7 @@ export const HOSPITAL_RATIO_DEFAULT_SOURCE = HOSPITAL_DEFAULT_SOURCE;
  * delays and stays as in src/engine/healthcare/defaults.ts. Bed numbers have no program default:
  * they start at 0 and the source says to enter the region's own.
  */
-export function defaultHealthcare(): Healthcare {
+export function defaultHealthcare(): Healthcare & Required<Pick<Healthcare, 'admissionDelay' | 'wardStay' | 'icuStay'>> {
   return {
     admissionDelay: { ...DEFAULT_ADMISSION_DELAY },
     wardStay: { ...DEFAULT_WARD_STAY },
@@ -67,12 +67,20 @@ export function defaultHealthcare(): Healthcare {
   };
 }
 
-/** The four delays of the hospital section, in the order the view lists them. */
-export const HOSPITAL_DELAYS: readonly { key: 'admissionDelay' | 'wardStay' | 'icuStay' | 'icuPatientWardStay'; label: string; fallback: Delay }[] = [
-  { key: 'admissionDelay', label: 'Infection to admission', fallback: DEFAULT_ADMISSION_DELAY },
-  { key: 'wardStay', label: 'Ward stay (no ICU)', fallback: DEFAULT_WARD_STAY },
-  { key: 'icuStay', label: 'ICU stay', fallback: DEFAULT_ICU_STAY },
-  { key: 'icuPatientWardStay', label: 'Ward days of ICU patients', fallback: DEFAULT_ICU_PATIENT_WARD_STAY },
+/**
+ * The four delays of the hospital section, in the order the view lists them. A delay the file
+ * gives band by band (`byBand`) has no common value: the view says so instead of offering one.
+ */
+export const HOSPITAL_DELAYS: readonly {
+  key: 'admissionDelay' | 'wardStay' | 'icuStay' | 'icuPatientWardStay';
+  byBand: 'admissionDelayByBand' | 'wardStayByBand' | 'icuStayByBand' | null;
+  label: string;
+  fallback: Delay;
+}[] = [
+  { key: 'admissionDelay', byBand: 'admissionDelayByBand', label: 'Infection to admission', fallback: DEFAULT_ADMISSION_DELAY },
+  { key: 'wardStay', byBand: 'wardStayByBand', label: 'Ward stay (no ICU)', fallback: DEFAULT_WARD_STAY },
+  { key: 'icuStay', byBand: 'icuStayByBand', label: 'ICU stay', fallback: DEFAULT_ICU_STAY },
+  { key: 'icuPatientWardStay', byBand: null, label: 'Ward days of ICU patients', fallback: DEFAULT_ICU_PATIENT_WARD_STAY },
 ];
 
 /** True when a delay equals its program default. */
