@@ -5,6 +5,7 @@
  * know fall back to their last field name spelt out in words.
  */
 import type { Problem, Scenario } from '../../engine/index.ts';
+import { parameterLabel } from './uncertaintyEdits.ts';
 
 /** Field names as words, for labels and for fields named inside a rule. */
 const FIELD_WORDS: Record<string, string> = {
@@ -34,6 +35,11 @@ const FIELD_WORDS: Record<string, string> = {
   relativeInfectiousness: 'relative infectiousness',
   infectionHospitalisationRatio: 'infection-hospitalisation ratio',
   icuShareOfAdmissions: 'ICU share of admissions',
+  intervalLevel: 'interval level',
+  mode: 'most likely value',
+  sd: 'standard deviation',
+  range95: '95% range',
+  geometricSd: 'geometric SD',
 };
 
 /** Labels that differ from the words above where the field stands alone (the capacity table's own). */
@@ -63,6 +69,12 @@ export function fieldLabel(path: string, scenario: Scenario): string {
   if (m) return `${capitalise(spelt(m[1] ?? m[2] ?? m[3] ?? m[4] ?? 'populationPersons'))} ${band(scenario, m[5])}`;
   m = /^options\[(\d+)\]\.phases\[(\d+)\]\.(\w+)/.exec(path);
   if (m) return `Phase ${Number(m[2]) + 1} of “${scenario.options?.[Number(m[1])]?.name ?? `option ${Number(m[1]) + 1}`}”: ${spelt(m[3])}`;
+  m = /^uncertainty\.parameters\[(\d+)\](?:\.distribution)?(?:\.(\w+))?/.exec(path);
+  if (m) {
+    const name = scenario.uncertainty?.parameters[Number(m[1])]?.name;
+    const input = `Uncertain ${name === undefined ? `input ${Number(m[1]) + 1}` : parameterLabel(name)}`;
+    return m[2] === undefined || m[2] === 'distribution' ? input : `${input}: ${spelt(m[2])}`;
+  }
   m = /^vaccinationCampaigns\[(\d+)\]\.schedule\[(\d+)\]\.(\w+)$/.exec(path);
   if (m) return `Supply step ${Number(m[2]) + 1}: ${spelt(m[3])}`;
   m = /^vaccinationCampaigns\[(\d+)\]\.(\w+)/.exec(path);
