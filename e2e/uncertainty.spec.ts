@@ -2,9 +2,12 @@
  * Uncertain inputs in the Assumptions view (web mode, Debian's chromium): an input is made
  * uncertain with the keyboard, its range edited, a refused range named by the labels on screen
  * (no undo step taken), the kind changed with centre and range kept, the source required, a second
- * input added and the first removed with a notice; every accepted change is one undo step.
+ * input added and the first removed with a notice; every accepted change is one undo step. The fit
+ * panel's "Use this R0" can carry the fit's 95% interval as R0's lognormal range, in the same step.
  */
 import { expect, test, type Page } from '@playwright/test';
+import { execFileSync } from 'node:child_process';
+import { r0RoundedToFit } from '../src/renderer/lib/fitFromCounts.ts';
 import { settled } from './helpers.ts';
 
 async function type(page: Page, testid: string, text: string) {
@@ -92,5 +95,40 @@ test('uncertain inputs: add, edit, refuse, change kind, source, remove, undo', a
 
   await settled(page);
   await page.screenshot({ path: 'e2e-artifacts/uncertainty-editor.png', fullPage: true });
+  expect(errors).toEqual([]);
+});
+
+test('"Use this R0" with its interval writes R0 lognormal from the fit in one undo step', async ({ page }) => {
+  const errors: string[] = [];
+  page.on('pageerror', (e) => errors.push(e.message));
+  await page.goto('/');
+  await settled(page);
+  await page.getByRole('tab', { name: 'Assumptions' }).click();
+  await page.getByTestId('fit-file').setInputFiles('resources/example-cases.csv');
+  await expect(page.getByTestId('fit-results')).toHaveAttribute('data-busy', 'false', { timeout: 20_000 });
+  await expect(page.getByTestId('fit-r0')).toBeVisible();
+  const fit = JSON.parse(execFileSync('npx', ['mixwise', 'fit', 'resources/example-cases.csv', '--scenario', 'resources/demo-scenario.json', '--format', 'json', '--family', 'negative-binomial'], { encoding: 'utf8' })) as {
+    r0: number;
+    r0Interval: [number, number];
+  };
+  const median = r0RoundedToFit(fit.r0, fit.r0Interval);
+  const four = (x: number) => String(Number(x.toPrecision(4)));
+
+  await page.getByTestId('fit-with-interval').check();
+  await page.getByTestId('fit-apply').click();
+  await expect(page.getByTestId('fit-applied')).toContainText("with its 95% interval");
+  await expect(page.getByTestId('r0-input')).toHaveValue(String(median));
+  await expect(page.getByTestId('uncertain-0-name')).toHaveValue('r0');
+  await expect(page.getByTestId('uncertain-0-kind')).toHaveValue('lognormal');
+  await expect(page.getByTestId('uncertain-0-median')).toHaveValue(String(median));
+  await expect(page.getByTestId('uncertain-0-low')).toHaveValue(four(fit.r0Interval[0]));
+  await expect(page.getByTestId('uncertain-0-high')).toHaveValue(four(fit.r0Interval[1]));
+  await expect(page.getByTestId('uncertain-0-source')).toHaveValue(/^Fit of example-cases\.csv, days \d+ to \d+: R0 /);
+
+  // One step: undo restores R0 2.5 and no uncertain input.
+  await page.getByTestId('undo').click();
+  await expect(page.getByTestId('r0-input')).toHaveValue('2.5');
+  await expect(page.getByTestId('uncertainty-add-section')).toBeVisible();
+  await expect(page.getByTestId('undo')).toBeDisabled();
   expect(errors).toEqual([]);
 });
