@@ -44,10 +44,10 @@ function largestStableStep(p: PreparedScenario, campaign: PreparedCampaign | nul
 /** Error tolerances that override the integrator's defaults (relative; absolute, persons). */
 export type Accuracy = Partial<Pick<Tolerances, 'relative' | 'absolute'>>;
 
-/** The state components the daily record and the triggers read: S, E and I stages, X, and W, P, Xp with vaccination. */
+/** The state components the daily record and the triggers read: S, E and I stages, and X, W, P, Xp with vaccination. */
 function denseComponentsOf(L: StateLayout): Int32Array {
-  const blocks = [L.susceptible, ...Array.from({ length: L.latentStages + L.infectiousStages }, (_, k) => L.latent + k * L.bands), L.cumulative];
-  if (L.waiting >= 0) blocks.push(L.waiting, L.protectedSusceptible, L.protectedInfections);
+  const blocks = [L.susceptible, ...Array.from({ length: L.latentStages + L.infectiousStages }, (_, k) => L.latent + k * L.bands)];
+  if (L.waiting >= 0) blocks.push(L.cumulative, L.waiting, L.protectedSusceptible, L.protectedInfections);
   return Int32Array.from(blocks.flatMap((b) => Array.from({ length: L.bands }, (_, i) => b + i)));
 }
 
@@ -67,6 +67,9 @@ export function integrateOption(
   const n = p.bands.bands;
   const H = p.scenario.horizonDays;
   const L = campaign === null ? p.layout : stateLayout(n, p.periods.latentStages, p.periods.infectiousStages, true);
+  // Without vaccination only S, E, I are integrated; X = S(0) - S (seir.ts, `counters`).
+  const counters = campaign !== null;
+  const s0 = p.initialSusceptible;
   const risk = campaign === null ? 1 : protectedRisk(campaign.vaccine);
   const rows = (H + 1) * n;
   const daily: DailyState = {
@@ -88,7 +91,7 @@ export function integrateOption(
       for (let k = 0; k < infectedBlocks; k++) infected += y[oE + k * n + i];
       susceptible[base + i] = s > 0 ? s : 0;
       prevalence[base + i] = infected > 0 ? infected : 0;
-      const x = y[oX + i];
+      const x = counters ? y[oX + i] : s0[i] - s;
       cumulative[base + i] = x > 0 ? x : 0;
       if (oW >= 0) {
         const eff = s + y[oW + i] + risk * y[oP + i];
@@ -100,12 +103,12 @@ export function integrateOption(
       }
     }
   };
-  const y = campaign === null ? p.initialState.slice() : initialStateOf(p.scenario, L);
+  const y = campaign === null ? p.initialState.slice(0, L.active) : initialStateOf(p.scenario, L);
   record(0, y);
   const transmission = new Float64Array(n * n);
   const doseRates = new Float64Array(n);
-  const rhs = seirRightHandSide(L, p.periods.latentPeriodDays, p.periods.infectiousPeriodDays, transmission, campaign?.vaccine ?? null, doseRates);
-  const ws = new Dopri5Workspace(L.size);
+  const rhs = seirRightHandSide(L, p.periods.latentPeriodDays, p.periods.infectiousPeriodDays, transmission, campaign?.vaccine ?? null, doseRates, counters);
+  const ws = new Dopri5Workspace(y.length);
   const tolerances = { ...DEFAULT_TOLERANCES, ...accuracy, maxStep: largestStableStep(p, campaign) };
   const days = Float64Array.from({ length: H }, (_, d) => d + 1);
   const dense = denseComponentsOf(L);

@@ -125,6 +125,12 @@ export function protectedRisk(v: VaccineEffect): number {
  * Builds the right-hand side for a layout and periods. `transmission` (n x n, per day) and
  * `doseRates` (n, doses per day; only read with vaccination) are read at every call, so the caller
  * may overwrite them between segments. No allocation per call.
+ *
+ * `counters` false (only without vaccination): the state is the first `L.active` components
+ * (S, E, I) and R and X are not integrated. They are linear invariants of the system,
+ * R = N - S - E - I and X = S(0) - S, which a Runge-Kutta method keeps exactly (up to rounding:
+ * every stage is a linear combination of the same derivatives), so they are read from S, E, I
+ * instead, and the integrator carries 3n instead of 5n components (one stage of each kind).
  */
 export function seirRightHandSide(
   L: StateLayout,
@@ -133,6 +139,7 @@ export function seirRightHandSide(
   transmission: Float64Array,
   vaccine: VaccineEffect | null = null,
   doseRates: Float64Array = new Float64Array(L.bands),
+  counters = true,
 ) {
   const n = L.bands;
   const aE = L.latentStages / latentPeriodDays;
@@ -141,6 +148,7 @@ export function seirRightHandSide(
   const lastE = L.latent + (L.latentStages - 1) * n;
   const lastI = L.infectious + (L.infectiousStages - 1) * n;
   const vaccinated = vaccine !== null && L.waiting >= 0;
+  if (!counters && L.waiting >= 0) throw new Error('the vaccination counters must be integrated');
   const risk = vaccine === null ? 1 : protectedRisk(vaccine);
   const protect = vaccine === null ? 0 : 1 / vaccine.delayToProtectionDays;
   const leaky = vaccine?.protection !== 'allOrNothing';
@@ -189,8 +197,10 @@ export function seirRightHandSide(
         const at = oI + k * n + i;
         dydt[at] = aI * (y[at - n] - y[at]);
       }
-      dydt[oR + i] = aI * y[lastI + i];
-      dydt[oX + i] = flow;
+      if (counters) {
+        dydt[oR + i] = aI * y[lastI + i];
+        dydt[oX + i] = flow;
+      }
     }
   };
 }
