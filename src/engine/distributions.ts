@@ -95,11 +95,12 @@ export function convolve(series: Float64Array, weights: Float64Array): Float64Ar
   let last = weights.length;
   while (last > 0 && weights[last - 1] < 1e-16) last--;
   const out = new Float64Array(days);
-  for (let a = 0; a < days; a++) {
-    const x = series[a];
-    if (x === 0) continue;
-    const end = Math.min(days, a + last);
-    for (let d = a; d < end; d++) out[d] += x * weights[d - a];
+  // Day by day, summing over a ascending (the order healthcare/online.ts uses, so a trigger reads
+  // the same bits): one accumulator per day instead of a store per product.
+  for (let d = 0; d < days; d++) {
+    let acc = 0;
+    for (let a = d - last + 1 > 0 ? d - last + 1 : 0; a <= d; a++) acc += series[a] * weights[d - a];
+    out[d] = acc;
   }
   return out;
 }
