@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { checkIpcMessage, MAX_CSV_CHARS, MAX_REPORT_HTML_CHARS } from '../../src/main/ipcContract.ts';
+import { checkIpcMessage } from '../../src/main/ipcSender.ts';
+import { MAX_CSV_CHARS, MAX_REPORT_HTML_CHARS } from '../../src/shared/ipcContract.ts';
 import { IPC } from '../../src/shared/hostApi.ts';
 
 const app = { frameUrl: 'mixwise://app/index.html', isMainFrame: true };
@@ -8,7 +9,7 @@ const report = { html, paper: 'A4', orientation: 'portrait' };
 
 describe('report:print payload', () => {
   it('accepts a report document from the app page', () => {
-    expect(checkIpcMessage(IPC.printReport, app, report, undefined)).toEqual({ ok: true, payload: report });
+    expect(checkIpcMessage(IPC.printReport, app, report, undefined)).toEqual({ ok: true, request: report });
     const letter = { ...report, paper: 'Letter', orientation: 'landscape' };
     expect(checkIpcMessage(IPC.printReport, app, letter, undefined).ok).toBe(true);
   });
@@ -47,7 +48,7 @@ describe('report:print payload', () => {
 describe('report:export-pdf payload', () => {
   it('accepts a report with a PDF file name', () => {
     const payload = { ...report, suggestedName: 'demo-report.pdf' };
-    expect(checkIpcMessage(IPC.exportReportPdf, app, payload, undefined)).toEqual({ ok: true, payload });
+    expect(checkIpcMessage(IPC.exportReportPdf, app, payload, undefined)).toEqual({ ok: true, request: payload });
   });
 
   it('refuses a path or another extension as the suggested name', () => {
@@ -61,7 +62,7 @@ describe('report:export-pdf payload', () => {
 describe('report:export-csv payload', () => {
   it('accepts CSV text with a .csv name', () => {
     const payload = { suggestedName: 'demo-table.csv', text: 'option,r_start\r\nNo measures,2.5\r\n' };
-    expect(checkIpcMessage(IPC.exportCsv, app, payload, undefined)).toEqual({ ok: true, payload });
+    expect(checkIpcMessage(IPC.exportCsv, app, payload, undefined)).toEqual({ ok: true, request: payload });
   });
 
   it('refuses a wrong name, non-text content, extra fields and oversize text', () => {

@@ -2,10 +2,16 @@
  * The web implementation of `MixwiseHost` (web mode, no Electron): a file input to open,
  * a download to save, `window.print()` to print. Recent files are copies kept in this
  * browser's local storage, since a web page cannot reopen a path on disk.
+ *
+ * It answers the same IPC contract as the main process (src/shared/ipcContract.ts): one handler
+ * per channel, reached through the same `hostOverIpc`, and every request is parsed with the
+ * channel's schema first, so a request the desktop would refuse is refused here too.
  */
 import { decodeUtf8Text } from '../../shared/textFile.ts';
 import { parseScenarioText, formatProblem } from '../../engine/index.ts';
-import type { MixwiseHost, OpenedScenarioFile, RecentFile, SaveOutcome } from '../../shared/hostApi.ts';
+import { IPC, type MixwiseHost, type OpenedScenarioFile, type RecentFile, type SaveOutcome } from '../../shared/hostApi.ts';
+import { parseIpcRequest, type IpcChannel, type IpcHandlers, type IpcReply } from '../../shared/ipcContract.ts';
+import { hostOverIpc } from '../../shared/ipcHost.ts';
 
 const RECENT_KEY = 'mixwise.recent';
 const RECENT_COPY = (key: string) => `mixwise.recent.${key}`;
@@ -109,55 +115,73 @@ function printHtmlInFrame(html: string): Promise<void> {
   });
 }
 
+/** The page's answer to every channel of the contract. */
+export const webHandlers: IpcHandlers<void> = {
+  async [IPC.open](): Promise<OpenedScenarioFile | null> {
+    const picked = await pickTextFile('.json,application/json');
+    if (picked === null) return null;
+    rememberCopy(picked.name, picked.text);
+    return { name: picked.name, path: null, text: picked.text };
+  },
+  [IPC.openRecent]({ path }) {
+    const text = localStorage.getItem(RECENT_COPY(path));
+    return text === null ? null : { name: path, path: null, text };
+  },
+  [IPC.listRecent]: () => readRecent(),
+  [IPC.save]({ suggestedName, text }): SaveOutcome {
+    const check = parseScenarioText(text);
+    if (!check.ok) return { ok: false, cancelled: false, message: `Not saved: the scenario is not valid.\n${check.problems.slice(0, 5).map(formatProblem).join('\n')}` };
+    download(suggestedName, new Blob([text], { type: 'application/json' }));
+    rememberCopy(suggestedName, text);
+    return { ok: true, file: { name: suggestedName, path: null } };
+  },
+  [IPC.print]() {
+    window.print();
+  },
+  [IPC.exportPdf](): SaveOutcome {
+    // Browsers have no silent PDF export: their print dialog offers "Save as PDF".
+    window.print();
+    return { ok: false, cancelled: true };
+  },
+  async [IPC.printReport](report) {
+    await printHtmlInFrame(report.html);
+  },
+  async [IPC.exportReportPdf](report): Promise<SaveOutcome> {
+    // As for exportPdf: the print dialog's "Save as PDF" writes the file.
+    await printHtmlInFrame(report.html);
+    return { ok: false, cancelled: true };
+  },
+  [IPC.exportCsv]({ suggestedName, text }): SaveOutcome {
+    download(suggestedName, new Blob([text], { type: 'text/csv;charset=utf-8' }));
+    return { ok: true, file: { name: suggestedName, path: null } };
+  },
+  [IPC.documentState]({ title, dirty }) {
+    document.title = `${dirty ? '• ' : ''}${title} — Mixwise`;
+  },
+};
+
+/** Parses the request with its channel's schema, then runs the channel's handler; a refusal throws one line naming the field. */
+function serve<C extends IpcChannel>(channel: C, payload: unknown): IpcReply<C> | Promise<IpcReply<C>> {
+  const check = parseIpcRequest(channel, payload);
+  if (!check.ok) throw new Error(`Refused: ${check.reason}`);
+  return webHandlers[channel](check.request);
+}
+
 export function createWebHost(): MixwiseHost {
-  return {
-    kind: 'web',
-    async openScenario(): Promise<OpenedScenarioFile | null> {
-      const picked = await pickTextFile('.json,application/json');
-      if (picked === null) return null;
-      rememberCopy(picked.name, picked.text);
-      return { name: picked.name, path: null, text: picked.text };
+  return hostOverIpc(
+    'web',
+    {
+      invoke: async (channel, request) => serve(channel, request),
+      send(channel, request) {
+        try {
+          void serve(channel, request);
+        } catch (err) {
+          // As in the desktop's main process: a refused one-way message is logged and dropped.
+          console.warn((err as Error).message);
+        }
+      },
     },
-    async openRecent(path) {
-      const text = localStorage.getItem(RECENT_COPY(path));
-      return text === null ? null : { name: path, path: null, text };
-    },
-    async listRecent() {
-      return readRecent();
-    },
-    async saveScenario({ suggestedName, text }): Promise<SaveOutcome> {
-      const check = parseScenarioText(text);
-      if (!check.ok) return { ok: false, cancelled: false, message: `Not saved: the scenario is not valid.\n${check.problems.slice(0, 5).map(formatProblem).join('\n')}` };
-      download(suggestedName, new Blob([text], { type: 'application/json' }));
-      rememberCopy(suggestedName, text);
-      return { ok: true, file: { name: suggestedName, path: null } };
-    },
-    async print() {
-      window.print();
-    },
-    async exportPdf(): Promise<SaveOutcome> {
-      // Browsers have no silent PDF export: their print dialog offers "Save as PDF".
-      window.print();
-      return { ok: false, cancelled: true };
-    },
-    async printReport(report) {
-      await printHtmlInFrame(report.html);
-    },
-    async exportReportPdf(report): Promise<SaveOutcome> {
-      // As for exportPdf: the print dialog's "Save as PDF" writes the file.
-      await printHtmlInFrame(report.html);
-      return { ok: false, cancelled: true };
-    },
-    async exportCsv({ suggestedName, text }): Promise<SaveOutcome> {
-      download(suggestedName, new Blob([text], { type: 'text/csv;charset=utf-8' }));
-      return { ok: true, file: { name: suggestedName, path: null } };
-    },
-    setDocumentState({ title, dirty }) {
-      document.title = `${dirty ? '• ' : ''}${title} — Mixwise`;
-    },
-    onMenuCommand() {
-      // No native menu in a browser: the app's own toolbar and shortcuts do the same work.
-      return () => undefined;
-    },
-  };
+    // No native menu in a browser: the app's own toolbar and shortcuts do the same work.
+    () => () => undefined,
+  );
 }

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { checkIpcMessage, isIpcChannel } from '../../src/main/ipcContract.ts';
+import { checkIpcMessage } from '../../src/main/ipcSender.ts';
+import { isIpcChannel } from '../../src/shared/ipcContract.ts';
 import { IPC } from '../../src/shared/hostApi.ts';
 
 const app = { frameUrl: 'mixwise://app/index.html', isMainFrame: true };
@@ -7,7 +8,7 @@ const app = { frameUrl: 'mixwise://app/index.html', isMainFrame: true };
 describe('checkIpcMessage', () => {
   it('accepts a well-formed save from the app page', () => {
     const check = checkIpcMessage(IPC.save, app, { path: null, suggestedName: 'a.json', text: '{}' }, undefined);
-    expect(check).toEqual({ ok: true, payload: { path: null, suggestedName: 'a.json', text: '{}' } });
+    expect(check).toEqual({ ok: true, request: { path: null, suggestedName: 'a.json', text: '{}' } });
   });
 
   it('refuses unknown channels', () => {

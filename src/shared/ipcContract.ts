@@ -1,12 +1,15 @@
 /**
- * What the main process accepts over IPC, checked as if it came from a stranger:
- * the channel must be one we serve, the sender must be our own top-level page, and the
- * payload must match the channel's zod schema. Plain functions, unit-tested.
+ * The one IPC contract between the renderer and its host: for each channel the request's zod
+ * schema and the reply's type. Main (ipcHandlers.ts) and the web host (webHost.ts) parse every
+ * request with these schemas before acting; the preload and the web host call the channels
+ * through one typed `invoke` (ipcHost.ts). The channel list is the keys of `ipcRequestSchemas`.
+ *
+ * Channel names live in hostApi.ts, which has no zod: the sandboxed preload imports it and only
+ * the types of this module.
  */
 import { z } from 'zod';
-import { IPC } from '../shared/hostApi.ts';
-import { PAPERS } from '../report/reportTypes.ts';
-import { isAllowedNavigation } from './contentSecurity.ts';
+import { PAPERS } from '../report/index.ts';
+import { IPC, type OpenedScenarioFile, type RecentFile, type SaveOutcome } from './hostApi.ts';
 
 const fileName = z
   .string()
@@ -42,8 +45,8 @@ const reportDocument = {
   orientation: z.enum(['portrait', 'landscape']),
 };
 
-/** Payload schema of every renderer -> main channel. */
-export const ipcPayloadSchemas = {
+/** Request schema of every renderer -> host channel. */
+export const ipcRequestSchemas = {
   [IPC.open]: z.undefined(),
   [IPC.openRecent]: z.object({ path: filePath }).strict(),
   [IPC.listRecent]: z.undefined(),
@@ -60,38 +63,48 @@ export const ipcPayloadSchemas = {
   [IPC.documentState]: z.object({ title: z.string().max(500), dirty: z.boolean() }).strict(),
 } as const;
 
-export type IpcChannel = keyof typeof ipcPayloadSchemas;
-export type IpcPayload<C extends IpcChannel> = z.output<(typeof ipcPayloadSchemas)[C]>;
+export type IpcChannel = keyof typeof ipcRequestSchemas;
+export type IpcRequest<C extends IpcChannel> = z.output<(typeof ipcRequestSchemas)[C]>;
+
+/** What the host answers on each channel. `document:state` is one-way: sent, never answered. */
+export interface IpcReplies {
+  [IPC.open]: OpenedScenarioFile | null;
+  [IPC.openRecent]: OpenedScenarioFile | null;
+  [IPC.listRecent]: RecentFile[];
+  [IPC.save]: SaveOutcome;
+  [IPC.print]: void;
+  [IPC.exportPdf]: SaveOutcome;
+  [IPC.printReport]: void;
+  [IPC.exportReportPdf]: SaveOutcome;
+  [IPC.exportCsv]: SaveOutcome;
+  [IPC.documentState]: void;
+}
+export type IpcReply<C extends IpcChannel> = IpcReplies[C];
+
+/** The channel sent without a reply (`ipcRenderer.send`); every other one is invoked. */
+export type IpcOneWayChannel = typeof IPC.documentState;
+export type IpcInvokeChannel = Exclude<IpcChannel, IpcOneWayChannel>;
+
+/** Every renderer -> host channel, in the contract's order. */
+export const IPC_CHANNELS = Object.keys(ipcRequestSchemas) as IpcChannel[];
 
 export function isIpcChannel(channel: string): channel is IpcChannel {
-  return Object.hasOwn(ipcPayloadSchemas, channel);
+  return Object.hasOwn(ipcRequestSchemas, channel);
 }
 
-/** Who sent a message: the URL of the sending frame and whether it is the top frame. */
-export interface IpcSender {
-  frameUrl: string | undefined;
-  isMainFrame: boolean;
-}
+export type IpcParse<C extends IpcChannel> = { ok: true; request: IpcRequest<C> } | { ok: false; reason: string };
 
-export type IpcCheck<C extends IpcChannel> = { ok: true; payload: IpcPayload<C> } | { ok: false; reason: string };
-
-/** Checks channel, sender and payload; returns the parsed payload or why it was refused. */
-export function checkIpcMessage<C extends IpcChannel>(
-  channel: C,
-  sender: IpcSender,
-  payload: unknown,
-  devServerUrl: string | undefined,
-): IpcCheck<C> {
+/** Parses a request with its channel's schema; a refusal names the channel, the field and the rule. */
+export function parseIpcRequest<C extends IpcChannel>(channel: C, payload: unknown): IpcParse<C> {
   if (!isIpcChannel(channel)) return { ok: false, reason: `unknown channel ${JSON.stringify(channel)}` };
-  if (!sender.isMainFrame) return { ok: false, reason: `${channel}: sender is not the top-level frame` };
-  if (sender.frameUrl === undefined || !isAllowedNavigation(sender.frameUrl, devServerUrl)) {
-    return { ok: false, reason: `${channel}: sender ${JSON.stringify(sender.frameUrl)} is not the app page` };
-  }
-  const parsed = ipcPayloadSchemas[channel].safeParse(payload);
+  const parsed = ipcRequestSchemas[channel].safeParse(payload);
   if (!parsed.success) {
     const first = parsed.error.issues[0];
     const where = first.path.length > 0 ? first.path.join('.') : 'payload';
     return { ok: false, reason: `${channel}: ${where} ${first.message}` };
   }
-  return { ok: true, payload: parsed.data as IpcPayload<C> };
+  return { ok: true, request: parsed.data as IpcRequest<C> };
 }
+
+/** A host's answer to every channel, given the parsed request and what the host needs (main: the window). */
+export type IpcHandlers<Context> = { [C in IpcChannel]: (request: IpcRequest<C>, context: Context) => IpcReply<C> | Promise<IpcReply<C>> };
