@@ -44,6 +44,7 @@ Usage:
   mixwise orders FILE --option NAME [--minimise deaths|infections|admissions|
           peakIcuOccupancy|yearsOfLifeLost] [--groups SPEC] [--top K] [--format table|json]
           [--method auto|exhaustive|heuristic] [--budget N] [--seed N] [--workers N]
+          [--draws N]
       Search the priority orders of the groups of option NAME's vaccination campaign (its
       supply, uptake ceilings, efficacy and delay unchanged) and print the K best (default 5)
       for the outcome (default deaths), with the other outcomes and the gap to the best,
@@ -56,6 +57,8 @@ Usage:
       which proves nothing. --workers N spreads the simulations over N threads (default: one
       per core from 6 groups up, else 1); the result is the same whatever N. Progress goes to
       stderr; Ctrl-C stops the search and exits with code 130, writing nothing.
+      With an uncertainty section, the top orders then run under its draws (its seed;
+      --draws N to take N draws) and each gets the share of draws in which it is best.
       An unknown option or outcome, an option without a campaign, or groups that miss or
       repeat a band exit with code 2.
   mixwise --help       Show this text.

@@ -7,11 +7,41 @@
  * the scenario (unknown option or outcome, an option without a campaign, groups that miss or
  * repeat a band) is one line per problem and exit code 2, like an invalid scenario.
  *
- * stderr gets one line when the search starts and, on a terminal, a progress line updated in
- * place; Ctrl-C stops the search, prints one line and exits with code 130, writing nothing.
+ * With an `uncertainty` section, the top orders then run under every draw (the seed of `mixwise
+ * run`; --draws N to take fewer or more) and each gets the share of draws in which it is best.
+ *
+ * stderr gets one line when the search (and the draws) start and, on a terminal, a progress line
+ * updated in place; Ctrl-C stops, prints one line and exits with code 130, writing nothing.
  */
 import { availableParallelism } from 'node:os';
-import { inThreadEvaluator, namedGroups, ORDER_OUTCOMES, parseGroupSpec, PoolCancelled, poolEvaluator, prepareOrderSearch, priorityOf, searchOrders, type OrderEvaluator, type OrderOutcomes, type OrderSearchJob, type OrderSearchRequest, type OrderSearchResult, type OrderSearchSettings, type Scenario, type SearchProgress } from '../engine/index.ts';
+import {
+  inThreadEvaluator,
+  namedGroups,
+  ORDER_OUTCOMES,
+  orderComparisonOf,
+  orderShares,
+  orderValuesUnderDraw,
+  parseGroupSpec,
+  PoolCancelled,
+  poolEvaluator,
+  prepareOrderDraws,
+  prepareOrderSearch,
+  searchOrders,
+  topOrdersUnderDraws,
+  withDrawSettings,
+  type OrderComparison,
+  type OrderDrawResult,
+  type OrderEvaluator,
+  type OrderOutcomes,
+  type OrderSearchJob,
+  type OrderSearchRequest,
+  type OrderSearchResult,
+  type OrderSearchSettings,
+  type OrderShares,
+  type Scenario,
+  type SearchProgress,
+  type WorkerPool,
+} from '../engine/index.ts';
 import { gapText, orderText } from '../report/orderText.ts';
 import { nodeWorkerPool } from './workerThreads.ts';
 import { CAUTION } from '../report/index.ts';
@@ -27,12 +57,14 @@ interface OrdersArgs {
   outcome: string;
   groups: string | null;
   format: 'table' | 'json';
-  /** Worker threads; null = the default (threadsForSearch). */
+  /** Worker threads; null = one per core from POOL_GROUPS groups up, else 1. */
   workers: number | null;
+  /** Draws for the shares of draws (with an uncertainty section); null = the section's own. */
+  draws: number | null;
   settings: Partial<OrderSearchSettings>;
 }
 
-const VALUE_OPTIONS = ['--option', '--minimise', '--groups', '--top', '--format', '--method', '--budget', '--seed', '--workers'];
+const VALUE_OPTIONS = ['--option', '--minimise', '--groups', '--top', '--format', '--method', '--budget', '--seed', '--workers', '--draws'];
 
 /** From this many groups up (720 orders), a search uses one thread per core by default; below, starting threads costs more than they save. */
 export const POOL_GROUPS = 6;
@@ -60,6 +92,7 @@ function parseOrdersArgs(words: readonly string[]): OrdersArgs {
     groups: values.get('--groups') ?? null,
     format,
     workers: wholeNumber('--workers', values.get('--workers'), 1) ?? null,
+    draws: wholeNumber('--draws', values.get('--draws'), 2) ?? null,
     settings: {
       method,
       top: wholeNumber('--top', values.get('--top'), 1),
@@ -102,49 +135,41 @@ function pad(rows: string[][]): string {
   return rows.map((r) => r.map((cell, c) => (c === 0 ? cell.padEnd(widths[c]) : cell.padStart(widths[c]))).join('  ').trimEnd()).join('\n');
 }
 
-function tableText(scenario: Scenario, job: OrderSearchJob, result: OrderSearchResult): string {
+const percent = (x: number | undefined) => (x === undefined ? '-' : `${Math.round(x * 100)}%`);
+
+function tableText(scenario: Scenario, c: OrderComparison): string {
   const bands = scenario.ageBands;
-  const shown = ORDER_OUTCOMES.filter((k) => k !== result.outcome && (scenario.healthcare !== undefined || (k !== 'admissions' && k !== 'peakIcuOccupancy')));
-  const heading = ['Order', OUTCOME_HEADINGS[result.outcome], 'Gap to best', ...shown.map((k) => OUTCOME_HEADINGS[k])];
-  const best = result.orders[0]?.value ?? 0;
-  const line = (text: string, value: number, outcomes: OrderOutcomes) => [text, count(value), gapText(value - best), ...shown.map((k) => count(outcomes[k]))];
-  const ranked = result.orders.map((o, k) => line(`${k + 1}. ${orderText(priorityOf(job, o.permutation), bands)}${o.noDosesFrom === null ? '' : ` (groups after the first ${o.noDosesFrom} get no doses within the horizon)`}`, o.value, o.outcomes));
-  const builtIn = result.builtIn.map((b) => line(`${b.name}: ${orderText(priorityOf(job, b.permutation), bands)}`, b.value, b.outcomes));
+  const shown = ORDER_OUTCOMES.filter((k) => k !== c.outcome && (scenario.healthcare !== undefined || (k !== 'admissions' && k !== 'peakIcuOccupancy')));
+  const withShares = c.draws !== undefined;
+  const heading = ['Order', OUTCOME_HEADINGS[c.outcome], 'Gap to best', ...(withShares ? ['Best in draws'] : []), ...shown.map((k) => OUTCOME_HEADINGS[k])];
+  const best = c.orders[0]?.value ?? 0;
+  const line = (text: string, value: number, outcomes: OrderOutcomes, share: string) => [text, count(value), gapText(value - best), ...(withShares ? [share] : []), ...shown.map((k) => count(outcomes[k]))];
+  const ranked = c.orders.map((o, k) => line(`${k + 1}. ${orderText(o.order, bands)}${o.noDosesFrom === null ? '' : ` (groups after the first ${o.noDosesFrom} get no doses within the horizon)`}`, o.value, o.outcomes, percent(o.shareOfDrawsBest)));
+  const builtIn = c.builtIn.map((b) => line(`${b.name}: ${orderText(b.order, bands)}`, b.value, b.outcomes, ''));
+  const drawsNote =
+    c.draws === undefined
+      ? []
+      : [`Best in draws: share of the ${groupThousands(c.draws.draws - c.draws.failedDraws)} uncertainty draws (seed ${c.draws.seed}${c.draws.failedDraws > 0 ? `, ${c.draws.failedDraws} failed and left out` : ''}) in which the order is the best of the top ${c.orders.length}, ties split.`];
   return [
-    `Best vaccination orders for option "${job.option.name}" (campaign "${job.campaign.campaign.name}"), minimising ${OUTCOME_HEADINGS[result.outcome].toLowerCase()}`,
-    result.methodNote,
+    `Best vaccination orders for option "${c.option}" (campaign "${c.campaign}"), minimising ${OUTCOME_HEADINGS[c.outcome].toLowerCase()}`,
+    c.methodNote,
+    ...drawsNote,
     '',
     pad([heading, ...ranked]),
     '',
     'Built-in orders:',
-    pad([heading.map((h, k) => (k === 0 ? 'Order' : h)), ...builtIn]),
+    pad([heading.filter((h) => h !== 'Best in draws'), ...builtIn.map((r) => r.filter((_, k) => !(withShares && k === 3)))]),
     '',
     CAUTION,
     '',
   ].join('\n');
 }
 
-function jsonText(scenario: Scenario, job: OrderSearchJob, result: OrderSearchResult): string {
+function jsonText(scenario: Scenario, c: OrderComparison): string {
   const bands = scenario.ageBands;
   const json = {
-    option: job.option.name,
-    campaign: job.campaign.campaign.name,
-    outcome: result.outcome,
-    method: result.method,
-    methodNote: result.methodNote,
-    evaluated: result.evaluated,
-    ordersInAll: result.ordersInAll,
-    proven: result.proven,
-    groups: job.groups,
-    orders: result.orders.map((o) => ({
-      order: priorityOf(job, o.permutation),
-      text: orderText(priorityOf(job, o.permutation), bands),
-      value: o.value,
-      gap: o.gap,
-      outcomes: o.outcomes,
-      noDosesFrom: o.noDosesFrom,
-    })),
-    builtIn: result.builtIn.map((b) => ({ name: b.name, order: priorityOf(job, b.permutation), value: b.value, outcomes: b.outcomes })),
+    ...c,
+    orders: c.orders.map((o) => ({ ...o, text: orderText(o.order, bands) })),
     caution: CAUTION,
   };
   return `${JSON.stringify(json, null, 2)}\n`;
@@ -158,7 +183,7 @@ async function orders(io: Output, words: readonly string[]): Promise<ExitCode> {
   const args = parseOrdersArgs(words);
   const loaded = loadScenarioOrComplain(io, args.file);
   if (loaded === null) return EXIT_CODES.invalidScenario;
-  const { scenario } = loaded;
+  const scenario = withDrawSettings(loaded.scenario, { draws: args.draws ?? undefined });
   const { job, request } = prepareRequest(scenario, args);
   const settings = Object.fromEntries(Object.entries(args.settings).filter(([, v]) => v !== undefined)) as Partial<OrderSearchSettings>;
   const threads = args.workers ?? (job.groups.length >= POOL_GROUPS ? availableParallelism() : 1);
@@ -167,11 +192,17 @@ async function orders(io: Output, words: readonly string[]): Promise<ExitCode> {
   process.once('SIGINT', onInterrupt);
   const pool = threads > 1 ? nodeWorkerPool(threads) : null;
   const progress = progressLine(io);
-  let result: OrderSearchResult | null = null;
+  let comparison: OrderComparison | null = null;
+  let evaluated: number | null = null;
   try {
     const evaluator = pool === null ? yieldingEvaluator(inThreadEvaluator(job), stop.signal) : poolEvaluator(pool, { scenario, request }, stop.signal);
     io.err(`mixwise: orders: searching the orders of ${job.groups.length} groups on ${threads === 1 ? 'one thread' : `${threads} threads`} (Ctrl-C stops)\n`);
-    result = await searchOrders(job, evaluator, settings, { onProgress: progress.show, isCancelled: () => stop.signal.aborted });
+    const result = await searchOrders(job, evaluator, settings, { onProgress: (p) => progress.show(searchProgressText(p)), isCancelled: () => stop.signal.aborted });
+    evaluated = result.evaluated;
+    if (!result.cancelled) {
+      const shares = scenario.uncertainty === undefined ? undefined : await sharesOfDraws(io, scenario, job, result, pool, stop.signal, progress.show);
+      comparison = orderComparisonOf(job, result, shares);
+    }
   } catch (err) {
     if (!(err instanceof PoolCancelled)) throw err;
   } finally {
@@ -179,12 +210,34 @@ async function orders(io: Output, words: readonly string[]): Promise<ExitCode> {
     pool?.close();
     progress.clear();
   }
-  if (result === null || result.cancelled) {
-    io.err(`mixwise: orders: stopped by Ctrl-C${result === null ? '' : ` after ${result.evaluated.toLocaleString('en')} orders simulated`}; nothing written\n`);
+  if (comparison === null) {
+    io.err(`mixwise: orders: stopped by Ctrl-C${evaluated === null ? '' : ` after ${evaluated.toLocaleString('en')} orders simulated`}; nothing written\n`);
     return EXIT_CODES.cancelled;
   }
-  io.out(args.format === 'json' ? jsonText(scenario, job, result) : tableText(scenario, job, result));
+  io.out(args.format === 'json' ? jsonText(scenario, comparison) : tableText(scenario, comparison));
   return EXIT_CODES.ok;
+}
+
+/** The top orders under every draw of the scenario's uncertainty section (seed as `mixwise run`), on the pool or this thread. */
+async function sharesOfDraws(io: Output, scenario: Scenario, job: OrderSearchJob, result: OrderSearchResult, pool: WorkerPool | null, signal: AbortSignal, show: (text: string) => void): Promise<OrderShares> {
+  const u = scenario.uncertainty as NonNullable<Scenario['uncertainty']>;
+  const context = { scenario, ...topOrdersUnderDraws(job, result) };
+  const draws = Array.from({ length: u.draws }, (_, i) => i);
+  io.err(`mixwise: orders: running the top ${result.orders.length} orders under ${groupThousands(u.draws)} draws (seed ${u.seed})\n`);
+  const onProgress = (done: number, total: number) => show(`draws: ${done.toLocaleString('en')} of ${total.toLocaleString('en')}`);
+  const prepared = prepareOrderDraws(context);
+  let results: OrderDrawResult[];
+  if (pool !== null) results = await pool.map('orderDraws', context, draws, { signal, onProgress });
+  else {
+    results = [];
+    for (const i of draws) {
+      await new Promise((resolve) => setImmediate(resolve));
+      if (signal.aborted) throw new PoolCancelled();
+      results.push(orderValuesUnderDraw(prepared, i));
+      onProgress(i + 1, draws.length);
+    }
+  }
+  return orderShares(prepared, results);
 }
 
 /**
@@ -201,15 +254,19 @@ function yieldingEvaluator(inner: OrderEvaluator, signal: AbortSignal): OrderEva
   };
 }
 
+function searchProgressText(p: SearchProgress): string {
+  const ruledOut = p.ruledOut > 0 ? `, ${p.ruledOut.toLocaleString('en')} ruled out by bounds` : '';
+  const best = p.best === null ? '' : `, best so far ${groupThousands(p.best)}`;
+  return `${Math.floor(p.fraction * 100)}%: ${p.evaluated.toLocaleString('en')} orders simulated${ruledOut}${best}`;
+}
+
 /** Progress on a terminal's stderr, one line rewritten in place (nothing elsewhere). */
-function progressLine(io: Output): { show(p: SearchProgress): void; clear(): void } {
+function progressLine(io: Output): { show(text: string): void; clear(): void } {
   if (io.errIsTerminal !== true) return { show: () => {}, clear: () => {} };
   let shown = false;
   return {
-    show(p) {
-      const ruledOut = p.ruledOut > 0 ? `, ${p.ruledOut.toLocaleString('en')} ruled out by bounds` : '';
-      const best = p.best === null ? '' : `, best so far ${groupThousands(p.best)}`;
-      io.err(`\r\x1b[K${Math.floor(p.fraction * 100)}%: ${p.evaluated.toLocaleString('en')} orders simulated${ruledOut}${best}`);
+    show(text) {
+      io.err(`\r\x1b[K${text}`);
       shown = true;
     },
     clear() {

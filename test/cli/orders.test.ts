@@ -106,6 +106,41 @@ describe('mixwise orders stopped by Ctrl-C', () => {
   });
 });
 
+describe('mixwise orders with an uncertainty section', async () => {
+  const file = writeTemp('uncertain.json', {
+    ...demoJson(),
+    uncertainty: {
+      draws: 50,
+      seed: 7,
+      parameters: [
+        { name: 'r0', distribution: { kind: 'uniform', low: 1.8, high: 3.2 }, source: 'test range' },
+        { name: 'ifrScale', distribution: { kind: 'uniform', low: 0.5, high: 2 }, source: 'test range' },
+      ],
+    },
+  });
+  const words = ['orders', file, '--option', OPTION, '--minimise', 'infections', '--groups', GROUPS, '--top', '3', '--draws', '4'];
+  const json = await runAsync(...words, '--format', 'json');
+  const table = await runAsync(...words);
+
+  it('gives each top order the share of draws in which it is best, summing to 1', () => {
+    expect(json.code).toBe(0);
+    expect(json.stderr).toMatch(/running the top 3 orders under 4 draws \(seed 7\)/);
+    const out = JSON.parse(json.stdout);
+    expect(out.draws).toEqual({ draws: 4, seed: 7, failedDraws: 0 });
+    const shares = out.orders.map((o: { shareOfDrawsBest: number }) => o.shareOfDrawsBest);
+    expect(shares).toHaveLength(3);
+    for (const x of shares) expect(x * 4).toBeCloseTo(Math.round(x * 4 * 2) / 2, 12);
+    expect(shares.reduce((a: number, b: number) => a + b, 0)).toBeCloseTo(1, 12);
+  });
+
+  it('prints the shares as a column of the table', () => {
+    expect(table.code).toBe(0);
+    expect(table.stdout).toMatch(/Best in draws/);
+    expect(table.stdout).toMatch(/share of the 4 uncertainty draws \(seed 7\)/);
+    expect(table.stdout).toMatch(/^1\. .*\s\d+%\s/m);
+  });
+});
+
 describe('mixwise orders (table)', async () => {
   const { code, stdout } = await runAsync('orders', DEMO, '--option', OPTION, '--groups', GROUPS, '--top', '2');
   it('lists the best orders by age range, the built-in orders and the caution', () => {

@@ -14,6 +14,7 @@ import { simulateOption } from '../simulate.ts';
 import { ordersInfo, type OrdersInfo } from '../vaccination/ordersInfo.ts';
 import { evaluateOrder, type OrderEvaluation, type OrderSearchJob } from '../vaccination/orderEvaluation.ts';
 import { orderSearchJobOf, type OrderEvaluationContext } from '../vaccination/orderJob.ts';
+import { orderValuesUnderDraw, prepareOrderDraws, type OrderDrawResult, type OrderDrawsContext, type PreparedOrderDraws } from '../vaccination/orderDraws.ts';
 
 export interface Job<Context, Prepared, Task, Result> {
   prepare(context: Context): Prepared;
@@ -65,11 +66,19 @@ const orderEvaluations: Job<OrderEvaluationContext, OrderSearchJob, number[], Or
   transferables: () => [],
 };
 
+/** The top orders under the uncertainty draws (vaccination/orderDraws.ts): task = a draw index. */
+const orderDraws: Job<OrderDrawsContext, PreparedOrderDraws, number, OrderDrawResult> = {
+  prepare: prepareOrderDraws,
+  run: orderValuesUnderDraw,
+  transferables: () => [],
+};
+
 export const JOBS = {
   optionRuns,
   optionSummaries,
   ordersInfo: ordersInfoJob,
   orderEvaluations,
+  orderDraws,
 };
 
 export type JobName = keyof typeof JOBS;

@@ -31,4 +31,6 @@ export {
   type SearchControl,
 } from './orderSearch.ts';
 export { poolEvaluator } from './orderPool.ts';
+export { orderComparisonOf, topOrdersUnderDraws, type OrderComparison, type ComparedOrder } from './orderComparison.ts';
+export { prepareOrderDraws, orderValuesUnderDraw, orderShares, type OrderDrawsContext, type PreparedOrderDraws, type OrderDrawResult, type OrderShares } from './orderDraws.ts';
 export { ordersInfo, type OrdersInfo } from './ordersInfo.ts';
