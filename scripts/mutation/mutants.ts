@@ -126,5 +126,5 @@ export const MUTANTS: Mutant[] = [
   { id: 'hc-complete', file: 'src/engine/healthcare/demand.ts', find: 'lag < k.length ? k[lag] : complete', replace: 'lag < k.length ? k[lag] : 0', what: 'admissions of early infections dropped' },
   { id: 'vx-risk-ratio', file: 'src/engine/vaccination/prepareCampaign.ts', find: '(1 - efficacyAgainstOutcome) / (1 - efficacyAgainstInfection)', replace: '(1 - efficacyAgainstOutcome)', what: 'relative risk given infection not divided by 1 - e_I' },
   { id: 'vx-admission-default', file: 'src/engine/vaccination/prepareCampaign.ts', find: 'c.efficacyAgainstAdmission ?? c.efficacyAgainstDeath', replace: 'c.efficacyAgainstAdmission ?? 0', what: 'admission efficacy defaults to 0' },
-  { id: 'run-per-1000', file: 'src/engine/run.ts', find: '(1000 * averted) / doses', replace: 'averted / doses', what: 'averted per dose, not per 1,000 doses' },
+  { id: 'run-per-1000', file: 'src/engine/reference.ts', find: '(1000 * averted) / doses', replace: 'averted / doses', what: 'averted per dose, not per 1,000 doses' },
 ];

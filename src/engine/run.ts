@@ -8,37 +8,17 @@ import { reciprocityCheck } from './contacts.ts';
 import type { Calibration } from './calibration.ts';
 import { mapPrepared, type MapOptions, type WorkerPool } from './pool/pool.ts';
 import { prepareScenario, type PreparedScenario } from './prepare.ts';
-import type { Comparison, OptionSummary, ReciprocityCheck, ScenarioResults, ScenarioSummary } from './results.ts';
+import { compareWithReference, referenceIndexOf } from './reference.ts';
+import type { OptionSummary, ReciprocityCheck, ScenarioResults, ScenarioSummary } from './results.ts';
 import { scenarioRevision } from './revision.ts';
 import type { Scenario } from './scenario.ts';
 
-/** Index of the reference option: the one named by `referenceOption`, else the first. */
-export function referenceIndexOf(s: Scenario): number {
-  const k = s.referenceOption === undefined ? 0 : s.options.findIndex((o) => o.name === s.referenceOption);
-  return Math.max(0, k);
-}
+// Kept importable from here: the reference option is part of a scenario's results.
+export { compareWithReference, referenceIndexOf };
 
 /** Reciprocity of each setting's matrix against the population. */
 export function reciprocityBySetting(s: Scenario): ReciprocityCheck[] {
   return s.settings.map((setting) => ({ setting: setting.name, ...reciprocityCheck(setting.contactsPerDay, s.populationPersons) }));
-}
-
-/** Averted = reference minus option; per 1,000 of the option's doses when it gives any. */
-export function compareWithReference(option: OptionSummary, reference: OptionSummary): Comparison {
-  const doses = option.vaccination?.doses ?? 0;
-  const per1000 = (averted: number | null) => (doses > 0 && averted !== null ? (1000 * averted) / doses : null);
-  const infectionsAverted = reference.infections - option.infections;
-  const deathsAverted = reference.deaths - option.deaths;
-  const admissionsAverted = option.healthcare !== null && reference.healthcare !== null ? reference.healthcare.admissions - option.healthcare.admissions : null;
-  return {
-    reference: reference.name,
-    infectionsAverted,
-    deathsAverted,
-    admissionsAverted,
-    infectionsAvertedPer1000Doses: per1000(infectionsAverted),
-    deathsAvertedPer1000Doses: per1000(deathsAverted),
-    admissionsAvertedPer1000Doses: per1000(admissionsAverted),
-  };
 }
 
 /**

@@ -7,7 +7,7 @@
  * numbers: options are compared draw by draw). A draw that breaks a rule, or whose run fails, is
  * returned as a failure with the reason; it never throws.
  */
-import { compareWithReference, referenceIndexOf } from '../run.ts';
+import { compareWithReference, referenceIndexOf } from '../reference.ts';
 import { prepareScenario, type PreparedScenario } from '../prepare.ts';
 import type { OptionResults } from '../results.ts';
 import type { PolicyOption, Scenario } from '../scenario.ts';
