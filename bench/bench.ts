@@ -8,15 +8,18 @@
  *    scaled to the population), on the demo's options without vaccination; the ratio per option.
  *    Skipped, with a note, where python3 with scipy is missing (Debian: apt-get install python3-scipy).
  * 3. A batch of 1000 options (the demo's options with varied multipliers): throughput on this
- *    thread, on a pool of 1 worker and on one worker per core, and the process's peak memory.
+ *    thread, on a pool of 1 worker and on one worker per core; and the peak resident memory of a
+ *    separate `mixwise run` of the same 1000 options (this process keeps several batches, so its own
+ *    peak would overstate it), read by bench/peakMemory.mjs in the child.
  * Timings on a shared machine are noisy: compare the ratios, and rerun.
  */
 import { spawnSync } from 'node:child_process';
-import { readFileSync } from 'node:fs';
-import { availableParallelism, cpus } from 'node:os';
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { availableParallelism, cpus, tmpdir } from 'node:os';
+import { join } from 'node:path';
 import { nodeWorkerPool } from '../src/cli/workerThreads.ts';
 import { prepareScenario } from '../src/engine/prepare.ts';
-import { runScenario, runScenarioOnPool } from '../src/engine/run.ts';
+import { runScenarioSummary, runScenarioSummaryOnPool } from '../src/engine/run.ts';
 import type { PolicyOption, Scenario } from '../src/engine/scenario.ts';
 import { segmentsOf } from '../src/engine/segments.ts';
 import { simulateOption } from '../src/engine/simulate.ts';
@@ -51,13 +54,15 @@ for (let k = 0; k < 20; k++) for (const o of demo.options) simulateOption(prepar
 
 console.log(`machine: ${availableParallelism()} cores (${cpus()[0]?.model ?? 'unknown'}), Node ${process.version}`);
 console.log(`\n1. demo: ${demo.ageBands.length} bands, ${demo.horizonDays} days; per option on one core, median ms (CPU time / wall time)`);
+console.log('   full run (every outcome and the daily series, as the app draws them) | summary run (every outcome, no daily series: draws, order searches, mixwise run)');
 console.log('   targets: <= 0.5 ms without vaccination, <= 1 ms with it');
-const engineMs = new Map<string, number>();
+const engineMs = new Map<string, { full: number; summary: number }>();
 for (const option of demo.options) {
-  const { cpu, wall } = measure(() => simulateOption(prepared, option), 25, 4);
-  engineMs.set(option.name, cpu);
+  const full = measure(() => simulateOption(prepared, option), 25, 4);
+  const summary = measure(() => simulateOption(prepared, option, { series: 'summary' }), 25, 4);
+  engineMs.set(option.name, { full: full.cpu, summary: summary.cpu });
   const kind = option.vaccinationCampaign === undefined ? '' : ' (vaccination)';
-  console.log(`   ${(option.name + kind).padEnd(40)} ${cpu.toFixed(3)} / ${wall.toFixed(3)}`);
+  console.log(`   ${(option.name + kind).padEnd(40)} full ${full.cpu.toFixed(3)} / ${full.wall.toFixed(3)} | summary ${summary.cpu.toFixed(3)} / ${summary.wall.toFixed(3)}`);
 }
 
 // Triggered measures (issue 14): the same measures switched by ICU occupancy, against fixed days.
@@ -106,15 +111,20 @@ if (python.status !== 0) {
   if (peer.status !== 0) throw new Error(`scipy peer failed: ${peer.stderr}`);
   const answers = JSON.parse(peer.stdout) as { options: { name: string; secondsPerRun: number; attackRate: number; deaths: number; peakDay: number }[] };
   const ratios: number[] = [];
+  const fullRatios: number[] = [];
   for (const a of answers.options) {
-    const ours = engineMs.get(a.name) as number;
+    const ours = engineMs.get(a.name) as { full: number; summary: number };
     const engine = simulateOption(prepared, demo.options.find((o) => o.name === a.name) as PolicyOption);
-    const ratio = (1000 * a.secondsPerRun) / ours;
-    ratios.push(ratio);
+    const peerMs = 1000 * a.secondsPerRun;
+    ratios.push(peerMs / ours.summary);
+    fullRatios.push(peerMs / ours.full);
     const agree = Math.abs(engine.attackRate - a.attackRate) / engine.attackRate;
-    console.log(`   ${a.name.padEnd(40)} scipy ${(1000 * a.secondsPerRun).toFixed(2)} ms, engine ${ours.toFixed(3)} ms: ${ratio.toFixed(0)}x (attack rates agree to ${agree.toExponential(1)})`);
+    console.log(
+      `   ${a.name.padEnd(40)} scipy ${peerMs.toFixed(2)} ms; engine summary ${ours.summary.toFixed(3)} ms: ${(peerMs / ours.summary).toFixed(0)}x, ` +
+        `full ${ours.full.toFixed(3)} ms: ${(peerMs / ours.full).toFixed(0)}x (attack rates agree to ${agree.toExponential(1)})`,
+    );
   }
-  console.log(`   median ratio ${median(ratios).toFixed(0)}x (target >= 30x)`);
+  console.log(`   median ratio ${median(ratios).toFixed(0)}x for a summary run (the peer computes no more), ${median(fullRatios).toFixed(0)}x for a full run (target >= 30x)`);
 }
 
 /** 1000 options: the demo's options with their setting multipliers scaled. */
@@ -129,18 +139,34 @@ function batchScenario(count: number): Scenario {
 }
 
 const batch = batchScenario(1000);
-console.log(`\n3. batch: ${batch.options.length} options`);
+console.log(`\n3. batch: ${batch.options.length} options, summary runs (as mixwise run)`);
 const t0 = performance.now();
-runScenario(batch);
+runScenarioSummary(batch);
 const inline = performance.now() - t0;
 console.log(`   this thread:        ${inline.toFixed(0)} ms = ${(inline / 1000).toFixed(2)} ms per option`);
 for (const size of [1, availableParallelism()]) {
   const pool = nodeWorkerPool(size);
-  await runScenarioOnPool(pool, batchScenario(size * 2)); // start and warm the workers
+  await runScenarioSummaryOnPool(pool, batchScenario(size * 2)); // start and warm the workers
   const t1 = performance.now();
-  await runScenarioOnPool(pool, batch);
+  await runScenarioSummaryOnPool(pool, batch);
   const ms = performance.now() - t1;
   pool.close();
   console.log(`   pool of ${String(size).padEnd(2)} worker${size === 1 ? ' ' : 's'}:  ${ms.toFixed(0)} ms = ${(ms / 1000).toFixed(2)} ms per option, ${((1000 * 1000) / ms).toFixed(0)} options/s`);
 }
-console.log(`   peak resident memory of the process: ${(process.resourceUsage().maxRSS / 1024).toFixed(0)} MB (target < 500 MB)`);
+
+// Memory: `mixwise run` of the 1000 options in its own process (the default threads), as an analyst runs it.
+{
+  const dir = mkdtempSync(join(tmpdir(), 'mixwise-bench-'));
+  try {
+    const file = join(dir, 'batch.json');
+    writeFileSync(file, JSON.stringify(batch));
+    const bin = new URL('../bin/mixwise.mjs', import.meta.url).pathname;
+    const peak = new URL('./peakMemory.mjs', import.meta.url).pathname;
+    const child = spawnSync(process.execPath, ['--import', peak, bin, 'run', file, '--format', 'json', '--out', join(dir, 'out.json')], { encoding: 'utf8' });
+    const kb = /peak-rss-kb (\d+)/.exec(child.stderr ?? '');
+    if (child.status !== 0 || kb === null) throw new Error(`mixwise run failed: ${child.stderr}`);
+    console.log(`   mixwise run of the ${batch.options.length} options (own process, one thread per core): peak resident memory ${(Number(kb[1]) / 1024).toFixed(0)} MB (target < 500 MB)`);
+  } finally {
+    rmSync(dir, { recursive: true, force: true });
+  }
+}

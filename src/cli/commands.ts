@@ -3,7 +3,7 @@
  * Each writes through `Output` and returns its exit code; file and usage faults are thrown
  * as `CliError` and reported by main.
  */
-import { formatProblem, parseScenarioText, reciprocityBySetting, runScenario, type Calibration, type DrawResult, type Scenario, type ScenarioResults, type ValidationResult } from '../engine/index.ts';
+import { formatProblem, parseScenarioText, reciprocityBySetting, runScenarioSummary, type Calibration, type DrawResult, type Scenario, type ScenarioSummary, type ValidationResult } from '../engine/index.ts';
 import type { DrawOptions, OutputFormat } from './args.ts';
 import { mergeParts, partFileText } from './drawParts.ts';
 import { computeDraws, scenarioForDraws, summarise } from './uncertainty.ts';
@@ -37,7 +37,7 @@ export function loadScenarioOrComplain(io: Output, file: string): { scenario: Sc
   return null;
 }
 
-function writeResults(io: Output, scenario: Scenario, results: ScenarioResults, format: OutputFormat, out: string | null): ExitCode {
+function writeResults(io: Output, scenario: Scenario, results: ScenarioSummary, format: OutputFormat, out: string | null): ExitCode {
   write(io, out, formatReport(results, format, csvSourceOf(scenario)));
   return EXIT_CODES.ok;
 }
@@ -50,7 +50,7 @@ function write(io: Output, out: string | null, text: string): void {
 /** The options report of a scenario, with the summary of its draws when it has an uncertainty section. */
 function reportText(scenario: Scenario, calibration: Calibration | undefined, format: OutputFormat, draws: () => DrawResult[]): string {
   const summary = scenario.uncertainty === undefined ? undefined : summarise(scenario, draws());
-  return formatReport(runScenario(scenario, calibration), format, csvSourceOf(scenario), summary);
+  return formatReport(runScenarioSummary(scenario, calibration), format, csvSourceOf(scenario), summary);
 }
 
 /** `run` on this thread; with an uncertainty section, also its draws (or the slice `--draw-range` asks for). */

@@ -1,5 +1,5 @@
 /** Renders the results of `mixwise run` in the format asked for on the command line. */
-import type { ScenarioResults, UncertaintyResults } from '../engine/index.ts';
+import type { ScenarioSummary, UncertaintyResults } from '../engine/index.ts';
 import { optionsTableCsv, type CsvSource } from '../report/csv.ts';
 import type { OutputFormat } from './args.ts';
 import { formatMarkdown } from './formatMarkdown.ts';
@@ -9,7 +9,7 @@ import { printedReport } from './tableModel.ts';
 import { withUncertainty } from './uncertainty.ts';
 
 /** `source` names the scenario and program version in the CSV header block; `draws` summarises the uncertainty draws, if any. */
-export function formatReport(results: ScenarioResults, format: OutputFormat, source: CsvSource, draws?: UncertaintyResults): string {
+export function formatReport(results: ScenarioSummary, format: OutputFormat, source: CsvSource, draws?: UncertaintyResults): string {
   switch (format) {
     case 'json': {
       const report = optionsReport(results);

@@ -8,7 +8,7 @@
  * Units: rates per day, times in days, prevalence, attack rates and shares as fractions 0-1,
  * counts in persons (beds, doses).
  */
-import type { OptionResults, ScenarioResults } from '../engine/index.ts';
+import type { OptionSummary, ScenarioSummary } from '../engine/index.ts';
 import { BAND_OUTCOMES, OUTCOMES, outcomeDatum } from '../report/outcomes.ts';
 import { CAUTION } from '../report/index.ts';
 import { reciprocityRows, type ReciprocityRow } from './reciprocityNotes.ts';
@@ -20,7 +20,7 @@ import { reciprocityRows, type ReciprocityRow } from './reciprocityNotes.ts';
  */
 export type OptionRow = { name: string } & Record<string, string | number | null | number[] | MeasureDetails[keyof MeasureDetails]>;
 
-type MeasureDetails = Pick<OptionResults, 'triggers' | 'rByPhase' | 'measureBurden'>;
+type MeasureDetails = Pick<OptionSummary, 'triggers' | 'rByPhase' | 'measureBurden'>;
 
 export interface OptionsReport {
   title: string;
@@ -35,13 +35,13 @@ export interface OptionsReport {
   caution: string;
 }
 
-export function optionsReport(results: ScenarioResults): OptionsReport {
+export function optionsReport(results: ScenarioSummary): OptionsReport {
   return {
     title: results.title,
     startDate: results.startDate,
     ageBands: results.ageBands,
     r0: results.r0,
-    horizonDays: results.options[0]?.series.days ?? 0,
+    horizonDays: results.horizonDays,
     referenceOption: results.options[results.referenceIndex]?.name ?? '',
     options: results.options.map((o) => {
       const row: OptionRow = { name: o.name };

@@ -1,9 +1,10 @@
 /**
  * `mixwise run` over many options: the options go to a pool of worker threads
- * (workerThreads.ts), with the same results as one thread (the engine's `runScenarioOnPool`).
+ * (workerThreads.ts), with the same results as one thread (the engine's
+ * `runScenarioSummaryOnPool`: the table, CSV and JSON read outcomes only, so no daily series is kept).
  */
 import { availableParallelism } from 'node:os';
-import { runScenario, runScenarioOnPool, type Calibration, type Scenario, type ScenarioResults } from '../engine/index.ts';
+import { runScenarioSummary, runScenarioSummaryOnPool, type Calibration, type Scenario, type ScenarioSummary } from '../engine/index.ts';
 import { nodeWorkerPool } from './workerThreads.ts';
 
 /** From this many options up, `run` uses one thread per core by default: below it, starting threads costs more than they save. */
@@ -16,11 +17,11 @@ export function threadsFor(scenario: Scenario, workers: number | null): number {
 }
 
 /** Every option of `scenario` on `threads` threads (this one when 1). */
-export async function runOnThreads(scenario: Scenario, calibration: Calibration, threads: number): Promise<ScenarioResults> {
-  if (threads <= 1) return runScenario(scenario, calibration);
+export async function runOnThreads(scenario: Scenario, calibration: Calibration, threads: number): Promise<ScenarioSummary> {
+  if (threads <= 1) return runScenarioSummary(scenario, calibration);
   const pool = nodeWorkerPool(Math.min(threads, scenario.options.length));
   try {
-    return await runScenarioOnPool(pool, scenario, calibration);
+    return await runScenarioSummaryOnPool(pool, scenario, calibration);
   } finally {
     pool.close();
   }

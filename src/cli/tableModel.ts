@@ -3,7 +3,7 @@
  * options table exactly as the report prints it (one row per outcome, one column per option, in
  * groups of at most `OPTIONS_PER_TABLE` options), the by-band tables of the catalogue and notes.
  */
-import type { ScenarioResults } from '../engine/index.ts';
+import type { ScenarioSummary } from '../engine/index.ts';
 import { print } from '../report/numberFormat.ts';
 import { columnGroups, optionsTable } from '../report/optionsTable.ts';
 import { BAND_OUTCOMES, formatBandValue } from '../report/outcomes.ts';
@@ -29,7 +29,7 @@ export interface PrintedReport {
   caution: string;
 }
 
-export function printedReport(results: ScenarioResults): PrintedReport {
+export function printedReport(results: ScenarioSummary): PrintedReport {
   const table = optionsTable(results);
   const groups = columnGroups(table.optionNames.length, OPTIONS_PER_TABLE);
   const optionTables = groups.map(
@@ -52,7 +52,7 @@ export function printedReport(results: ScenarioResults): PrintedReport {
     title: results.title,
     facts: [
       `R0 (no measures): ${print.r(results.r0)}`,
-      `Horizon: ${results.options[0]?.series.days ?? 0} days`,
+      `Horizon: ${results.horizonDays} days`,
       `Reference option: ${table.optionNames[table.referenceIndex] ?? ''}`,
     ],
     tables: [...optionTables, ...bandTables],

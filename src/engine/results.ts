@@ -164,6 +164,8 @@ export interface ScenarioResults<O extends OptionSummary = OptionResults> {
   /** The scenario's day 0 as an ISO 8601 date (YYYY-MM-DD); null when the scenario has no start date. */
   startDate: string | null;
   ageBands: string[];
+  /** Horizon H in days (the scenario's `horizonDays`). */
+  horizonDays: number;
   /** Basic reproduction number: NGM dominant eigenvalue, fully susceptible, no measures. */
   r0: number;
   /** Transmission rate per contact, calibrated from R0 or the doubling time. */

@@ -34,6 +34,7 @@ export function assembleResults<O extends OptionSummary>(s: Scenario, prepared: 
     revision: scenarioRevision(s),
     startDate: s.startDate ?? null,
     ageBands: s.ageBands.map((b) => b.label),
+    horizonDays: s.horizonDays,
     r0: prepared.r0,
     beta: prepared.beta,
     referenceIndex,

@@ -12,7 +12,7 @@
  * apply to the option (no hospital section, no campaign) or there is none (e.g. no doubling time
  * when the epidemic is not growing).
  */
-import type { ScenarioResults } from '../engine/index.ts';
+import type { ScenarioResults, ScenarioSummary } from '../engine/index.ts';
 import { CAUTION } from './cautions.ts';
 import { appliesTo, BAND_OUTCOMES, outcomeDatum, outcomesFor } from './outcomes.ts';
 import { dateOfDay } from './numberFormat.ts';
@@ -48,7 +48,7 @@ function csvLines(rows: readonly Field[][]): string {
 const oneLine = (text: string) => text.replace(/[\r\n]+/g, ' ');
 
 /** The "#" lines at the top of every export. */
-export function csvHeaderBlock(what: string, results: ScenarioResults, source: CsvSource, units: string): string {
+export function csvHeaderBlock(what: string, results: ScenarioSummary, source: CsvSource, units: string): string {
   const reference = results.options[results.referenceIndex]?.name ?? '';
   const lines = [
     `Mixwise ${what}: ${results.title}`,
@@ -66,7 +66,7 @@ export function csvHeaderBlock(what: string, results: ScenarioResults, source: C
  * option), then every outcome of the catalogue (src/report/outcomes.ts) that applies to some
  * option, under its CSV column name, then the by-band outcomes as `<column> <band label>`.
  */
-export function optionsTableCsv(results: ScenarioResults, source: CsvSource): string {
+export function optionsTableCsv(results: ScenarioSummary, source: CsvSource): string {
   const outcomes = outcomesFor(results);
   const bands = BAND_OUTCOMES.filter((b) => results.options.some((o) => appliesTo(b, o)));
   const header: Field[] = [

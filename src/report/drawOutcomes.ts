@@ -10,7 +10,7 @@ export const DRAW_OUTCOME_KEYS: readonly string[] = OUTCOMES.map((o) => o.key);
 
 /** The results of one draw in the shape the catalogue reads (only options and reference are used). */
 function drawResults(options: readonly OptionResults[], referenceIndex: number): ScenarioResults {
-  return { title: '', ageBands: [], r0: Number.NaN, beta: Number.NaN, referenceIndex, options: [...options], reciprocity: [], revision: '', startDate: null };
+  return { title: '', ageBands: [], horizonDays: 0, r0: Number.NaN, beta: Number.NaN, referenceIndex, options: [...options], reciprocity: [], revision: '', startDate: null };
 }
 
 export const catalogueReader: OutcomeReader = {

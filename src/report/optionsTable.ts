@@ -4,7 +4,7 @@
  * some option, one column per option, every cell a number the engine returned in the print style.
  * Comparisons (deaths averted) are the engine's; the reference option's own cell reads "reference".
  */
-import type { ScenarioResults } from '../engine/index.ts';
+import type { ScenarioSummary } from '../engine/index.ts';
 import { print } from './numberFormat.ts';
 import { outcomesFor, outcomeText } from './outcomes.ts';
 
@@ -25,7 +25,7 @@ export interface OptionsTable {
   notes: string[];
 }
 
-function capacityNote(results: ScenarioResults): string | null {
+function capacityNote(results: ScenarioSummary): string | null {
   const h = results.options.find((o) => o.healthcare !== null)?.healthcare ?? null;
   if (h === null) return null;
   const surge = (n: number | null) => (n === null ? '' : `, ${print.persons(n)} at full surge`);
@@ -35,7 +35,7 @@ function capacityNote(results: ScenarioResults): string | null {
   );
 }
 
-export function optionsTable(results: ScenarioResults): OptionsTable {
+export function optionsTable(results: ScenarioSummary): OptionsTable {
   const reference = results.options[results.referenceIndex];
   const outcomes = outcomesFor(results, 'table');
   const shown = (key: string) => outcomes.some((e) => e.key === key);
