@@ -7,6 +7,7 @@ import { join } from 'node:path';
 import { tmpdir } from 'node:os';
 import { screen } from '../src/report/numberFormat.ts';
 import { parseScenarioText } from '../src/engine/index.ts';
+import { commandEntry, keyTextOf, titleWithKey } from '../src/shared/commands.ts';
 import { cliDemoResults, demoScenario, engineRStart } from './engineReference.ts';
 import { ARTIFACTS, columns, openApp, settled } from './helpers.ts';
 
@@ -231,6 +232,19 @@ test('the measures editor works from the keyboard alone', async ({ page }) => {
   expect(Number(after)).toBeLessThanOrEqual(Number(before));
   await page.keyboard.press('Alt+ArrowLeft');
   await expect(page.getByTestId('measures-problems')).toHaveCount(0);
+});
+
+test('buttons and tabs show the command table\'s key bindings, and those keys work', async ({ page }) => {
+  await openApp(page);
+  await expect(page.getByTestId('save')).toHaveAttribute('title', titleWithKey('save'));
+  await expect(page.getByTestId('undo')).toHaveAttribute('title', 'Undo edit (Ctrl+Z)');
+  await expect(page.getByTestId('toolbar-print-report')).toHaveAttribute('title', titleWithKey('print-report', 'Print the policy options report'));
+  for (const command of ['view-board', 'view-curves', 'view-by-age', 'view-assumptions', 'view-report'] as const) {
+    const tab = page.getByRole('tab', { name: commandEntry(command).label, exact: true });
+    await expect(tab).toHaveAttribute('title', keyTextOf(command)!);
+    await page.keyboard.press(keyTextOf(command)!);
+    await expect(tab).toHaveAttribute('aria-selected', 'true');
+  }
 });
 
 test('a screenshot of each view', async ({ page }) => {

@@ -1,11 +1,13 @@
 /**
  * The native menu as plain data. Items that act on the document send a `MenuCommand` to
- * the renderer, which owns the document. Accelerators are shown but not registered
+ * the renderer, which owns the document; their labels and accelerators come from the command
+ * table (src/shared/commands.ts). Accelerators are shown but not registered
  * (`registerAccelerator: false`): the renderer handles the keys itself, the same way in
  * web mode, so each shortcut has exactly one path.
  */
 import type { MenuItemConstructorOptions } from 'electron';
-import type { MenuCommand, RecentFile } from '../shared/hostApi.ts';
+import type { RecentFile } from '../shared/hostApi.ts';
+import { acceleratorOf, commandEntry, type MenuCommand } from '../shared/commands.ts';
 
 export interface MenuActions {
   send(command: MenuCommand): void;
@@ -13,8 +15,8 @@ export interface MenuActions {
   clearRecent(): void;
 }
 
-function command(label: string, cmd: MenuCommand, actions: MenuActions, accelerator?: string): MenuItemConstructorOptions {
-  return { label, accelerator, registerAccelerator: false, click: () => actions.send(cmd) };
+function command(id: MenuCommand, actions: MenuActions): MenuItemConstructorOptions {
+  return { label: commandEntry(id).label, accelerator: acceleratorOf(id), registerAccelerator: false, click: () => actions.send(id) };
 }
 
 export function menuTemplate(recent: readonly RecentFile[], actions: MenuActions, isMac: boolean): MenuItemConstructorOptions[] {
@@ -30,20 +32,20 @@ export function menuTemplate(recent: readonly RecentFile[], actions: MenuActions
     {
       label: 'File',
       submenu: [
-        command('New from demo', 'new-from-demo', actions, 'CmdOrCtrl+N'),
-        command('Open…', 'open', actions, 'CmdOrCtrl+O'),
-        { label: 'Open recent', submenu: recentItems },
+        command('new-from-demo', actions),
+        command('open', actions),
+        { label: commandEntry('open-recent').label, submenu: recentItems },
         { type: 'separator' },
-        command('Save', 'save', actions, 'CmdOrCtrl+S'),
-        command('Save as…', 'save-as', actions, 'CmdOrCtrl+Shift+S'),
+        command('save', actions),
+        command('save-as', actions),
         { type: 'separator' },
-        command('Print report…', 'print-report', actions, 'CmdOrCtrl+P'),
-        command('Export report as PDF…', 'export-report-pdf', actions, 'CmdOrCtrl+Shift+E'),
-        command('Export table CSV…', 'export-table-csv', actions, 'CmdOrCtrl+E'),
-        command('Export daily series CSV…', 'export-daily-csv', actions),
+        command('print-report', actions),
+        command('export-report-pdf', actions),
+        command('export-table-csv', actions),
+        command('export-daily-csv', actions),
         { type: 'separator' },
-        command('Print this view…', 'print', actions),
-        command('Export this view as PDF…', 'export-pdf', actions),
+        command('print', actions),
+        command('export-pdf', actions),
         { type: 'separator' },
         isMac ? { role: 'close' } : { role: 'quit', label: 'Quit' },
       ],
@@ -51,8 +53,8 @@ export function menuTemplate(recent: readonly RecentFile[], actions: MenuActions
     {
       label: 'Edit',
       submenu: [
-        command('Undo edit', 'undo', actions, 'CmdOrCtrl+Z'),
-        command('Redo edit', 'redo', actions, 'CmdOrCtrl+Shift+Z'),
+        command('undo', actions),
+        command('redo', actions),
         { type: 'separator' },
         { role: 'cut' },
         { role: 'copy' },
@@ -63,11 +65,11 @@ export function menuTemplate(recent: readonly RecentFile[], actions: MenuActions
     {
       label: 'View',
       submenu: [
-        command('Options board', 'view-board', actions, 'Alt+1'),
-        command('Curves', 'view-curves', actions, 'Alt+2'),
-        command('By age', 'view-by-age', actions, 'Alt+3'),
-        command('Assumptions', 'view-assumptions', actions, 'Alt+4'),
-        command('Report', 'view-report', actions, 'Alt+5'),
+        command('view-board', actions),
+        command('view-curves', actions),
+        command('view-by-age', actions),
+        command('view-assumptions', actions),
+        command('view-report', actions),
         { type: 'separator' },
         { role: 'resetZoom' },
         { role: 'zoomIn' },
@@ -78,7 +80,7 @@ export function menuTemplate(recent: readonly RecentFile[], actions: MenuActions
     },
     {
       label: 'Help',
-      submenu: [command('Model notes', 'show-model-notes', actions, 'F1'), command('About Mixwise', 'show-about', actions)],
+      submenu: [command('show-model-notes', actions), command('show-about', actions)],
     },
   ];
   return isMac ? [{ role: 'appMenu' }, ...template] : template;

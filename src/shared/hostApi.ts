@@ -5,6 +5,7 @@
  * This file holds types and channel names only, so main, preload and renderer can all import it.
  */
 import type { Orientation as ReportOrientation, Paper as ReportPaper } from '../report/index.ts';
+import type { MenuCommand } from './commands.ts';
 
 /** A scenario file the user picked: its display name, where it lives (desktop only) and its text. */
 export interface OpenedScenarioFile {
@@ -27,30 +28,8 @@ export interface RecentFile {
   path: string;
 }
 
-/** Commands the native menu (or a shortcut) asks the renderer to carry out. */
-export const MENU_COMMANDS = [
-  'new-from-demo',
-  'open',
-  'open-recent',
-  'save',
-  'save-as',
-  'print',
-  'export-pdf',
-  'print-report',
-  'export-report-pdf',
-  'export-table-csv',
-  'export-daily-csv',
-  'undo',
-  'redo',
-  'view-board',
-  'view-curves',
-  'view-by-age',
-  'view-assumptions',
-  'view-report',
-  'show-model-notes',
-  'show-about',
-] as const;
-export type MenuCommand = (typeof MENU_COMMANDS)[number];
+/** Commands the native menu, a shortcut or a button asks the renderer to carry out (the table is commands.ts). */
+export { MENU_COMMANDS, type MenuCommand } from './commands.ts';
 
 /** What the renderer tells the host about the open document (window title, unsaved-changes prompt). */
 export interface DocumentState {

@@ -1,8 +1,9 @@
 /**
- * Keyboard shortcuts: the same keys in the desktop app (where the menu shows them) and in
- * web mode. Ctrl on Windows/Linux, Cmd on macOS.
+ * Keyboard shortcuts: the bindings of the command table (src/shared/commands.ts), the same keys
+ * in the desktop app (where the menu shows them) and in web mode. Ctrl on Windows/Linux, Cmd on
+ * macOS; the modifiers must match exactly (Ctrl+Shift+S is not Ctrl+S).
  */
-import type { MenuCommand } from '../../shared/hostApi.ts';
+import { COMMANDS, type KeyBinding, type MenuCommand } from '../../shared/commands.ts';
 
 export interface KeyPress {
   key: string;
@@ -12,23 +13,17 @@ export interface KeyPress {
   altKey: boolean;
 }
 
+function matches(k: KeyPress, binding: KeyBinding): boolean {
+  return (
+    k.key.toLowerCase() === binding.key &&
+    (k.ctrlKey || k.metaKey) === (binding.mod === true) &&
+    k.shiftKey === (binding.shift === true) &&
+    k.altKey === (binding.alt === true)
+  );
+}
+
 export function commandForKey(k: KeyPress): MenuCommand | null {
-  const mod = k.ctrlKey || k.metaKey;
-  const key = k.key.toLowerCase();
-  if (mod && !k.altKey) {
-    if (key === 'n' && !k.shiftKey) return 'new-from-demo';
-    if (key === 'o' && !k.shiftKey) return 'open';
-    if (key === 's') return k.shiftKey ? 'save-as' : 'save';
-    if (key === 'p' && !k.shiftKey) return 'print-report';
-    if (key === 'e') return k.shiftKey ? 'export-report-pdf' : 'export-table-csv';
-    if (key === 'z') return k.shiftKey ? 'redo' : 'undo';
-    if (key === 'y' && !k.shiftKey) return 'redo';
-  }
-  if (k.altKey && !mod && !k.shiftKey) {
-    const views: Record<string, MenuCommand> = { '1': 'view-board', '2': 'view-curves', '3': 'view-by-age', '4': 'view-assumptions', '5': 'view-report' };
-    if (views[key]) return views[key];
-  }
-  if (key === 'f1' && !mod && !k.altKey) return 'show-model-notes';
+  for (const command of COMMANDS) if (command.keys.some((binding: KeyBinding) => matches(k, binding))) return command.id;
   return null;
 }
 
