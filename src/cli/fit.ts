@@ -2,12 +2,15 @@
  * `mixwise fit CASES.csv --scenario FILE [--from D --to D] [--family poisson|negative-binomial]
  * [--day-of-week] [--measures-ratio X | --measures-option NAME] [--format table|json]`: growth
  * rate r, doubling time and R0 (for the scenario's periods) with 95% intervals, from daily case
- * counts. --measures-option takes the ratio from the phase that option has in force on the
- * window's first day (measuresRatioForOption).
- * D is a date (YYYY-MM-DD, when the file has dates) or a day number. The words are split by
+ * counts, by the engine's `fitCaseCounts` (the app's fit panel runs the same). Without --family the
+ * count model is negative binomial when the Poisson fit is overdispersed, and a note says so.
+ * --measures-option takes the ratio from the phase that option has in force on the window's first
+ * day. Dated counts are placed on the scenario's days when it has a start date.
+ * D is a date (YYYY-MM-DD, when day 0 has one) or a day number. The words are split by
  * words.ts, as for every command.
  */
-import { periodsOf, dailyTotals, fitGrowth, formatCsvProblem, isoDateToEpochDay, measuresRatioForOption, parseCaseCountsCsv, r0FromFit, type CaseSeries, type CountModel, type GrowthFit, type MeasuresRatio, type R0FromFit } from '../engine/index.ts';
+import { basename } from 'node:path';
+import { fitCaseCounts, formatCsvProblem, parseCaseCountsCsv, type CaseCountFit, type CountModel, type WindowEnd } from '../engine/index.ts';
 import { CAUTION } from '../report/index.ts';
 import { loadScenarioOrComplain, type Output } from './commands.ts';
 import { EXIT_CODES, type ExitCode } from './errors.ts';
@@ -20,7 +23,7 @@ interface FitArgs {
   scenarioFile: string;
   from: string | null;
   to: string | null;
-  family: CountModel;
+  family: CountModel | 'auto';
   dayOfWeek: boolean;
   measuresRatio: number | undefined;
   measuresOption: string | null;
@@ -36,7 +39,8 @@ function parseFitArgs(words: readonly string[]): FitArgs {
   if (positional.length !== 1) throw usageError(`'fit' takes one CASES file, got ${positional.length}`);
   const scenarioFile = options.get('--scenario');
   if (scenarioFile === undefined) throw usageError(`'fit' needs --scenario FILE (its periods turn r into R0)`);
-  const family = FAMILIES[options.get('--family') ?? 'poisson'];
+  const familyWord = options.get('--family');
+  const family = familyWord === undefined ? 'auto' : FAMILIES[familyWord];
   if (family === undefined) throw usageError(`--family must be poisson or negative-binomial, got ${JSON.stringify(options.get('--family'))}`);
   const format = options.get('--format') ?? 'table';
   if (format !== 'table' && format !== 'json') throw usageError(`--format must be table or json for 'fit', got ${JSON.stringify(format)}`);
@@ -60,24 +64,21 @@ function parseFitArgs(words: readonly string[]): FitArgs {
   };
 }
 
-/** A window end given as a date (files with dates) or a whole day number. */
-function windowDay(option: string, text: string | null, series: CaseSeries): number | undefined {
+/** A window end as written: a whole day number, or a date (resolved by the engine against day 0). */
+function windowEnd(option: string, text: string | null): WindowEnd | undefined {
   if (text === null) return undefined;
-  if (/^[+-]?\d+$/.test(text)) return Number(text);
-  const epoch = isoDateToEpochDay(text);
-  const start = series.startDate === null ? null : isoDateToEpochDay(series.startDate);
-  if (epoch === null || start === null) {
-    throw usageError(`${option} must be a day number${series.startDate === null ? '' : ' or a date YYYY-MM-DD'}, got ${JSON.stringify(text)}`);
-  }
-  return epoch - start;
+  if (/^[+-]?\d+$/.test(text)) return { day: Number(text) };
+  if (/^\d{4}-\d{2}-\d{2}$/.test(text)) return { date: text };
+  throw usageError(`${option} must be a day number or a date YYYY-MM-DD, got ${JSON.stringify(text)}`);
 }
 
 const num = (x: number | null, digits: number): string => (x === null ? 'unbounded' : Number.isFinite(x) ? x.toFixed(digits) : x > 0 ? '+inf' : '-inf');
 
-function tableText(file: string, fit: GrowthFit, r0: R0FromFit, scenarioTitle: string, measures: MeasuresRatio | undefined): string {
+function tableText(file: string, answer: CaseCountFit, scenarioTitle: string): string {
+  const { fit, r0, measures } = answer;
   const [lo, hi] = fit.growthRateInterval;
   const lines = [
-    `Growth-rate fit of ${file}: days ${fit.fromDay} to ${fit.toDay}, ${fit.daysUsed} days with counts, ${fit.casesInWindow} cases`,
+    `Growth-rate fit of ${file}: days ${fit.fromDay} to ${fit.toDay}${datesOf(answer)}, ${fit.daysUsed} days with counts, ${fit.casesInWindow} cases, ${fit.family === 'poisson' ? 'Poisson' : 'negative-binomial'} counts`,
     `Growth rate r:      ${num(fit.growthRatePerDay, 4)} per day (95% interval ${num(lo, 4)} to ${num(hi, 4)}, profile likelihood)`,
   ];
   if (fit.doublingTimeDays !== null && fit.doublingTimeInterval !== null) {
@@ -87,10 +88,25 @@ function tableText(file: string, fit: GrowthFit, r0: R0FromFit, scenarioTitle: s
   } else lines.push('Doubling time:      not growing');
   lines.push(`R0 for "${scenarioTitle}": ${num(r0.r0, 2)} (95% interval ${num(r0.r0Interval[0], 2)} to ${num(r0.r0Interval[1], 2)})`);
   if (fit.dispersion.negativeBinomialAlpha !== null) lines.push(`Dispersion alpha:   ${fit.dispersion.negativeBinomialAlpha.toPrecision(3)}`);
-  for (const note of [...fit.notes, ...r0.notes, ...(measures === undefined ? [] : [measures.note])]) lines.push(`note: ${note}`);
+  for (const note of notesOf(answer)) lines.push(`note: ${note}`);
   lines.push(CAUTION);
   return `${lines.join('\n')}\n`;
 }
+
+/** " (2031-03-10 to 2031-03-23)" when day 0 has a date. */
+const datesOf = (answer: CaseCountFit): string => {
+  const w = answer.record.window;
+  return w.fromDate === undefined || w.toDate === undefined ? '' : ` (${w.fromDate} to ${w.toDate})`;
+};
+
+/** Which days, why this count model, then the method and measures notes. */
+function notesOf(answer: CaseCountFit): string[] {
+  const family = answer.familyNote === null ? [] : [`${answer.familyNote} Give --family poisson to compare.`];
+  return [answer.placement.note, ...family, ...answer.fit.notes, ...answer.r0.notes, ...(answer.measures === undefined ? [] : [answer.measures.note])];
+}
+
+/** An engine request problem ("from ...", "measures ...") named by the option that set it. */
+const asOption = (problem: string): string => problem.replace(/^(from|to) /, '--$1 ').replace(/^measures /, '--measures-option ');
 
 /** Runs `mixwise fit`; `words` are the arguments after `fit`. */
 export function fitCommand(io: Output, words: readonly string[]): ExitCode {
@@ -107,46 +123,53 @@ export function fitCommand(io: Output, words: readonly string[]): ExitCode {
     for (const p of cases.problems) io.err(`mixwise: ${args.casesFile}: ${formatCsvProblem(p)}\n`);
     return EXIT_CODES.invalidScenario;
   }
-  const result = fitGrowth(dailyTotals(cases.series), {
-    fromDay: windowDay('--from', args.from, cases.series),
-    toDay: windowDay('--to', args.to, cases.series),
-    dayOfWeek: args.dayOfWeek,
+  const result = fitCaseCounts({
+    series: cases.series,
+    scenario,
+    sourceFile: basename(args.casesFile),
+    from: windowEnd('--from', args.from),
+    to: windowEnd('--to', args.to),
     family: args.family,
+    dayOfWeek: args.dayOfWeek,
+    measures: args.measuresOption !== null ? { option: args.measuresOption } : args.measuresRatio !== undefined ? { ratio: args.measuresRatio } : null,
   });
   if (!result.ok) {
-    for (const p of result.problems) io.err(`mixwise: ${args.casesFile}: ${p.field} ${p.rule}${p.value === undefined ? '' : `, got ${p.value}`}\n`);
+    if (result.cause === 'request') throw usageError(result.problems.map(asOption).join('; '));
+    for (const p of result.problems) io.err(`mixwise: ${args.casesFile}: ${p}\n`);
     return EXIT_CODES.invalidScenario;
   }
-  let measures: MeasuresRatio | undefined;
-  if (args.measuresOption !== null) {
-    const found = measuresRatioForOption(scenario, args.measuresOption, result.fit.fromDay);
-    if (!found.ok) throw usageError(found.problems.map((p) => `--measures-option ${p.rule}, got ${JSON.stringify(p.value)}`).join('; '));
-    measures = found.value;
-  }
-  const r0 = r0FromFit(result.fit, periodsOf(scenario), measures === undefined ? args.measuresRatio : measures.phase === null ? undefined : measures.ratio);
-  if (!r0.ok) throw usageError(r0.problems.map((p) => `${p.field} ${p.rule}`).join('; '));
-  const fit = result.fit;
+  const answer = result.value;
+  const { fit, r0, measures } = answer;
   if (args.format === 'json') {
+    const w = answer.record.window;
     const json = {
       growthRatePerDay: fit.growthRatePerDay,
       growthRateInterval: fit.growthRateInterval,
       doublingTimeDays: fit.doublingTimeDays,
-      r0: r0.value.r0,
-      r0Interval: r0.value.r0Interval,
+      r0: r0.r0,
+      r0Interval: r0.r0Interval,
       doublingTimeInterval: fit.doublingTimeInterval,
       halvingTimeDays: fit.halvingTimeDays,
       halvingTimeInterval: fit.halvingTimeInterval,
       status: fit.status,
       family: fit.family,
-      window: { fromDay: fit.fromDay, toDay: fit.toDay, startDate: cases.series.startDate, daysUsed: fit.daysUsed, cases: fit.casesInWindow },
+      window: {
+        fromDay: fit.fromDay,
+        toDay: fit.toDay,
+        startDate: answer.placement.dayZeroDate,
+        dayOrigin: answer.placement.origin,
+        ...(w.fromDate === undefined ? {} : { fromDate: w.fromDate, toDate: w.toDate }),
+        daysUsed: fit.daysUsed,
+        cases: fit.casesInWindow,
+      },
       dispersion: fit.dispersion,
-      measuresRatio: r0.value.measuresRatio,
-      ...(measures === undefined ? {} : { measures: { option: measures.option, day: measures.day, phase: measures.phase, reproductionNumberInWindow: r0.value.reproductionNumberInWindow } }),
-      notes: [...fit.notes, ...r0.value.notes, ...(measures === undefined ? [] : [measures.note])],
+      measuresRatio: r0.measuresRatio,
+      ...(measures === undefined ? {} : { measures: { option: measures.option, day: measures.day, phase: measures.phase, reproductionNumberInWindow: r0.reproductionNumberInWindow } }),
+      notes: notesOf(answer),
       caution: CAUTION,
     };
     // JSON has no infinity: an unbounded interval end is written as null.
     io.out(`${JSON.stringify(json, null, 2)}\n`);
-  } else io.out(tableText(args.casesFile, fit, r0.value, scenario.title, measures));
+  } else io.out(tableText(args.casesFile, answer, scenario.title));
   return EXIT_CODES.ok;
 }

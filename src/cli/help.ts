@@ -28,10 +28,13 @@ Usage:
           [--format table|json]
       Fit the growth rate r to daily case counts (columns date or day, count, optional band)
       over days D (a date YYYY-MM-DD or a day number) and print r, doubling time and R0 for
-      the scenario's periods, with 95% intervals. --measures-ratio: dominant NGM eigenvalue
-      with the measures in force during the window / without; R0 = R in window / X.
-      --measures-option: take X from the phase option NAME has in force on the window's
-      first day (case day numbers counted as scenario days).
+      the scenario's periods, with 95% intervals. Without --family the counts are fitted
+      negative-binomially when they vary more than Poisson allows (a note says so).
+      When the scenario has a startDate, dated counts are placed on its days (day 0 = the
+      start date; counts dated before it are refused, naming their line).
+      --measures-ratio: dominant NGM eigenvalue with the measures in force during the
+      window / without; R0 = R in window / X. --measures-option: take X from the phase
+      option NAME has in force on the window's first day.
       A cases file that breaks a rule also exits with code 2.
   mixwise report FILE [--out PATH] [--format html|csv|pdf] [--series]
           [--paper A4|Letter] [--landscape]

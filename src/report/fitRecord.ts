@@ -26,10 +26,12 @@ export function countModelText(record: FitRecord): string {
   return record.dayOfWeek ? `${family}, with day-of-week factors` : family;
 }
 
-/** The window: dates when the case file had them, with the day numbers, days used and cases. */
+/** The window: its dates when day 0 has one, with the day numbers (and whose days they are), days used and cases. */
 export function fitWindowText(record: FitRecord): string {
   const w = record.window;
-  const days = `days ${w.fromDay} to ${w.toDay}`;
+  const numbers = `${w.fromDay} to ${w.toDay}`;
+  const days =
+    w.dayOrigin === 'scenarioStartDate' ? `scenario days ${numbers}` : w.dayOrigin === 'firstDateInFile' ? `days ${numbers} counted from the file's first date` : w.dayOrigin === 'fileDayNumbers' ? `day numbers ${numbers} as the file gives them` : `days ${numbers}`;
   const span = w.fromDate !== undefined && w.toDate !== undefined ? `${w.fromDate} to ${w.toDate} (${days})` : days;
   const used = w.daysUsed === undefined ? '' : `; ${w.daysUsed} ${w.daysUsed === 1 ? 'day' : 'days'} used`;
   const cases = w.cases === undefined ? '' : `; ${print.persons(w.cases)} cases`;

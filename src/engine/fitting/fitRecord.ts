@@ -9,13 +9,16 @@ import type { GrowthFit } from './fitGrowth.ts';
 import type { MeasuresRatio } from './measuresRatio.ts';
 import type { R0FromFit } from './r0FromFit.ts';
 import { epochDayToIsoDate, isoDateToEpochDay } from './isoDate.ts';
+import type { DayOrigin } from './scenarioDays.ts';
 
 const orNull = (x: number | null): number | null => (x === null || !Number.isFinite(x) ? null : x);
 
 export interface FitRecordInput {
   sourceFile: string;
-  /** ISO date of case day 0, or null when the file gave day numbers. */
+  /** ISO date of day 0 of the fit, or null when it has none (day numbers without a start date). */
   startDate: string | null;
+  /** Which days the fit used (scenarioDays.ts); left out of the record when not given. */
+  dayOrigin?: DayOrigin;
   fit: GrowthFit;
   r0: R0FromFit;
   /** The measures divided out, or undefined when none were in force. */
@@ -36,7 +39,7 @@ export function fitRecordOf(input: FitRecordInput): FitRecord {
   const toDate = caseDayDate(input.startDate, fit.toDay);
   return {
     sourceFile: input.sourceFile,
-    window: { fromDay: fit.fromDay, toDay: fit.toDay, ...(fromDate ? { fromDate } : {}), ...(toDate ? { toDate } : {}), daysUsed: fit.daysUsed, cases: fit.casesInWindow },
+    window: { fromDay: fit.fromDay, toDay: fit.toDay, ...(fromDate ? { fromDate } : {}), ...(toDate ? { toDate } : {}), ...(input.dayOrigin === undefined ? {} : { dayOrigin: input.dayOrigin }), daysUsed: fit.daysUsed, cases: fit.casesInWindow },
     family: fit.family,
     dayOfWeek: fit.dayOfWeek,
     growthRatePerDay: fit.growthRatePerDay,

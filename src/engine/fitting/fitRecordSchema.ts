@@ -14,12 +14,17 @@ const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, { message: 'must be a da
 export const fitRecordSchema = z.object({
   /** Name of the case-count file the fit used (no folder). */
   sourceFile: z.string().min(1, { message: 'must not be empty' }),
-  /** Fitting window, case-file day numbers (both inclusive), and its dates when the file had dates. */
+  /**
+   * Fitting window, day numbers (both inclusive), and its dates when day 0 has one. `dayOrigin` says
+   * which days: the scenario's (day 0 = its start date), the counts file's from its first date, or
+   * the file's own day numbers; records written before it existed leave it out.
+   */
   window: z.object({
     fromDay: z.number().int({ message: 'must be a whole day number' }),
     toDay: z.number().int({ message: 'must be a whole day number' }),
     fromDate: isoDate.optional(),
     toDate: isoDate.optional(),
+    dayOrigin: z.enum(['scenarioStartDate', 'firstDateInFile', 'fileDayNumbers']).optional(),
     daysUsed: z.number().int().min(0).optional(),
     cases: z.number().int().min(0).optional(),
   }),

@@ -20,4 +20,6 @@ export { growthStatus, timeScales, type GrowthStatus, type TimeScales } from './
 export { CHI_SQUARE_1_DF_95 } from './profileInterval.ts';
 export { measuresRatioForOption, measuresRatioOfPhase, type MeasuresRatio, type MeasuresRatioResult } from './measuresRatio.ts';
 export { caseDayDate, fitRecordMatches, fitRecordOf, type FitRecordInput } from './fitRecord.ts';
+export { placeOnScenarioDays, type DayOrigin, type DayPlacement, type PlacementResult } from './scenarioDays.ts';
+export { fitCaseCounts, type CaseCountFit, type CaseCountFitRequest, type CaseCountFitResult, type WindowEnd } from './fitCaseCounts.ts';
 export { fitRecordSchema, type FitRecord } from './fitRecordSchema.ts';

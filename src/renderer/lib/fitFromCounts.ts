@@ -1,51 +1,41 @@
 /**
- * Glue between the "Fit from counts" panel and the engine's fitting functions: one request
- * (counts, window, count model, measures option) in, the fit, R0 and measures ratio out; and the
+ * Glue between the "Fit from counts" panel and the engine's `fitCaseCounts` (the same fit
+ * `mixwise fit` runs): one request in, the fit, R0, measures ratio and record out; and the
  * scenario edit that applies the fitted R0 with its record. No model math of its own.
  */
-import { fitGrowth, fitRecordOf, measuresRatioForOption, r0FromFit, periodsOf, type CountModel, type DailyCounts, type FitRecord, type GrowthFit, type MeasuresRatio, type R0FromFit, type Scenario } from '../../engine/index.ts';
+import { fitCaseCounts, type CaseCountFit, type CaseSeries, type CountModel, type FitRecord, type Scenario } from '../../engine/index.ts';
 
 export interface FitRequest {
-  counts: DailyCounts;
+  series: CaseSeries;
+  fileName: string;
+  /** Window ends, days of the fit (the scenario's days when the counts are placed on them). */
   fromDay: number;
   toDay: number;
-  family: CountModel;
+  /** 'auto' until the analyst picks a count model. */
+  family: CountModel | 'auto';
   dayOfWeek: boolean;
   /** Name of the option whose measures were in force during the window, or null for none. */
   measuresOption: string | null;
   scenario: Scenario;
 }
 
-export interface FitAnswer {
-  fit: GrowthFit;
-  r0: R0FromFit;
-  /** The measures divided out (absent when the analyst said none were in force). */
-  measures?: MeasuresRatio;
-}
+export type FitAnswer = CaseCountFit;
 
 export type FitOutcome = { ok: true; value: FitAnswer } | { ok: false; problems: string[] };
 
-const problemText = (p: { field: string; rule: string; value?: string }): string => `${p.field} ${p.rule}${p.value === undefined ? '' : `, got ${p.value}`}`;
-
 /** Fits r over the window, then R0 for the scenario's periods, dividing out the option's measures if given. */
 export function computeFit(req: FitRequest): FitOutcome {
-  const fitted = fitGrowth(req.counts, { fromDay: req.fromDay, toDay: req.toDay, family: req.family, dayOfWeek: req.dayOfWeek });
-  if (!fitted.ok) return { ok: false, problems: fitted.problems.map(problemText) };
-  let measures: MeasuresRatio | undefined;
-  if (req.measuresOption !== null) {
-    const found = measuresRatioForOption(req.scenario, req.measuresOption, req.fromDay);
-    if (!found.ok) return { ok: false, problems: found.problems.map(problemText) };
-    measures = found.value;
-  }
-  const ratio = measures === undefined || measures.phase === null ? undefined : measures.ratio;
-  const r0 = r0FromFit(fitted.fit, periodsOf(req.scenario), ratio);
-  if (!r0.ok) return { ok: false, problems: r0.problems.map(problemText) };
-  return { ok: true, value: { fit: fitted.fit, r0: r0.value, ...(measures === undefined ? {} : { measures }) } };
-}
-
-/** The fit record of an answer, for the scenario file and the report. */
-export function recordOf(answer: FitAnswer, sourceFile: string, startDate: string | null): FitRecord {
-  return fitRecordOf({ sourceFile, startDate, fit: answer.fit, r0: answer.r0, ...(answer.measures === undefined ? {} : { measures: answer.measures }) });
+  const result = fitCaseCounts({
+    series: req.series,
+    scenario: req.scenario,
+    sourceFile: req.fileName,
+    from: { day: req.fromDay },
+    to: { day: req.toDay },
+    family: req.family,
+    dayOfWeek: req.dayOfWeek,
+    measures: req.measuresOption === null ? null : { option: req.measuresOption },
+  });
+  return result.ok ? result : { ok: false, problems: result.problems };
 }
 
 /**
