@@ -26,7 +26,7 @@ export {
 export { prepareScenario, type PreparedScenario } from './prepare.ts';
 export { simulateOption, type SeriesDetail, type OptionRunSettings } from './simulate.ts';
 export { finalSizeByBand } from './finalSize.ts';
-export { dominantEigenvalue } from './ngm.ts';
+export { perronRoot, PerronRootNotSettled } from './perronRoot.ts';
 export { integratorStepsSoFar } from './dopri5.ts';
 export * from './healthcare/index.ts';
 export * from './vaccination/index.ts';

@@ -8,8 +8,8 @@
  * J R Soc Interface 7:873; van den Driessche & Watmough 2002, Math Biosci 180:29).
  * Erlang stage counts do not enter: only the mean time infectious does.
  */
-import { EigenvalueDecomposition, Matrix } from 'ml-matrix';
 import { rowTimes } from './dot.ts';
+import { perronRoot } from './perronRoot.ts';
 
 /** Writes K = D diag(S) M (row-major n x n) into `out`. */
 export function nextGenerationMatrixInto(out: Float64Array, transmission: Float64Array, susceptible: ArrayLike<number>, infectiousPeriodDays: number): Float64Array {
@@ -19,35 +19,6 @@ export function nextGenerationMatrixInto(out: Float64Array, transmission: Float6
     for (let j = 0; j < n; j++) out[i * n + j] = f * transmission[i * n + j];
   }
   return out;
-}
-
-/** Entries of K below this fraction of its largest entry are dropped before the eigen decomposition. */
-const NEGLIGIBLE_ENTRY = 1e-14;
-
-/**
- * Dominant eigenvalue (largest real part) of a square matrix, with ml-matrix's
- * EigenvalueDecomposition. For a non-negative K this is its spectral radius (Perron-Frobenius).
- */
-export function dominantEigenvalue(flat: Float64Array, n: number): number {
-  // A non-finite entry would make the QR iteration run forever; validated scenarios never give one.
-  let largest = 0;
-  for (let k = 0; k < flat.length; k++) {
-    if (!Number.isFinite(flat[k])) throw new Error('next-generation matrix has a non-finite entry');
-    largest = Math.max(largest, Math.abs(flat[k]));
-  }
-  if (largest === 0) return 0;
-  // Scaled to a largest entry of 1, with entries below NEGLIGIBLE_ENTRY of it set to 0. For a
-  // non-negative K, dropping entries E changes rho by at most ||E||, i.e. n * 1e-14 of the
-  // largest entry; without the cut, entries spanning hundreds of orders of magnitude (one contact
-  // of 1e200 among ordinary ones) make products underflow and the QR iteration, which has no
-  // iteration limit of its own, never converge.
-  const rows = Array.from({ length: n }, (_, i) =>
-    Array.from(flat.subarray(i * n, (i + 1) * n), (x) => (Math.abs(x) < NEGLIGIBLE_ENTRY * largest ? 0 : x / largest)),
-  );
-  const eig = new EigenvalueDecomposition(new Matrix(rows), { assumeSymmetric: false });
-  let best = -Infinity;
-  for (const v of eig.realEigenvalues) if (v > best) best = v;
-  return Math.max(0, best) * largest;
 }
 
 /**
@@ -61,7 +32,8 @@ export function dominantEigenvalue(flat: Float64Array, n: number): number {
  * caller can bracket rho for another row scale at the cost of n multiplications (reproduction.ts).
  * Used for R(t) day by day, where the previous day's vector is an excellent start; there
  * K = diag(rowScale) M is applied without being formed (rowScale_i = D S_i). Falls back to
- * `dominantEigenvalue` (ml-matrix) when the bracket does not close (a periodic or reducible K).
+ * `perronRoot` (bounded work, perronRoot.ts) when the bracket does not close in 300 steps (a
+ * periodic or reducible K, or a second eigenvalue close to the first).
  */
 export function spectralRadius(
   flat: Float64Array,
@@ -102,8 +74,8 @@ export function spectralRadius(
   }
   vector.fill(1 / n);
   if (product !== null) product.fill(0);
-  if (rowScale === null) return dominantEigenvalue(flat, n);
+  if (rowScale === null) return perronRoot(flat, n);
   const scaled = new Float64Array(n * n);
   for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) scaled[i * n + j] = rowScale[i] * flat[i * n + j];
-  return dominantEigenvalue(scaled, n);
+  return perronRoot(scaled, n);
 }

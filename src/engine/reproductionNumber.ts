@@ -10,7 +10,7 @@ import type { Phase, Scenario } from './scenario.ts';
 import { type BandParameters, transmissionMatrixInto } from './transmission.ts';
 
 /**
- * rho(D diag(S) M), certified to a relative 1e-12 by the Collatz-Wielandt bracket (ml-matrix is
+ * rho(D diag(S) M), certified to a relative 1e-12 by the Collatz-Wielandt bracket (perronRoot.ts is
  * the fallback inside `spectralRadius`). When `perronVector` (length n) is given it receives the
  * right Perron vector of K, normalised to sum 1.
  */

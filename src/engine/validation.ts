@@ -9,6 +9,7 @@ import type { z } from 'zod';
 import { type Calibration, calibrateTransmission, calibrationProblem } from './calibration.ts';
 import { healthcareProblems } from './healthcare/healthcareProblems.ts';
 import { lifeTableProblems } from './lifeExpectancy.ts';
+import { PerronRootNotSettled } from './perronRoot.ts';
 import { jsonValueProblems, readJsonText } from './jsonText.ts';
 import { formatPath, formatProblem, type Problem } from './problems.ts';
 import { isReservedName, strictInputProblems } from './strictInput.ts';
@@ -204,7 +205,13 @@ export function validateScenario(input: unknown): ValidationResult {
   if (strict.length > 0) return { ok: false, problems: strict };
   const problems = crossFieldProblems(parsed.data);
   if (problems.length > 0) return { ok: false, problems: listed(problems) };
-  const calibration = calibrateTransmission(parsed.data);
+  let calibration: Calibration;
+  try {
+    calibration = calibrateTransmission(parsed.data);
+  } catch (err) {
+    if (!(err instanceof PerronRootNotSettled)) throw err;
+    return { ok: false, problems: [{ path: 'settings', rule: `must give contacts R0 can be computed for: with these contacts and populations ${err.message}; look for values many orders of magnitude from the rest (such as 1e-300)` }] };
+  }
   const problem = calibrationProblem(parsed.data, calibration);
   return problem !== null ? { ok: false, problems: [problem] } : { ok: true, scenario: parsed.data, calibration };
 }

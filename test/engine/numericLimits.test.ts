@@ -7,8 +7,10 @@ import { settingMultipliers } from '../../src/engine/contacts.ts';
 import { dailyDelayWeights, regularizedLowerGamma } from '../../src/engine/distributions.ts';
 import { DEFAULT_TOLERANCES, Dopri5Workspace, integrate } from '../../src/engine/dopri5.ts';
 import { growthRateFromR } from '../../src/engine/growth.ts';
+import { profileLikelihoodInterval } from '../../src/engine/fitting/profileInterval.ts';
 import { runScenario } from '../../src/engine/index.ts';
-import { dominantEigenvalue, nextGenerationMatrixInto } from '../../src/engine/ngm.ts';
+import { nextGenerationMatrixInto } from '../../src/engine/ngm.ts';
+import { perronRoot } from '../../src/engine/perronRoot.ts';
 import { bandParameters, transmissionMatrixInto } from '../../src/engine/transmission.ts';
 import { demoScenario } from '../helpers/demo.ts';
 import type { Phase, ScenarioInput, Setting } from '../../src/engine/scenario.ts';
@@ -22,17 +24,29 @@ describe('engine numeric limits', () => {
   it('finds the dominant eigenvalue of a matrix whose entries span 200 orders of magnitude (it used to hang)', () => {
     // K = [[1e200, 1], [1, 2]]: rho = 1e200 to double precision (the off-diagonal coupling adds 1e-200 of it).
     const k = Float64Array.from([1e200, 1, 1, 2]);
-    expect(dominantEigenvalue(k, 2) / 1e200).toBeCloseTo(1, 12);
+    expect(perronRoot(k, 2) / 1e200).toBeCloseTo(1, 12);
     // The demo's K at beta = 1 with one contact of 1e200: the case that hung R0 calibration.
     const s = demoScenario();
     s.settings[0].contactsPerDay[0][0] = 1e200;
     const bp = bandParameters(s);
     const n = bp.bands;
     const kDemo = nextGenerationMatrixInto(new Float64Array(n * n), transmissionMatrixInto(new Float64Array(n * n), s, bp, 1, null), bp.population, s.disease.infectiousPeriodDays);
-    expect(dominantEigenvalue(kDemo, n) / kDemo[0]).toBeCloseTo(1, 12);
+    expect(perronRoot(kDemo, n) / kDemo[0]).toBeCloseTo(1, 12);
     // A triangular matrix: rho is the largest diagonal entry.
     const t = Float64Array.from([3, 1e-250, 0, 0, 1e-180, 7, 0, 0, 5]);
-    expect(dominantEigenvalue(t, 3)).toBeCloseTo(5, 12);
+    expect(perronRoot(t, 3)).toBeCloseTo(5, 12);
+  });
+
+  it('ends a profile-likelihood interval around an estimate of 1e7 (bisection to 1e-10 never ended where doubles are 2e-9 apart)', () => {
+    let evaluations = 0;
+    const profile = (v: number): number => {
+      evaluations++;
+      return -0.5 * ((v - 1e7) / 1e-3) ** 2;
+    };
+    const [lower, upper] = profileLikelihoodInterval(1e7, 0, 1e-3, profile);
+    expect(lower).toBeCloseTo(1e7 - 1.96e-3, 5);
+    expect(upper).toBeCloseTo(1e7 + 1.96e-3, 5);
+    expect(evaluations).toBeLessThanOrEqual(2 * (64 + 100));
   });
 
   it('gives finite delay weights for a shape near the top of double precision (they used to be NaN)', () => {

@@ -33,13 +33,16 @@ export function profileLikelihoodInterval(
     let step = Number.isFinite(standardError) && standardError > 0 ? standardError : 1e-3;
     let inner = estimate;
     let outer = estimate + direction * step;
-    while (!outside(outer)) {
-      if (Math.abs(outer - estimate) > SEARCH_LIMIT) return direction * Infinity;
+    // Doubling steps pass SEARCH_LIMIT within 64 steps from any step above 1e-3; a bound never
+    // found (or an estimate that is not a number) leaves that side open.
+    for (let k = 0; !outside(outer); k++) {
+      if (!(Math.abs(outer - estimate) <= SEARCH_LIMIT) || k >= 64) return direction * Infinity;
       inner = outer;
       step *= 2;
       outer = estimate + direction * step;
     }
-    while (Math.abs(outer - inner) > 1e-10) {
+    // Bisection: 100 halvings take any bracket below the spacing of doubles near the estimate.
+    for (let k = 0; k < 100 && Math.abs(outer - inner) > 1e-10; k++) {
       const mid = 0.5 * (inner + outer);
       if (outside(mid)) outer = mid;
       else inner = mid;
