@@ -206,10 +206,15 @@ export const scenarioSchema = z.object({
   disease: diseaseSchema,
   severity: severitySchema,
   initialState: initialStateSchema,
-  /** Optional: the calendar date of day 0 (ISO 8601, YYYY-MM-DD); every day shown then also shows its date. */
+  /**
+   * Optional: the calendar date of day 0 (ISO 8601, YYYY-MM-DD); every day shown then also shows its
+   * date. The JSON Schema says so with `format: "date"` (RFC 3339 full-date) and the pattern.
+   */
   startDate: z
     .string()
+    .regex(/^\d{4}-\d{2}-\d{2}$/, { message: 'must be a calendar date written YYYY-MM-DD', abort: true })
     .refine((text) => isoDateToEpochDay(text) !== null, { message: 'must be a calendar date written YYYY-MM-DD' })
+    .meta({ format: 'date', description: 'Calendar date of day 0, ISO 8601 YYYY-MM-DD.' })
     .optional(),
   horizonDays: z.number().int().min(1, { message: 'must be >= 1' }).max(3650, { message: 'must be <= 3650' }),
   /** Name of the option others are compared with; the first option if absent. */

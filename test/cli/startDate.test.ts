@@ -1,4 +1,5 @@
 /** Calendar dates: a scenario's optional start date puts dates beside day numbers in every output. */
+import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { formatProblem } from '../../src/engine/problems.ts';
 import { validateScenario } from '../../src/engine/validation.ts';
@@ -32,6 +33,15 @@ describe('startDate in the scenario', () => {
       if (!r.ok) expect(r.problems.map(formatProblem)).toEqual([`startDate must be a calendar date written YYYY-MM-DD, got "${bad}"`]);
     }
     expect(validateScenario({ ...demoJson(), startDate: '2028-02-29' }).ok).toBe(true);
+  });
+
+  it('is a full-date in the JSON Schema (format "date" and its pattern)', () => {
+    const schema = JSON.parse(readFileSync(new URL('../../docs/scenario.schema.json', import.meta.url), 'utf8'));
+    const startDate = schema.properties.startDate;
+    expect(startDate).toMatchObject({ type: 'string', format: 'date' });
+    const pattern = new RegExp(startDate.pattern);
+    expect(['2028-02-29', '2026-03-01'].every((d) => pattern.test(d))).toBe(true);
+    expect(['2026-3-1', '1/3/2026', '2026-03-01T00:00'].some((d) => pattern.test(d))).toBe(false);
   });
 
   it('gives peakDate = startDate + peakDay in the JSON, and null without a start date', () => {
