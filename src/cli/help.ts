@@ -37,13 +37,16 @@ Usage:
       option NAME has in force on the window's first day.
       A cases file that breaks a rule also exits with code 2.
   mixwise report FILE [--out PATH] [--format html|csv|pdf] [--series]
-          [--paper A4|Letter] [--landscape]
+          [--paper A4|Letter] [--landscape] [--orders OPTION [--minimise OUTCOME]
+          [--groups SPEC] [--top K] [--workers N]]
       The printable policy options report: summary of each option's measures, the options
       table, curves and by-age charts, assumptions with sources, cautions; every page shows
       the scenario fingerprint. Self-contained HTML by default; --out report.pdf prints it
       to PDF with a local Chromium (/usr/bin/chromium or $CHROMIUM_PATH; exit code 3 when
       none is found). --format csv gives the options table (one row per option), with
       --series the daily series (option, day, band, quantity, value).
+      --orders OPTION adds the comparison of vaccination orders for OPTION's campaign (the
+      search of 'mixwise orders', with its --minimise, --groups, --top and --workers).
   mixwise orders FILE --option NAME [--minimise deaths|infections|admissions|
           peakIcuOccupancy|yearsOfLifeLost] [--groups SPEC] [--top K] [--format table|json]
           [--method auto|exhaustive|heuristic] [--budget N] [--seed N] [--workers N]

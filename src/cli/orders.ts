@@ -51,12 +51,15 @@ import { HELP_TEXT } from './help.ts';
 import { groupThousands } from '../report/numberFormat.ts';
 import { onlyFile, splitWords, usageError } from './words.ts';
 
-interface OrdersArgs {
+/** What an order search needs from the command line (`orders`, and `report --orders`). */
+export interface OrdersArgs {
   file: string;
   option: string;
   outcome: string;
   groups: string | null;
   format: 'table' | 'json';
+  /** The flag that named the option, for messages (`--option`; `--orders` in a report). */
+  optionFlag?: string;
   /** Worker threads; null = one per core from POOL_GROUPS groups up, else 1. */
   workers: number | null;
   /** Draws for the shares of draws (with an uncertainty section); null = the section's own. */
@@ -104,7 +107,7 @@ function parseOrdersArgs(words: readonly string[]): OrdersArgs {
 
 /** The request's problems become one `mixwise: FILE: --name rule` line each and exit code 2. */
 function prepareRequest(scenario: Scenario, args: OrdersArgs): { job: OrderSearchJob; request: OrderSearchRequest } {
-  const flag: Record<string, string> = { option: '--option', outcome: '--minimise', groups: '--groups' };
+  const flag: Record<string, string> = { option: args.optionFlag ?? '--option', outcome: '--minimise', groups: '--groups' };
   let groups: number[][] | undefined;
   if (args.groups !== null) {
     const parsed = namedGroups(args.groups, scenario.ageBands.map((b) => b.lowerAgeYears)) ?? parseGroupSpec(args.groups);
@@ -184,6 +187,18 @@ async function orders(io: Output, words: readonly string[]): Promise<ExitCode> {
   const loaded = loadScenarioOrComplain(io, args.file);
   if (loaded === null) return EXIT_CODES.invalidScenario;
   const scenario = withDrawSettings(loaded.scenario, { draws: args.draws ?? undefined });
+  const comparison = await findOrderComparison(io, scenario, args);
+  if (comparison === null) return EXIT_CODES.cancelled;
+  io.out(args.format === 'json' ? jsonText(scenario, comparison) : tableText(scenario, comparison));
+  return EXIT_CODES.ok;
+}
+
+/**
+ * Searches the orders the arguments ask for, on the pool or this thread, with progress on stderr,
+ * and (with an uncertainty section) the shares of draws. Null when Ctrl-C stopped it (the line
+ * saying so is written); a request that does not fit the scenario throws a CliError (exit 2).
+ */
+export async function findOrderComparison(io: Output, scenario: Scenario, args: OrdersArgs): Promise<OrderComparison | null> {
   const { job, request } = prepareRequest(scenario, args);
   const settings = Object.fromEntries(Object.entries(args.settings).filter(([, v]) => v !== undefined)) as Partial<OrderSearchSettings>;
   const threads = args.workers ?? (job.groups.length >= POOL_GROUPS ? availableParallelism() : 1);
@@ -210,12 +225,8 @@ async function orders(io: Output, words: readonly string[]): Promise<ExitCode> {
     pool?.close();
     progress.clear();
   }
-  if (comparison === null) {
-    io.err(`mixwise: orders: stopped by Ctrl-C${evaluated === null ? '' : ` after ${evaluated.toLocaleString('en')} orders simulated`}; nothing written\n`);
-    return EXIT_CODES.cancelled;
-  }
-  io.out(args.format === 'json' ? jsonText(scenario, comparison) : tableText(scenario, comparison));
-  return EXIT_CODES.ok;
+  if (comparison === null) io.err(`mixwise: orders: stopped by Ctrl-C${evaluated === null ? '' : ` after ${evaluated.toLocaleString('en')} orders simulated`}; nothing written\n`);
+  return comparison;
 }
 
 /** The top orders under every draw of the scenario's uncertainty section (seed as `mixwise run`), on the pool or this thread. */

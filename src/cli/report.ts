@@ -2,7 +2,8 @@
  * `mixwise report FILE`: the printable policy options report as self-contained HTML (default),
  * as PDF printed by a local Chromium (--out report.pdf), or as CSV (--format csv: the options
  * table; with --series: the daily series in long format). Output goes to --out, written
- * atomically, or to the screen (HTML and CSV only).
+ * atomically, or to the screen (HTML and CSV only). With --orders OPTION, the report also prints
+ * the comparison of vaccination orders for that option's campaign (the search of `mixwise orders`).
  */
 import packageJson from '../../package.json' with { type: 'json' };
 import { runScenario } from '../engine/index.ts';
@@ -12,6 +13,7 @@ import { EXIT_CODES, reportFault, type ExitCode } from './errors.ts';
 import { writeFileAtomically } from './files.ts';
 import { parseReportArgs, type ReportArgs } from './reportArgs.ts';
 import { findChromium, printHtmlToPdf } from './reportPdf.ts';
+import { findOrderComparison } from './orders.ts';
 
 export interface ReportContext {
   /** Environment (CHROMIUM_PATH). */
@@ -28,6 +30,8 @@ async function report(io: Output, args: ReportArgs, context: ReportContext): Pro
   const loaded = loadScenarioOrComplain(io, args.file);
   if (loaded === null) return EXIT_CODES.invalidScenario;
   const { scenario } = loaded;
+  const orderComparison = args.orders === null ? undefined : await findOrderComparison(io, scenario, { file: args.file, ...args.orders, optionFlag: '--orders', format: 'table', draws: null, settings: args.orders.top === undefined ? {} : { top: args.orders.top } });
+  if (orderComparison === null) return EXIT_CODES.cancelled;
   const results = runScenario(scenario, loaded.calibration);
   const fingerprint = await scenarioFingerprint(scenario, packageJson.version);
   const source = { fingerprint, appVersion: packageJson.version };
@@ -40,6 +44,7 @@ async function report(io: Output, args: ReportArgs, context: ReportContext): Pro
       fingerprint,
       paper: args.paper,
       orientation: args.orientation,
+      ...(orderComparison === undefined ? {} : { orderComparison }),
     });
   }
   if (args.out === null) io.out(text);

@@ -1,6 +1,7 @@
 /**
  * Arguments of `mixwise report FILE [--out PATH] [--format html|csv|pdf] [--series]
- * [--paper A4|Letter] [--landscape]`. Without --format, the format follows the --out file's
+ * [--paper A4|Letter] [--landscape] [--orders OPTION [--minimise OUTCOME] [--groups SPEC]
+ * [--top K] [--workers N]]`. Without --format, the format follows the --out file's
  * extension (.pdf, .csv), else HTML. Mistakes are `CliError`s with exit code `usage`.
  */
 import { PAPERS, type Orientation, type Paper } from '../report/index.ts';
@@ -17,9 +18,44 @@ export interface ReportArgs {
   series: boolean;
   paper: Paper;
   orientation: Orientation;
+  /** HTML and PDF: include the order comparison of this search (`--orders OPTION` and the search's own options). */
+  orders: ReportOrders | null;
 }
 
-const VALUE_OPTIONS = ['--out', '--format', '--paper'];
+export interface ReportOrders {
+  option: string;
+  outcome: string;
+  groups: string | null;
+  top: number | undefined;
+  workers: number | null;
+}
+
+const VALUE_OPTIONS = ['--out', '--format', '--paper', '--orders', '--minimise', '--groups', '--top', '--workers'];
+const ORDER_SEARCH_OPTIONS = ['--minimise', '--groups', '--top', '--workers'];
+
+function wholeNumber(name: string, text: string | undefined, min: number): number | undefined {
+  if (text === undefined) return undefined;
+  const x = Number(text);
+  if (!(Number.isInteger(x) && x >= min)) throw usageError(`${name} must be a whole number >= ${min}, got ${JSON.stringify(text)}`);
+  return x;
+}
+
+function ordersOf(values: Map<string, string>, format: ReportFormat): ReportOrders | null {
+  const option = values.get('--orders');
+  if (option === undefined) {
+    const stray = ORDER_SEARCH_OPTIONS.find((o) => values.has(o));
+    if (stray !== undefined) throw usageError(`${stray} goes with --orders OPTION`);
+    return null;
+  }
+  if (format === 'csv') throw usageError('--orders goes with an HTML or PDF report');
+  return {
+    option,
+    outcome: values.get('--minimise') ?? 'deaths',
+    groups: values.get('--groups') ?? null,
+    top: wholeNumber('--top', values.get('--top'), 1),
+    workers: wholeNumber('--workers', values.get('--workers'), 1) ?? null,
+  };
+}
 const FLAGS = ['--series', '--landscape'];
 
 function formatFromOut(out: string | null): ReportFormat {
@@ -47,5 +83,6 @@ export function parseReportArgs(words: readonly string[]): ReportArgs {
     series,
     paper: paper as Paper,
     orientation: flags.has('--landscape') ? 'landscape' : 'portrait',
+    orders: ordersOf(values, format as ReportFormat),
   };
 }

@@ -11,6 +11,8 @@ export { parameterRows, bandTable, HOSPITAL_DEFAULT_SOURCE, DELAY_DEFAULT_SOURCE
 export { CAUTION, CAUTION_PARAGRAPHS, MODEL_LIMITS } from './cautions.ts';
 export { optionStyle, optionStyleOf, OPTION_COLOURS, type OptionStyle } from './palette.ts';
 export { fitRecordRows, FIT_SOURCE, R0_CHANGED_AFTER_FIT } from './fitRecord.ts';
+export { orderComparisonHtml, drawsSentence } from './orderComparisonHtml.ts';
+export { gapText, groupLabel, orderText } from './orderText.ts';
 export * from './numberFormat.ts';
 export * from './outcomes.ts';
 export { PAPERS, OPTION_COLUMNS_PER_TABLE, type Paper, type Orientation, type ReportMeta, type ParameterRow, type BandTable } from './reportTypes.ts';

@@ -53,6 +53,8 @@ caption { caption-side: top; text-align: left; font-weight: bold; padding: 2pt 0
 .options-table tbody th { white-space: nowrap; }
 .options-table th.option { overflow-wrap: anywhere; }
 .options-table .swatch { display: block; margin: 0 0 1pt auto; }
+.orders-table { font-size: 8pt; }
+.order-comparison { break-inside: avoid; }
 .notes { font-size: 8.5pt; color: #222; }
 .chart-block { break-inside: avoid; margin: 0 0 10pt; }
 .chart { width: 100%; height: auto; display: block; }

@@ -13,6 +13,7 @@ import { FIT_SOURCE, R0_CHANGED_AFTER_FIT } from './fitRecord.ts';
 import { shortFingerprint } from './fingerprint.ts';
 import { optionSummaries, type OptionSummary, TRIGGER_RULE_WORDS } from './measures.ts';
 import { columnGroups, optionsTable, type OptionsTable } from './optionsTable.ts';
+import { orderComparisonHtml } from './orderComparisonHtml.ts';
 import { optionStyleOf } from './palette.ts';
 import { printCss } from './printCss.ts';
 import { OPTION_COLUMNS_PER_TABLE, type ParameterRow, type ReportMeta } from './reportTypes.ts';
@@ -137,6 +138,7 @@ ${scenario.options.some((o) => o.phases.some((p) => p.trigger !== undefined)) ? 
 <h2>2. Policy options table</h2>
 ${optionsTableHtml(table, OPTION_COLUMNS_PER_TABLE[meta.orientation], styleOf)}
 <div class="notes">${table.notes.map((n) => `<p>${esc(n)}</p>`).join('')}</div>
+${meta.orderComparison === undefined ? '' : orderComparisonHtml(meta.orderComparison, scenario)}
 </section>
 <section id="curves">
 <h2>3. Curves over time</h2>

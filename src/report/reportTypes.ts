@@ -1,4 +1,5 @@
 /** Types the report's modules share: page settings, report metadata and table rows. */
+import type { OrderComparison } from '../engine/index.ts';
 
 /** One row of the assumptions table: an input parameter with its value, unit and source. */
 export interface ParameterRow {
@@ -35,6 +36,12 @@ export interface ReportMeta {
    * app does, where an option keeps its colour for life. Absent: options are styled by position.
    */
   colourSlots?: readonly number[];
+  /**
+   * Optional vaccination order comparison to print with the options table. It must have been
+   * found for this very scenario (the caller checks), since the fingerprint printed covers the
+   * scenario only.
+   */
+  orderComparison?: OrderComparison;
 }
 
 /**

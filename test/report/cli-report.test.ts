@@ -17,6 +17,36 @@ async function cli(...argv: string[]) {
   return { code, stdout, stderr };
 }
 
+describe('mixwise report --orders', () => {
+  it('prints the order comparison with the options table, under the same fingerprint and caution', { timeout: 60_000 }, async () => {
+    const r = await cli('report', DEMO, '--orders', 'Vaccinate oldest first', '--minimise', 'infections', '--groups', '0-3,4-11,12-15', '--top', '2');
+    expect(r.code).toBe(0);
+    const html = r.stdout;
+    const section = html.slice(html.indexOf('<section id="orders"'), html.indexOf('</section>', html.indexOf('<section id="orders"')));
+    expect(section).toContain('Vaccination orders compared');
+    expect(section).toContain('campaign "Autumn campaign" of option "Vaccinate oldest first"');
+    expect(section).toContain('lowest infections');
+    expect(section).toContain('Groups: 0-19, 20-59, 60+.');
+    expect(section).toContain('Exhaustive: all 6 orders of 3 groups');
+    expect(section).toMatch(/Best 2 of 6 orders \(\d+ simulated\)/);
+    expect(section).toMatch(/<tr data-row="order-0"><th scope="row">1\. 20-59 &gt; /);
+    expect(section).toContain('Built-in orders');
+    expect(section).toMatch(/Oldest first: 60\+ &gt; 20-59 &gt; 0-19<\/th><td class="num">[\d,]+<\/td><td class="num">\+[\d,]+<\/td>/);
+    expect(section).not.toContain('Best in draws');
+    const fingerprint = await scenarioFingerprint(demo().scenario, packageJson.version);
+    expect(html).toContain(fingerprint);
+    expect(html.indexOf('id="table"')).toBeLessThan(html.indexOf('id="orders"'));
+  });
+
+  it('refuses search options without --orders, --orders with CSV, and an unknown option naming --orders', async () => {
+    expect((await cli('report', DEMO, '--minimise', 'deaths')).stderr).toMatch(/--minimise goes with --orders OPTION/);
+    expect((await cli('report', DEMO, '--orders', 'Vaccinate oldest first', '--format', 'csv')).code).toBe(1);
+    const r = await cli('report', DEMO, '--orders', 'Nope');
+    expect(r.code).toBe(2);
+    expect(r.stderr).toMatch(/^mixwise: [^\n]*--orders must name a policy option of the scenario[^\n]*\n$/);
+  });
+});
+
 describe('mixwise report', () => {
   it('writes a self-contained HTML report with the fingerprint of the scenario and version', async () => {
     const out = join(tempDir(), 'report.html');
