@@ -26,8 +26,9 @@ export function nextGenerationMatrixInto(out: Float64Array, transmission: Float6
  * (length n, non-negative): x_{k+1} = K x_k / |K x_k|_1.
  * Stops on the Collatz-Wielandt bracket: for x > 0, min_i (Kx)_i / x_i <= rho <= max_i (Kx)_i / x_i
  * (Horn & Johnson 2013, Matrix Analysis, 2nd ed., Thm 8.1.26), once it is narrower than
- * `relativeTolerance` (default 1e-7, ample for a daily R(t)); rows with x_i = 0 (no susceptibles
- * or no susceptibility) have no say. On return `vector` holds the x_k whose bracket closed (an
+ * `relativeTolerance` (default 1e-7, ample for a daily R(t)); rows with x_i = 0 and (Kx)_i = 0
+ * (no susceptibles or no susceptibility) have no say, while x_i = 0 with (Kx)_i > 0 makes the
+ * upper bound infinite, so a warm start with a zero entry is iterated, never taken as certified. On return `vector` holds the x_k whose bracket closed (an
  * approximate Perron vector) and, when given, `product` holds M x_k without the row scale, so a
  * caller can bracket rho for another row scale at the cost of n multiplications (reproduction.ts).
  * Used for R(t) day by day, where the previous day's vector is an excellent start; there
@@ -65,10 +66,12 @@ export function spectralRadius(
         const ratio = acc / vector[i];
         if (ratio < low) low = ratio;
         if (ratio > high) high = ratio;
+      } else if (acc > 0) {
+        high = Infinity;
       }
     }
     if (total === 0) return 0;
-    if (high - low <= relativeTolerance * high) return 0.5 * (low + high);
+    if (high < Infinity && high - low <= relativeTolerance * high) return 0.5 * (low + high);
     const inverse = 1 / total;
     for (let i = 0; i < n; i++) vector[i] = scratch[i] * inverse;
   }

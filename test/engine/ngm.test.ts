@@ -41,6 +41,18 @@ describe('dominant eigenvalue of the next-generation matrix', () => {
     }
   });
 
+  it('power iteration never certifies a start vector with a zero entry the matrix fills', () => {
+    // [[1, 2], [3, 4]]: rho = (5 + sqrt 33) / 2 [derived]. From e_1 the one positive entry's ratio
+    // is 1 = M_11, a bracket of width zero over the positive entries only; the second row's
+    // (Kx)_2 = 3 > 0 against x_2 = 0 makes the upper bound infinite, so iteration goes on.
+    const flat = new Float64Array([1, 2, 3, 4]);
+    const rho = (5 + Math.sqrt(33)) / 2;
+    expect(Math.abs(spectralRadius(flat, 2, new Float64Array([1, 0]), new Float64Array(2), 1e-12) - rho) / rho).toBeLessThan(1e-11);
+    // A band with no susceptibles (row scale 0) keeps its zero entry and still has no say.
+    const scaled = spectralRadius(flat, 2, new Float64Array([1, 0]), new Float64Array(2), 1e-12, new Float64Array([1, 0]));
+    expect(scaled).toBeCloseTo(1, 12);
+  });
+
   // Demo contacts with relative susceptibility and infectiousness that differ by band, so that K
   // written out from the formula (test/helpers/byHand.ts), not the engine's transmission matrix,
   // is what mathjs checks.
