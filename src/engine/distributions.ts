@@ -92,8 +92,7 @@ export function dailyDelayWeights(meanDays: number, shape: number, length: numbe
  */
 export function convolve(series: Float64Array, weights: Float64Array): Float64Array {
   const days = series.length;
-  let last = weights.length;
-  while (last > 0 && weights[last - 1] < 1e-16) last--;
+  const last = usedLength(weights);
   const out = new Float64Array(days);
   // Day by day, summing over a ascending (the order healthcare/online.ts uses, so a trigger reads
   // the same bits): one accumulator per day instead of a store per product.
@@ -103,4 +102,34 @@ export function convolve(series: Float64Array, weights: Float64Array): Float64Ar
     out[d] = acc;
   }
   return out;
+}
+
+/** Index past the last weight of at least 1e-16 (the tail `convolve` skips). */
+function usedLength(weights: Float64Array): number {
+  let last = weights.length;
+  while (last > 0 && weights[last - 1] < 1e-16) last--;
+  return last;
+}
+
+/**
+ * `convolve(x1, w)` and `convolve(x2, w)` in one pass over the weights, the same bits as two calls:
+ * two series through the same delay (e.g. admissions of ward-only and ICU patients).
+ */
+export function convolveTwo(x1: Float64Array, x2: Float64Array, weights: Float64Array): [Float64Array, Float64Array] {
+  const days = x1.length;
+  const last = usedLength(weights);
+  const out1 = new Float64Array(days);
+  const out2 = new Float64Array(days);
+  for (let d = 0; d < days; d++) {
+    let acc1 = 0;
+    let acc2 = 0;
+    for (let a = d - last + 1 > 0 ? d - last + 1 : 0; a <= d; a++) {
+      const w = weights[d - a];
+      acc1 += x1[a] * w;
+      acc2 += x2[a] * w;
+    }
+    out1[d] = acc1;
+    out2[d] = acc2;
+  }
+  return [out1, out2];
 }

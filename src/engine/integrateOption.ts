@@ -16,7 +16,7 @@ import type { PreparedCampaign } from './vaccination/prepareCampaign.ts';
  */
 export interface DailyState {
   susceptible: Float64Array;
-  /** S + W + s P: susceptibles weighted by risk, for R(t) (equals S without vaccination). */
+  /** S + W + s P: susceptibles weighted by risk, for R(t) (without vaccination the same array as `susceptible`). */
   effectiveSusceptible: Float64Array;
   /** E + I. */
   prevalence: Float64Array;
@@ -72,9 +72,11 @@ export function integrateOption(
   const s0 = p.initialSusceptible;
   const risk = campaign === null ? 1 : protectedRisk(campaign.vaccine);
   const rows = (H + 1) * n;
+  const susceptibleRows = new Float64Array(rows);
   const daily: DailyState = {
-    susceptible: new Float64Array(rows),
-    effectiveSusceptible: new Float64Array(rows),
+    susceptible: susceptibleRows,
+    // Without vaccination S_eff = S: the same array.
+    effectiveSusceptible: campaign === null ? susceptibleRows : new Float64Array(rows),
     prevalence: new Float64Array(rows),
     cumulative: new Float64Array(rows),
     protectedCumulative: new Float64Array(rows),
@@ -98,8 +100,6 @@ export function integrateOption(
         effectiveSusceptible[base + i] = eff > 0 ? eff : 0;
         const xp = y[oXp + i];
         protectedCumulative[base + i] = xp > 0 ? xp : 0;
-      } else {
-        effectiveSusceptible[base + i] = s > 0 ? s : 0;
       }
     }
   };
@@ -110,7 +110,8 @@ export function integrateOption(
   const rhs = seirRightHandSide(L, p.periods.latentPeriodDays, p.periods.infectiousPeriodDays, transmission, campaign?.vaccine ?? null, doseRates, counters);
   const ws = new Dopri5Workspace(y.length);
   const tolerances = { ...DEFAULT_TOLERANCES, ...accuracy, maxStep: largestStableStep(p, campaign) };
-  const days = Float64Array.from({ length: H }, (_, d) => d + 1);
+  const days = new Float64Array(H);
+  for (let d = 0; d < H; d++) days[d] = d + 1;
   const dense = denseComponentsOf(L);
   let step = 0.25;
   if (triggered === null) {

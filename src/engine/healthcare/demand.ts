@@ -17,12 +17,13 @@
  * its size (no hospital compartments per band and per Erlang stage).
  *
  * Cost: bands with the same delays are summed before convolving (prepare.ts), so with one set of
- * delays an option costs five convolutions of the horizon with short (tail-trimmed) kernels.
+ * delays an option costs five convolutions of the horizon with short (tail-trimmed) kernels, the
+ * two admission convolutions in one pass (`convolveTwo`).
  *
  * Admissions and occupancy cover days 0..H-1; admissions of the horizon's infections that fall
  * after the horizon are not counted in `admissions` (see `OptionResults.healthcare`).
  */
-import { convolve } from '../distributions.ts';
+import { convolve, convolveTwo } from '../distributions.ts';
 import type { HealthcareOutcomes } from '../results.ts';
 import { bedDemand } from './capacity.ts';
 import type { DelayGroup, PreparedHealthcare } from './prepareHealthcare.ts';
@@ -70,8 +71,7 @@ export function healthcareDemand(h: PreparedHealthcare, incidence: Float64Array)
   const wardOnlyAdmissionsByBand = new Array<number>(n).fill(0);
 
   for (const g of h.groups) {
-    const wardOnly = convolve(groupSum(incidence, n, g.bands, h.wardOnlyRatio), g.admission);
-    const icu = convolve(groupSum(incidence, n, g.bands, h.icuRatio), g.admission);
+    const [wardOnly, icu] = convolveTwo(groupSum(incidence, n, g.bands, h.wardOnlyRatio), groupSum(incidence, n, g.bands, h.icuRatio), g.admission);
     addInto(admissions, wardOnly);
     addInto(admissions, icu);
     addInto(icuAdmissions, icu);
