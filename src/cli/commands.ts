@@ -6,7 +6,7 @@
 import { formatProblem, parseScenarioText, reciprocityBySetting, runScenarioSummary, type Calibration, type DrawResult, type Scenario, type ScenarioSummary, type ValidationResult } from '../engine/index.ts';
 import type { DrawOptions, OutputFormat } from './args.ts';
 import { mergeParts, partFileText } from './drawParts.ts';
-import { computeDraws, scenarioForDraws, summarise } from './uncertainty.ts';
+import { computeDraws, computeDrawsOnThreads, drawThreadsFor, scenarioForDraws, summarise } from './uncertainty.ts';
 import { DRAW_OUTCOME_KEYS } from '../report/drawOutcomes.ts';
 import { EXIT_CODES, type ExitCode } from './errors.ts';
 import { readTextFile, writeFileAtomically } from './files.ts';
@@ -47,10 +47,22 @@ function write(io: Output, out: string | null, text: string): void {
   else writeFileAtomically(out, text);
 }
 
-/** The options report of a scenario, with the summary of its draws when it has an uncertainty section. */
+/** The options report of a scenario, with the summary of its draws (draws 0..N-1 in order) when it has an uncertainty section. */
 function reportText(scenario: Scenario, calibration: Calibration | undefined, format: OutputFormat, draws: () => DrawResult[]): string {
   const summary = scenario.uncertainty === undefined ? undefined : summarise(scenario, draws());
   return formatReport(runScenarioSummary(scenario, calibration), format, csvSourceOf(scenario), summary);
+}
+
+/** The draws `run` computes: the `--draw-range` slice, else all of them. */
+function drawRangeOf(scenario: Scenario, drawOptions: DrawOptions): { from: number; to: number } {
+  return drawOptions.range ?? { from: 0, to: scenario.uncertainty?.draws ?? 0 };
+}
+
+/** What `run` writes once its draws are computed: a part file for a `--draw-range` slice, else the report. */
+function drawRunText(scenario: Scenario, calibration: Calibration, format: OutputFormat, drawOptions: DrawOptions, results: DrawResult[]): string {
+  const range = drawOptions.range;
+  if (range !== undefined) return partFileText(scenario, DRAW_OUTCOME_KEYS, range.from, range.to, results);
+  return reportText(scenario, calibration, format, () => results);
 }
 
 /** `run` on this thread; with an uncertainty section, also its draws (or the slice `--draw-range` asks for). */
@@ -58,12 +70,9 @@ export function runCommand(io: Output, file: string, format: OutputFormat, out: 
   const loaded = loadScenarioOrComplain(io, file);
   if (loaded === null) return EXIT_CODES.invalidScenario;
   const scenario = scenarioForDraws(loaded.scenario, drawOptions);
-  const range = drawOptions.range;
-  if (range !== undefined) {
-    write(io, out, partFileText(scenario, DRAW_OUTCOME_KEYS, range.from, range.to, computeDraws(scenario, range.from, range.to)));
-    return EXIT_CODES.ok;
-  }
-  write(io, out, reportText(scenario, loaded.calibration, format, () => computeDraws(scenario, 0, scenario.uncertainty?.draws ?? 0)));
+  if (scenario.uncertainty === undefined) return writeResults(io, scenario, runScenarioSummary(scenario, loaded.calibration), format, out);
+  const { from, to } = drawRangeOf(scenario, drawOptions);
+  write(io, out, drawRunText(scenario, loaded.calibration, format, drawOptions, computeDraws(scenario, from, to)));
   return EXIT_CODES.ok;
 }
 
@@ -74,13 +83,19 @@ export function mergeCommand(io: Output, files: readonly string[], format: Outpu
   return EXIT_CODES.ok;
 }
 
-/** `run` with the options spread over worker threads when there are many (runOnPool.ts); the same output. */
+/**
+ * `run` with the options, or the draws, spread over worker threads when there are many
+ * (runOnPool.ts, uncertainty.ts); the same output as `runCommand`.
+ */
 export async function runCommandOnThreads(io: Output, file: string, format: OutputFormat, out: string | null, workers: number | null, drawOptions: DrawOptions = {}): Promise<ExitCode> {
   const loaded = loadScenarioOrComplain(io, file);
   if (loaded === null) return EXIT_CODES.invalidScenario;
-  // Uncertainty draws still run on this thread (the pool for draws is not wired yet).
-  if (loaded.scenario.uncertainty !== undefined || Object.keys(drawOptions).length > 0) return runCommand(io, file, format, out, drawOptions);
-  return writeResults(io, loaded.scenario, await runOnThreads(loaded.scenario, loaded.calibration, threadsFor(loaded.scenario, workers)), format, out);
+  const scenario = scenarioForDraws(loaded.scenario, drawOptions);
+  if (scenario.uncertainty === undefined) return writeResults(io, scenario, await runOnThreads(scenario, loaded.calibration, threadsFor(scenario, workers)), format, out);
+  const { from, to } = drawRangeOf(scenario, drawOptions);
+  const results = await computeDrawsOnThreads(scenario, from, to, drawThreadsFor(to - from, workers));
+  write(io, out, drawRunText(scenario, loaded.calibration, format, drawOptions, results));
+  return EXIT_CODES.ok;
 }
 
 export function checkCommand(io: Output, file: string): ExitCode {

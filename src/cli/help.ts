@@ -2,6 +2,7 @@
 import { OUTPUT_FORMATS } from './args.ts';
 import { CAUTION } from '../report/index.ts';
 import { POOL_THRESHOLD } from './runOnPool.ts';
+import { DRAW_POOL_THRESHOLD } from './uncertainty.ts';
 
 export const HELP_TEXT = `mixwise - compare public-health policy options with an age-structured SEIR model
 
@@ -17,6 +18,7 @@ Usage:
       parameters (--draws and --seed override the file), giving intervals of every outcome,
       the chance each option does better than the reference or best, and the PRCC of each
       parameter. --draw-range A:B computes draws A to B-1 only and writes a part file.
+      The draws use --workers N threads (default: one per core from ${DRAW_POOL_THRESHOLD} draws up).
   mixwise merge PART... [--out PATH] [--format json|table|md|csv]
       Combine the part files of one scenario into exactly the output of a single run
       (default format: json). The parts may come from other processes or machines.

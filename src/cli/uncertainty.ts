@@ -4,11 +4,16 @@
  * `--draw-range` against the scenario. Without a section and without these options nothing here
  * runs and the output is unchanged.
  */
-import { evaluateDrawRange, prepareDraws, summariseDraws, withDrawSettings, type DrawResult, type Scenario, type SensitivityEntry, type UncertaintyResults, type UncertaintyRun } from '../engine/index.ts';
+import { availableParallelism } from 'node:os';
+import { drawRangeOnPool, drawTasks, evaluateDrawRange, prepareDraws, summariseDraws, withDrawSettings, type DrawResult, type Scenario, type SensitivityEntry, type UncertaintyResults, type UncertaintyRun } from '../engine/index.ts';
 import { catalogueReader, DRAW_OUTCOME_KEYS } from '../report/drawOutcomes.ts';
 import type { DrawOptions } from './args.ts';
 import { usageError } from './words.ts';
 import type { OptionsReport } from './optionsReport.ts';
+import { nodeWorkerPool } from './workerThreads.ts';
+
+/** From this many draws up, `run` spreads the draws over one thread per core by default (a thread takes a moment to start). */
+export const DRAW_POOL_THRESHOLD = 64;
 
 /** Whether the run computes draws: the scenario has an uncertainty section. */
 export function hasDraws(s: Scenario): boolean {
@@ -31,6 +36,23 @@ export function scenarioForDraws(s: Scenario, options: DrawOptions): Scenario {
 /** Draws from..to-1 of the scenario, in this thread. */
 export function computeDraws(s: Scenario, from: number, to: number): DrawResult[] {
   return evaluateDrawRange(prepareDraws(s), from, to, catalogueReader);
+}
+
+/** Threads for `count` draws: `workers` when given, else one per core from DRAW_POOL_THRESHOLD draws up, else 1. */
+export function drawThreadsFor(count: number, workers: number | null): number {
+  if (workers !== null) return workers;
+  return count >= DRAW_POOL_THRESHOLD ? availableParallelism() : 1;
+}
+
+/** Draws from..to-1 of the scenario on `threads` worker threads (this thread when 1): the same results as `computeDraws`. */
+export async function computeDrawsOnThreads(s: Scenario, from: number, to: number, threads: number): Promise<DrawResult[]> {
+  if (threads <= 1) return computeDraws(s, from, to);
+  const pool = nodeWorkerPool(Math.min(threads, drawTasks(from, to).length));
+  try {
+    return await drawRangeOnPool(pool, s, catalogueReader, from, to);
+  } finally {
+    pool.close();
+  }
 }
 
 /** The summary of all draws of the scenario (results = draws 0..N-1 in order). */

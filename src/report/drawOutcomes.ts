@@ -3,13 +3,13 @@
  * for every draw and option, under its JSON key, so intervals cover every number of the options
  * table and are keyed as `mixwise run --format json` keys its outcomes.
  */
-import type { OptionResults, OutcomeReader, ScenarioResults } from '../engine/index.ts';
+import type { OptionSummary, OutcomeReader, ScenarioSummary } from '../engine/index.ts';
 import { OUTCOMES } from './outcomes.ts';
 
 export const DRAW_OUTCOME_KEYS: readonly string[] = OUTCOMES.map((o) => o.key);
 
 /** The results of one draw in the shape the catalogue reads (only options and reference are used). */
-function drawResults(options: readonly OptionResults[], referenceIndex: number): ScenarioResults {
+function drawResults(options: readonly OptionSummary[], referenceIndex: number): ScenarioSummary {
   return { title: '', ageBands: [], horizonDays: 0, r0: Number.NaN, beta: Number.NaN, referenceIndex, options: [...options], reciprocity: [], revision: '', startDate: null };
 }
 

@@ -11,6 +11,7 @@ import { prepareScenario, type PreparedScenario } from '../prepare.ts';
 import type { OptionResults, OptionSummary } from '../results.ts';
 import type { PolicyOption, Scenario } from '../scenario.ts';
 import { simulateOption } from '../simulate.ts';
+import { prepareDraws, runDrawRange, type DrawRange, type DrawRun, type PreparedDraws } from '../uncertainty/drawOutcomes.ts';
 import { ordersInfo, type OrdersInfo } from '../vaccination/ordersInfo.ts';
 import { evaluateOrder, type OrderEvaluation, type OrderSearchJob } from '../vaccination/orderEvaluation.ts';
 import { orderSearchJobOf, type OrderEvaluationContext } from '../vaccination/orderJob.ts';
@@ -73,9 +74,21 @@ const orderDraws: Job<OrderDrawsContext, PreparedOrderDraws, number, OrderDrawRe
   transferables: () => [],
 };
 
+/**
+ * Uncertainty draws: context = a scenario with an `uncertainty` section, task = a range of draw
+ * indices; each draw runs every option as a summary run (drawOutcomes.ts `runDraw`: no daily
+ * series, so there is nothing worth transferring). The caller reads the outcomes in draw order (drawsOnPool.ts).
+ */
+const drawRuns: Job<Scenario, PreparedDraws, DrawRange, DrawRun[]> = {
+  prepare: (scenario) => prepareDraws(scenario),
+  run: (prepared, range) => runDrawRange(prepared, range.from, range.to),
+  transferables: () => [],
+};
+
 export const JOBS = {
   optionRuns,
   optionSummaries,
+  drawRuns,
   ordersInfo: ordersInfoJob,
   orderEvaluations,
   orderDraws,

@@ -9,7 +9,7 @@
  */
 import { compareWithReference, referenceIndexOf } from '../reference.ts';
 import { prepareScenario, type PreparedScenario } from '../prepare.ts';
-import type { OptionResults } from '../results.ts';
+import type { OptionResults, OptionSummary } from '../results.ts';
 import type { PolicyOption, Scenario } from '../scenario.ts';
 import { simulateOption } from '../simulate.ts';
 import { formatProblem } from '../problems.ts';
@@ -27,7 +27,13 @@ import type { Uncertainty } from './schema.ts';
 export interface OutcomeReader {
   keys: readonly string[];
   /** Values of option `k` in `keys` order; NaN where the outcome does not exist for it. */
-  read(options: readonly OptionResults[], k: number, referenceIndex: number): Float64Array;
+  read(options: readonly OptionSummary[], k: number, referenceIndex: number): Float64Array;
+}
+
+/** A slice of the draws: from..to-1 (a task of the pool's `drawRuns` job). */
+export interface DrawRange {
+  from: number;
+  to: number;
 }
 
 /** Everything the draw loop shares: built once per process (or worker) from the scenario. */
@@ -56,6 +62,13 @@ export type DrawResult =
   | { draw: number; ok: true; /** One outcome vector per option (the reader's keys, NaN = none). */ outcomes: Float64Array[] }
   | { draw: number; ok: false; reason: string };
 
+/**
+ * One draw run through every option, before its outcomes are read: what the pool's `drawRuns`
+ * job sends back (src/engine/pool/jobs.ts). Summary runs (no daily series: no outcome of a draw
+ * reads them), each compared with the reference of the same draw.
+ */
+export type DrawRun = { draw: number; ok: true; options: OptionSummary[] } | { draw: number; ok: false; reason: string };
+
 /** The scenario of draw i, prepared for running, or the rule it breaks. */
 export function preparedScenarioOfDraw(p: PreparedDraws, draw: number): { ok: true; prepared: PreparedScenario } | { ok: false; reason: string } {
   const values = parameterValues(p, draw);
@@ -65,22 +78,44 @@ export function preparedScenarioOfDraw(p: PreparedDraws, draw: number): { ok: tr
   return { ok: true, prepared: prepareScenario(checked.scenario, checked.calibration) };
 }
 
-function failure(draw: number, err: unknown): DrawResult {
-  return { draw, ok: false, reason: `the run failed: ${err instanceof Error ? err.message.split('\n')[0] : String(err)}` };
+function failureReason(err: unknown): string {
+  return `the run failed: ${err instanceof Error ? err.message.split('\n')[0] : String(err)}`;
+}
+
+/** Every option of the scenario under draw i, compared with the reference of the same draw; never throws. */
+export function runDraw(p: PreparedDraws, draw: number): DrawRun {
+  try {
+    const prepared = preparedScenarioOfDraw(p, draw);
+    if (!prepared.ok) return { draw, ok: false, reason: prepared.reason };
+    const results = prepared.prepared.scenario.options.map((o) => simulateOption(prepared.prepared, o, { series: 'summary' }));
+    const reference = results[p.referenceIndex];
+    for (const r of results) r.comparison = compareWithReference(r, reference);
+    return { draw, ok: true, options: results };
+  } catch (err) {
+    return { draw, ok: false, reason: failureReason(err) };
+  }
+}
+
+/** Draws from..to-1 run through every option, in order (the pool's task). */
+export function runDrawRange(p: PreparedDraws, from: number, to: number): DrawRun[] {
+  const out: DrawRun[] = [];
+  for (let i = from; i < to; i++) out.push(runDraw(p, i));
+  return out;
+}
+
+/** The outcomes `reader` keeps of a run draw; a reader that throws fails the draw, as a failed run does. */
+export function readDraw(run: DrawRun, reader: OutcomeReader, referenceIndex: number): DrawResult {
+  if (!run.ok) return run;
+  try {
+    return { draw: run.draw, ok: true, outcomes: run.options.map((_, k) => reader.read(run.options, k, referenceIndex)) };
+  } catch (err) {
+    return { draw: run.draw, ok: false, reason: failureReason(err) };
+  }
 }
 
 /** Every option of the scenario under draw i (comparisons against the reference of the same draw). */
 export function evaluateDraw(p: PreparedDraws, draw: number, reader: OutcomeReader): DrawResult {
-  try {
-    const prepared = preparedScenarioOfDraw(p, draw);
-    if (!prepared.ok) return { draw, ok: false, reason: prepared.reason };
-    const results = prepared.prepared.scenario.options.map((o) => simulateOption(prepared.prepared, o));
-    const reference = results[p.referenceIndex];
-    for (const r of results) r.comparison = compareWithReference(r, reference);
-    return { draw, ok: true, outcomes: results.map((_, k) => reader.read(results, k, p.referenceIndex)) };
-  } catch (err) {
-    return failure(draw, err);
-  }
+  return readDraw(runDraw(p, draw), reader, p.referenceIndex);
 }
 
 /**

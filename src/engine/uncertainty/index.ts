@@ -12,9 +12,15 @@ export {
   evaluateDraw,
   evaluateDrawRange,
   evaluateOptionUnderDraw,
+  runDraw,
+  runDrawRange,
+  readDraw,
   type PreparedDraws,
   type DrawResult,
+  type DrawRun,
+  type DrawRange,
 } from './drawOutcomes.ts';
+export { drawRangeOnPool, uncertaintyOnPool, drawTasks, DRAWS_PER_TASK, type DrawMapOptions } from './drawsOnPool.ts';
 export { sortedQuantile, intervalOf, probabilityLower, probabilityLowest, type Interval } from './summaries.ts';
 export { ranks, partialRankCorrelations } from './prcc.ts';
 export {
