@@ -11,19 +11,18 @@
  * expected YLL of burden-of-disease work: Murray & Lopez 1996, The Global Burden of Disease).
  */
 import { z } from 'zod';
+import { MAX_AGE_YEARS, MAX_LIFE_TABLE_ROWS, MAX_REMAINING_YEARS, between } from './limits.ts';
 import type { Problem } from './problems.ts';
-
-const nonNegative = z.number({ message: 'must be a number' }).min(0, { message: 'must be >= 0' });
 
 /** One row: remaining life expectancy (years) at an exact age (years). */
 export const lifeTableRowSchema = z.object({
-  ageYears: nonNegative,
-  remainingYears: nonNegative,
+  ageYears: between(0, MAX_AGE_YEARS, 'years'),
+  remainingYears: between(0, MAX_REMAINING_YEARS, 'years'),
 });
 
 /** A life table in the scenario: rows by increasing age, and where they come from. */
 export const lifeTableSchema = z.object({
-  rows: z.array(lifeTableRowSchema).min(1, { message: 'must have at least one row' }),
+  rows: z.array(lifeTableRowSchema).min(1, { message: 'must have at least one row' }).max(MAX_LIFE_TABLE_ROWS, { message: `must have at most ${MAX_LIFE_TABLE_ROWS} rows` }),
   source: z.string().min(1, { message: 'must cite where the life table comes from' }),
 });
 

@@ -75,3 +75,34 @@ export const MAX_BEDS = 1e9;
 
 /** Day numbers of phases and dose steps: about 270 years, far beyond the longest horizon. */
 export const MAX_DAY_NUMBER = 100_000;
+
+/**
+ * A trigger's level when it counts persons (daily admissions, ward or ICU occupancy): the
+ * population bound. Levels per 100,000 population cannot exceed 100,000 (validation.ts).
+ */
+export const MAX_TRIGGER_LEVEL_PERSONS = MAX_POPULATION_PERSONS;
+export const MAX_TRIGGER_LEVEL_PER_100K = 100_000;
+
+/**
+ * Values of an uncertain parameter's distribution (low, high, mode, mean, median, the ends of a
+ * 95% range), in the unit of the input it sets or scales: R, days or a factor. The bounds of the
+ * inputs themselves are far inside (R0 100, periods 365 days, doubling time 10,000 days); a draw
+ * that breaks one of those is refused when the drawn scenario is checked.
+ */
+export const MAX_DISTRIBUTION_VALUE = 1e6;
+/** A lognormal's geometric standard deviation: 100 puts its central 95% over a factor of 7e7. */
+export const MAX_GEOMETRIC_SD = 100;
+/** Latin hypercube draws in one run: a cluster's day of work. */
+export const MAX_DRAWS = 10_000_000;
+
+/** Remaining life expectancy in a life table, years (ages in it are bounded by MAX_AGE_YEARS). */
+export const MAX_REMAINING_YEARS = 150;
+/** Rows of a life table: one per year of age up to MAX_AGE_YEARS and then some. */
+export const MAX_LIFE_TABLE_ROWS = 1000;
+
+/**
+ * Calendar date of day 0, ISO 8601: from the Gregorian calendar's first full century to four
+ * centuries ahead. Later dates plus the longest horizon would pass year 9999, beyond YYYY-MM-DD.
+ */
+export const EARLIEST_START_DATE = '1600-01-01';
+export const LATEST_START_DATE = '2399-12-31';

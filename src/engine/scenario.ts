@@ -16,6 +16,9 @@ import {
   MAX_DELAY_SHAPE,
   MAX_DOUBLING_TIME_DAYS,
   MAX_PERIOD_DAYS,
+  MAX_TRIGGER_LEVEL_PERSONS,
+  EARLIEST_START_DATE,
+  LATEST_START_DATE,
   MAX_POPULATION_PERSONS,
   MAX_R0,
   MAX_RELATIVE_FACTOR,
@@ -126,8 +129,9 @@ export const HOSPITAL_TRIGGER_QUANTITIES: readonly TriggerQuantity[] = ['dailyAd
  */
 export const triggerSchema = z.object({
   quantity: z.enum(TRIGGER_QUANTITIES),
-  onAbove: nonNegative,
-  offBelow: nonNegative,
+  /** Per 100,000 population (at most 100,000, validation.ts) or persons. */
+  onAbove: between(0, MAX_TRIGGER_LEVEL_PERSONS, ''),
+  offBelow: between(0, MAX_TRIGGER_LEVEL_PERSONS, ''),
   minimumDaysOn: wholeDay.default(0),
   lagDays: wholeDay.default(0),
 });
@@ -214,7 +218,8 @@ export const scenarioSchema = z.object({
     .string()
     .regex(/^\d{4}-\d{2}-\d{2}$/, { message: 'must be a calendar date written YYYY-MM-DD', abort: true })
     .refine((text) => isoDateToEpochDay(text) !== null, { message: 'must be a calendar date written YYYY-MM-DD' })
-    .meta({ format: 'date', description: 'Calendar date of day 0, ISO 8601 YYYY-MM-DD.' })
+    .refine((text) => !(text < EARLIEST_START_DATE || text > LATEST_START_DATE), { message: `must be from ${EARLIEST_START_DATE} to ${LATEST_START_DATE}` })
+    .meta({ format: 'date', description: `Calendar date of day 0, ISO 8601 YYYY-MM-DD, from ${EARLIEST_START_DATE} to ${LATEST_START_DATE}.` })
     .optional(),
   horizonDays: z.number().int().min(1, { message: 'must be >= 1' }).max(3650, { message: 'must be <= 3650' }),
   /** Name of the option others are compared with; the first option if absent. */

@@ -9,6 +9,7 @@ import type { z } from 'zod';
 import { type Calibration, calibrateTransmission, calibrationProblem } from './calibration.ts';
 import { healthcareProblems } from './healthcare/healthcareProblems.ts';
 import { lifeTableProblems } from './lifeExpectancy.ts';
+import { MAX_TRIGGER_LEVEL_PER_100K } from './limits.ts';
 import { PerronRootNotSettled } from './perronRoot.ts';
 import { jsonValueProblems, readJsonText } from './jsonText.ts';
 import { formatPath, formatProblem, type Problem } from './problems.ts';
@@ -82,6 +83,11 @@ function triggerProblems(s: Scenario, t: Trigger, at: string): Problem[] {
   const problems: Problem[] = [];
   if (t.offBelow > t.onAbove) {
     problems.push({ path: `${at}.offBelow`, rule: `must be at most onAbove (${t.onAbove})`, value: String(t.offBelow) });
+  }
+  if (!HOSPITAL_TRIGGER_QUANTITIES.includes(t.quantity)) {
+    for (const [field, level] of [['onAbove', t.onAbove], ['offBelow', t.offBelow]] as const) {
+      if (level > MAX_TRIGGER_LEVEL_PER_100K) problems.push({ path: `${at}.${field}`, rule: `must be at most ${MAX_TRIGGER_LEVEL_PER_100K.toLocaleString('en')} (per 100,000 population)`, value: String(level) });
+    }
   }
   if (HOSPITAL_TRIGGER_QUANTITIES.includes(t.quantity) && s.healthcare === undefined) {
     problems.push({ path: `${at}.quantity`, rule: 'needs a healthcare section (hospital quantities come from the hospital model)', value: JSON.stringify(t.quantity) });

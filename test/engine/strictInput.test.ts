@@ -151,3 +151,37 @@ describe('reading the JSON text', () => {
     expect(lines.every((l) => !l.includes('\n'))).toBe(true);
   });
 });
+
+describe('plausibility bounds of the newer sections, each naming its entry', () => {
+  const uncertainWith = (distribution: unknown) => ({ draws: 10, parameters: [{ name: 'r0', distribution, source: 'test' }] });
+  it.each<[string, (s: Record<string, any>) => void, string]>([
+    ['a trigger level in persons', (s) => (s.options[1].phases[0].trigger = { quantity: 'dailyAdmissions', onAbove: 1e12, offBelow: 1 }), 'options[1].phases[0].trigger.onAbove must be at most 1e10, got 1000000000000'],
+    ['a trigger level per 100,000', (s) => (s.options[1].phases[0].trigger = { quantity: 'infectiousPer100k', onAbove: 150000, offBelow: 1 }), 'options[1].phases[0].trigger.onAbove must be at most 100,000 (per 100,000 population), got 150000'],
+    ['a trigger lag', (s) => (s.options[1].phases[0].trigger = { quantity: 'infectiousPer100k', onAbove: 100, offBelow: 1, lagDays: 1e6 }), 'options[1].phases[0].trigger.lagDays must be at most 100000 (a day number), got 1000000'],
+    ['a distribution bound', (s) => (s.uncertainty = uncertainWith({ kind: 'uniform', low: 1, high: 1e7 })), 'uncertainty.parameters[0].distribution.high must be at most 1e6, got 10000000'],
+    ['a standard deviation', (s) => (s.uncertainty = uncertainWith({ kind: 'normal', mean: 2, sd: 1e300 })), 'uncertainty.parameters[0].distribution.sd must be at most 1e6, got 1e+300'],
+    ['a geometric standard deviation', (s) => (s.uncertainty = uncertainWith({ kind: 'lognormal', median: 2, geometricSd: 1e3 })), 'uncertainty.parameters[0].distribution.geometricSd must be at most 100, got 1000'],
+    ['a 95% range', (s) => (s.uncertainty = uncertainWith({ kind: 'lognormal', median: 2, range95: [1, 1e9] })), 'uncertainty.parameters[0].distribution.range95[1] must be at most 1e6, got 1000000000'],
+    ['the number of draws', (s) => (s.uncertainty = { ...uncertainWith({ kind: 'uniform', low: 2, high: 3 }), draws: 1e8 }), 'uncertainty.draws must be at most 10000000, got 100000000'],
+    ['an age in the life table', (s) => (s.lifeTable = { rows: [{ ageYears: 0, remainingYears: 80 }, { ageYears: 1e4, remainingYears: 1 }], source: 'test' }), 'lifeTable.rows[1].ageYears must be at most 150 years, got 10000'],
+    ['remaining years in the life table', (s) => (s.lifeTable = { rows: [{ ageYears: 0, remainingYears: 1e300 }], source: 'test' }), 'lifeTable.rows[0].remainingYears must be at most 150 years, got 1e+300'],
+    ['the length of the life table', (s) => (s.lifeTable = { rows: Array.from({ length: 1001 }, (_, k) => ({ ageYears: k / 10, remainingYears: 1 })), source: 'test' }), 'lifeTable.rows must have at most 1000 rows, got [{"ageYears":0,"remainingYears":1},{"ageYears":0.1,"remai...'],
+    ['an early start date', (s) => (s.startDate = '1599-12-31'), 'startDate must be from 1600-01-01 to 2399-12-31, got "1599-12-31"'],
+    ['a late start date (its horizon would pass year 9999)', (s) => (s.startDate = '9999-06-01'), 'startDate must be from 1600-01-01 to 2399-12-31, got "9999-06-01"'],
+  ])('refuses %s beyond its bound', (_, change, line) => {
+    const s = demoJson();
+    change(s);
+    expect(problemsOf(s)).toEqual([line]);
+  });
+
+  it('accepts values at the bounds', () => {
+    const s = demoJson();
+    s.startDate = '2399-12-31';
+    s.options[1].phases[0].trigger = { quantity: 'infectiousPer100k', onAbove: 100000, offBelow: 0 };
+    s.lifeTable = { rows: [{ ageYears: 0, remainingYears: 150 }, { ageYears: 150, remainingYears: 0 }], source: 'test' };
+    s.uncertainty = uncertainWith({ kind: 'lognormal', median: 2, geometricSd: 100 });
+    const r = validateScenario(s);
+    if (!r.ok) throw new Error(r.problems.map(formatProblem).join('\n'));
+  });
+});
+

@@ -4,9 +4,13 @@
  * parameter carries the source of its range, which the report prints.
  */
 import { z } from 'zod';
+import { MAX_DISTRIBUTION_VALUE, MAX_DRAWS, MAX_GEOMETRIC_SD, aboveZero, between } from '../limits.ts';
 
-const finite = z.number({ message: 'must be a number' });
-const positive = finite.gt(0, { message: 'must be > 0' });
+export { MAX_DRAWS };
+
+/** A value in the unit of the input it sets or scales (limits.ts). */
+const finite = between(-MAX_DISTRIBUTION_VALUE, MAX_DISTRIBUTION_VALUE, '');
+const positive = aboveZero(MAX_DISTRIBUTION_VALUE, '');
 
 /** Parameters that set a value of the scenario (units as the field they replace). */
 export const VALUE_PARAMETERS = ['r0', 'doublingTimeDays', 'latentPeriodDays', 'infectiousPeriodDays'] as const;
@@ -42,7 +46,7 @@ const lognormalSchema = z.strictObject({
   kind: z.literal('lognormal'),
   median: positive,
   range95: z.tuple([positive, positive]).optional(),
-  geometricSd: finite.gt(1, { message: 'must be > 1' }).optional(),
+  geometricSd: z.number({ message: 'must be a number' }).gt(1, { message: 'must be > 1' }).max(MAX_GEOMETRIC_SD, { message: `must be at most ${MAX_GEOMETRIC_SD}` }).optional(),
 });
 
 export const distributionSchema = z.discriminatedUnion('kind', [uniformSchema, triangularSchema, normalSchema, lognormalSchema], {
@@ -56,9 +60,6 @@ export const uncertainParameterSchema = z.strictObject({
   /** Where the range comes from (printed in the report). */
   source: z.string({ message: 'must be text' }).min(1, { message: 'must say where the range comes from' }),
 });
-
-/** Most draws one run may ask for. */
-export const MAX_DRAWS = 10_000_000;
 
 export const uncertaintySchema = z.strictObject({
   /** Number of Latin hypercube draws. */
