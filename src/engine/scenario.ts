@@ -218,7 +218,7 @@ export const scenarioSchema = z.object({
     .string()
     .regex(/^\d{4}-\d{2}-\d{2}$/, { message: 'must be a calendar date written YYYY-MM-DD', abort: true })
     .refine((text) => isoDateToEpochDay(text) !== null, { message: 'must be a calendar date written YYYY-MM-DD' })
-    .refine((text) => !(text < EARLIEST_START_DATE || text > LATEST_START_DATE), { message: `must be from ${EARLIEST_START_DATE} to ${LATEST_START_DATE}` })
+    .refine((text) => isoDateToEpochDay(text) === null || !(text < EARLIEST_START_DATE || text > LATEST_START_DATE), { message: `must be from ${EARLIEST_START_DATE} to ${LATEST_START_DATE}` })
     .meta({ format: 'date', description: `Calendar date of day 0, ISO 8601 YYYY-MM-DD, from ${EARLIEST_START_DATE} to ${LATEST_START_DATE}.` })
     .optional(),
   horizonDays: z.number().int().min(1, { message: 'must be >= 1' }).max(3650, { message: 'must be <= 3650' }),
