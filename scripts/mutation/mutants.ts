@@ -91,7 +91,8 @@ export const MUTANTS: Mutant[] = [
   // Next-generation matrix
   { id: 'ngm-drop-s', file: N, find: 'const f = infectiousPeriodDays * susceptible[i];', replace: 'const f = infectiousPeriodDays;', what: 'K without the susceptibles' },
   { id: 'ngm-drop-d', file: N, find: 'const f = infectiousPeriodDays * susceptible[i];', replace: 'const f = susceptible[i];', what: 'K without the infectious period' },
-  { id: 'ngm-first-eigenvalue', file: N, find: 'for (const v of eig.realEigenvalues) if (v > best) best = v;', replace: 'best = eig.realEigenvalues[0];', what: 'first eigenvalue returned, not the largest' },
+  // The Perron root is the largest of its strongly connected blocks' roots (perronRoot.ts).
+  { id: 'ngm-first-eigenvalue', file: 'src/engine/perronRoot.ts', find: 'if (root > best) best = root;', replace: 'if (best === 0) best = root;', what: 'first root found returned, not the largest' },
   { id: 'ngm-power-rowscale', file: N, find: 'if (rowScale !== null) acc *= rowScale[i];', replace: 'if (rowScale !== null) acc *= rowScale[0];', what: 'R(t) scales every row by band 0 susceptibles' },
   { id: 'ngm-bracket-high', file: N, find: 'return 0.5 * (low + high);', replace: 'return high;', what: 'upper bracket instead of the midpoint' },
   // Calibration and initial state

@@ -28,9 +28,10 @@ export function nextGenerationMatrixInto(out: Float64Array, transmission: Float6
  * (Horn & Johnson 2013, Matrix Analysis, 2nd ed., Thm 8.1.26), once it is narrower than
  * `relativeTolerance` (default 1e-7, ample for a daily R(t)); rows with x_i = 0 and (Kx)_i = 0
  * (no susceptibles or no susceptibility) have no say, while x_i = 0 with (Kx)_i > 0 makes the
- * upper bound infinite, so a warm start with a zero entry is iterated, never taken as certified. On return `vector` holds the x_k whose bracket closed (an
- * approximate Perron vector) and, when given, `product` holds M x_k without the row scale, so a
- * caller can bracket rho for another row scale at the cost of n multiplications (reproduction.ts).
+ * upper bound infinite, so a warm start with a zero entry is iterated, never taken as certified.
+ * On return `vector` holds the x_k whose bracket closed (an approximate Perron vector) and, when
+ * given, `product` holds M x_k without the row scale, so a caller can bracket rho for another row
+ * scale at the cost of n multiplications (reproduction.ts).
  * Used for R(t) day by day, where the previous day's vector is an excellent start; there
  * K = diag(rowScale) M is applied without being formed (rowScale_i = D S_i). Falls back to
  * `perronRoot` (bounded work, perronRoot.ts) when the bracket does not close in 300 steps (a
