@@ -6,7 +6,9 @@ import { describe, expect, it } from 'vitest';
 import { runScenario } from '../../src/engine/run.ts';
 import { correctReciprocity } from '../../src/engine/contacts.ts';
 import { doublingTimeDays, generationIntervalTransform, growthRateFromR, halvingTimeDays, reproductionNumberFromGrowthRate } from '../../src/engine/growth.ts';
+import { finalSizeByBand } from '../../src/engine/finalSize.ts';
 import { oneGroupFinalSize } from '../helpers/byHand.ts';
+import { seededRandom } from '../helpers/random.ts';
 import { oneBand, twoBand, valid } from '../helpers/scenarios.ts';
 
 describe('final size, one group', () => {
@@ -23,6 +25,36 @@ describe('final size, one group', () => {
     const o = runScenario(oneBand({ r0, seed: 1e-4, horizon: 1500 })).options[0];
     expect(o.attackRate).toBeCloseTo(z, 5);
     expect(o.finalSize?.attackRate).toBeCloseTo(z, 6);
+  });
+
+  // Near R0 = 1 the root is nearly double: a plain fixed-point iteration crawls there (and stops
+  // far from the root), which uncertainty draws reach often.
+  it.each([1.0001, 1.001, 1.01, 1.2])('R0 = %s, near the threshold: the solver reaches the one-group root', (r0) => {
+    const D = 5;
+    const N = 1000;
+    const z = finalSizeByBand(Float64Array.of(r0 / (D * N)), [N], [1], D)[0];
+    expect(Math.abs(z - oneGroupFinalSize(r0)) / oneGroupFinalSize(r0)).toBeLessThan(1e-8);
+  });
+
+  it.each([0.5, 0.999, 1])('R0 = %s, at or below the threshold: no epidemic (z = 0 to 1e-12)', (r0) => {
+    expect(finalSizeByBand(Float64Array.of(r0 / 5000), [1000], [1], 5)[0]).toBeLessThan(1e-12);
+  });
+
+  it('sixteen bands near the threshold: z solves z_i = s0_i (1 - exp(-sum_j A_ij z_j)) to 1e-14', () => {
+    const random = seededRandom(7);
+    const n = 16;
+    const D = 5;
+    const population = Array.from({ length: n }, () => 1e4 + 1e5 * random());
+    const s0 = Array.from({ length: n }, () => 0.6 + 0.4 * random());
+    const m = Float64Array.from({ length: n * n }, () => random() * 5.5e-7);
+    const z = finalSizeByBand(m, population, s0, D);
+    expect(Math.max(...z)).toBeGreaterThan(1e-3);
+    expect(Math.max(...z)).toBeLessThan(0.5);
+    for (let i = 0; i < n; i++) {
+      let pressure = 0;
+      for (let j = 0; j < n; j++) pressure += D * m[i * n + j] * population[j] * z[j];
+      expect(Math.abs(z[i] - s0[i] * (1 - Math.exp(-pressure)))).toBeLessThan(1e-14);
+    }
   });
 
   it('with prior immunity p: z = (1 - p)(1 - exp(-R0 z)), R0 = 2.5, p = 0.3 -> z = 0.498889', () => {
