@@ -1,4 +1,6 @@
 import { describe, expect, it } from 'vitest';
+import { readdirSync, readFileSync } from 'node:fs';
+import { join } from 'node:path';
 import type { MenuItemConstructorOptions } from 'electron';
 import { acceleratorOf, COMMANDS, commandEntry, keyTextOf, MENU_COMMANDS, titleWithKey, type KeyBinding, type MenuCommand } from '../../src/shared/commands.ts';
 import { menuTemplate } from '../../src/main/menu.ts';
@@ -92,5 +94,20 @@ describe('the native menu comes from the table', () => {
     }
     expect(items.find((item) => Array.isArray(item.submenu))?.label).toBe(commandEntry('open-recent').label);
     expect([...offered, 'open-recent'].sort()).toEqual([...MENU_COMMANDS].sort());
+  });
+});
+
+describe('the renderer writes no binding of its own', () => {
+  it('no source file of the renderer spells a command key outside comments', () => {
+    const files = readdirSync('src/renderer', { recursive: true, encoding: 'utf8' }).filter((f) => /\.(ts|svelte)$/.test(f));
+    const spelt = /\b(?:Ctrl|Cmd)\+(?:Shift\+)?[A-Z0-9]\b|\bAlt\+[0-9]\b|\bF1\b/;
+    const offenders = files.filter((f) => {
+      const code = readFileSync(join('src/renderer', f), 'utf8')
+        .replace(/\/\*[\s\S]*?\*\//g, '')
+        .replace(/<!--[\s\S]*?-->/g, '')
+        .replace(/^\s*\/\/.*$/gm, '');
+      return spelt.test(code);
+    });
+    expect(offenders).toEqual([]);
   });
 });
