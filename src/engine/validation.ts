@@ -209,17 +209,57 @@ export function validateScenario(input: unknown): ValidationResult {
   const strict = strictInputProblems(scenarioSchema, input);
   if (!parsed.success) return { ok: false, problems: listed([...structuralProblems(input, parsed.error.issues), ...strict]) };
   if (strict.length > 0) return { ok: false, problems: strict };
-  const problems = crossFieldProblems(parsed.data);
+  return checkedWhole(parsed.data);
+}
+
+/** The rules after the structure: cross-field rules, then the calibration of transmission. */
+function checkedWhole(scenario: Scenario): ValidationResult {
+  const problems = crossFieldProblems(scenario);
   if (problems.length > 0) return { ok: false, problems: listed(problems) };
   let calibration: Calibration;
   try {
-    calibration = calibrateTransmission(parsed.data);
+    calibration = calibrateTransmission(scenario);
   } catch (err) {
     if (!(err instanceof PerronRootNotSettled)) throw err;
     return { ok: false, problems: [{ path: 'settings', rule: `must give contacts R0 can be computed for: with these contacts and populations ${err.message}; look for values many orders of magnitude from the rest (such as 1e-300)` }] };
   }
-  const problem = calibrationProblem(parsed.data, calibration);
-  return problem !== null ? { ok: false, problems: [problem] } : { ok: true, scenario: parsed.data, calibration };
+  const problem = calibrationProblem(scenario, calibration);
+  return problem !== null ? { ok: false, problems: [problem] } : { ok: true, scenario, calibration };
+}
+
+/** A top-level section of a scenario (the unit `revalidateSections` checks again). */
+export type ScenarioSection = keyof Scenario;
+
+const sectionSchemas = new Map<string, z.ZodType>();
+
+/** The scenario schema restricted to `sections`: issue paths stay those of the whole schema. */
+function schemaOfSections(sections: readonly ScenarioSection[]): z.ZodType {
+  const key = sections.join(',');
+  let schema = sectionSchemas.get(key);
+  if (schema === undefined) {
+    schema = scenarioSchema.pick(Object.fromEntries(sections.map((k) => [k, true])) as Partial<Record<ScenarioSection, true>>);
+    sectionSchemas.set(key, schema);
+  }
+  return schema;
+}
+
+/**
+ * `validateScenario` for a scenario that was valid before only `sections` changed (an uncertainty
+ * draw, drawOutcomes.ts): the structural rules are checked on those sections alone, then every
+ * cross-field rule and the calibration, as `validateScenario` does. For such a scenario it gives
+ * the same result and the same first problem, at a fraction of the cost (the contact matrices of
+ * untouched settings, the other options and so on are not parsed again). Unknown keys cannot
+ * appear this way and are not looked for.
+ */
+export function revalidateSections(s: Scenario, sections: readonly ScenarioSection[]): ValidationResult {
+  // In the schema's order, so several broken sections are listed as the whole schema lists them.
+  const ordered = (Object.keys(scenarioSchema.shape) as ScenarioSection[]).filter((k) => sections.includes(k) && s[k] !== undefined);
+  const changed = Object.fromEntries(ordered.map((k) => [k, s[k]]));
+  const valueProblems = jsonValueProblems(changed);
+  if (valueProblems.length > 0) return { ok: false, problems: valueProblems };
+  const parsed = schemaOfSections(Object.keys(changed) as ScenarioSection[]).safeParse(changed);
+  if (!parsed.success) return { ok: false, problems: listed(structuralProblems(changed, parsed.error.issues)) };
+  return checkedWhole({ ...s, ...(parsed.data as Partial<Scenario>) });
 }
 
 /** Parses JSON text and validates it; a JSON syntax error is reported as one problem (one line, with its line and column). */

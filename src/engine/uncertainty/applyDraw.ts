@@ -17,6 +17,7 @@
  */
 import { commonDelays, defaultIcuShareOfAdmissions, defaultInfectionHospitalisationRatio } from '../healthcare/defaults.ts';
 import type { Delay, Healthcare, Scenario } from '../scenario.ts';
+import type { ScenarioSection } from '../validation.ts';
 import { CONTACT_SCALE_PREFIX } from './schema.ts';
 
 const scaled = (values: readonly number[], s: number): number[] => values.map((x) => x * s);
@@ -79,6 +80,33 @@ export function applyParameter(s: Scenario, name: string, value: number): Scenar
       const setting = name.slice(CONTACT_SCALE_PREFIX.length);
       return { ...s, settings: s.settings.map((x) => (x.name === setting ? { ...x, contactsPerDay: x.contactsPerDay.map((row) => scaled(row, value)) } : x)) };
     }
+  }
+}
+
+/** The top-level section of a scenario that the uncertain parameter `name` changes. */
+export function sectionOfParameter(name: string): ScenarioSection {
+  switch (name) {
+    case 'r0':
+    case 'doublingTimeDays':
+    case 'latentPeriodDays':
+    case 'infectiousPeriodDays':
+      return 'disease';
+    case 'ifrScale':
+      return 'severity';
+    case 'hospitalisationScale':
+    case 'icuShareScale':
+    case 'wardStayScale':
+    case 'icuStayScale':
+      return 'healthcare';
+    case 'measureAdherence':
+      return 'options';
+    case 'vaccineEfficacyScale':
+      return 'vaccinationCampaigns';
+    case 'initialInfectedScale':
+      return 'initialState';
+    default:
+      if (!name.startsWith(CONTACT_SCALE_PREFIX)) throw new Error(`unknown uncertain parameter ${name}`);
+      return 'settings';
   }
 }
 

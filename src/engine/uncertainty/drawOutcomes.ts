@@ -13,8 +13,8 @@ import type { OptionResults, OptionSummary } from '../results.ts';
 import type { PolicyOption, Scenario } from '../scenario.ts';
 import { simulateOption } from '../simulate.ts';
 import { formatProblem } from '../problems.ts';
-import { validateScenario } from '../validation.ts';
-import { applyDraw } from './applyDraw.ts';
+import { revalidateSections, validateScenario, type ScenarioSection } from '../validation.ts';
+import { applyDraw, sectionOfParameter } from './applyDraw.ts';
 import { hypercubePoint, latinHypercube, type LatinHypercube } from './latinHypercube.ts';
 import { distributionQuantile } from './quantiles.ts';
 import type { Uncertainty } from './schema.ts';
@@ -38,18 +38,26 @@ export interface DrawRange {
 
 /** Everything the draw loop shares: built once per process (or worker) from the scenario. */
 export interface PreparedDraws {
-  /** The scenario as written (central values), with its `uncertainty` section. */
+  /** The validated scenario (central values), with its `uncertainty` section. */
   scenario: Scenario;
   uncertainty: Uncertainty;
   hypercube: LatinHypercube;
   referenceIndex: number;
+  /** The sections the uncertain parameters change: the only ones a draw must check again. */
+  drawnSections: ScenarioSection[];
 }
 
-/** Throws when the scenario has no `uncertainty` section (callers check first). */
+/** `scenario` must be valid (validateScenario); throws when it has no `uncertainty` section (callers check first). */
 export function prepareDraws(scenario: Scenario): PreparedDraws {
   const u = scenario.uncertainty;
   if (u === undefined) throw new Error('the scenario has no uncertainty section');
-  return { scenario, uncertainty: u, hypercube: latinHypercube(u.seed, u.parameters.length, u.draws), referenceIndex: referenceIndexOf(scenario) };
+  return {
+    scenario,
+    uncertainty: u,
+    hypercube: latinHypercube(u.seed, u.parameters.length, u.draws),
+    referenceIndex: referenceIndexOf(scenario),
+    drawnSections: [...new Set(u.parameters.map((q) => sectionOfParameter(q.name)))],
+  };
 }
 
 /** Parameter values of draw i, in the order of `uncertainty.parameters`. */
@@ -69,11 +77,15 @@ export type DrawResult =
  */
 export type DrawRun = { draw: number; ok: true; options: OptionSummary[] } | { draw: number; ok: false; reason: string };
 
-/** The scenario of draw i, prepared for running, or the rule it breaks. */
+/**
+ * The scenario of draw i, prepared for running, or the rule it breaks. Only the sections the
+ * parameters change are checked again (revalidateSections: the same rules and messages as a full
+ * validation, for a scenario that was valid before).
+ */
 export function preparedScenarioOfDraw(p: PreparedDraws, draw: number): { ok: true; prepared: PreparedScenario } | { ok: false; reason: string } {
   const values = parameterValues(p, draw);
   const drawn = applyDraw(p.scenario, p.uncertainty.parameters.map((q) => q.name), values);
-  const checked = validateScenario(drawn);
+  const checked = revalidateSections(drawn, p.drawnSections);
   if (!checked.ok) return { ok: false, reason: formatProblem(checked.problems[0]) };
   return { ok: true, prepared: prepareScenario(checked.scenario, checked.calibration) };
 }
