@@ -43,12 +43,14 @@ test('a start date puts dates on the peak row and the phases, a phase is entered
   const peakDay = Number(/day (\d+)/.exec((await peak.textContent()) ?? '')?.[1]);
   expect(Number.isInteger(peakDay)).toBe(true);
   await expect(peak).toContainText(`day ${peakDay} (${plusDays('2031-03-01', peakDay)})`);
+  await expect(page.getByTestId(`cell-rUnderMeasures-${o}`)).toContainText(`from day ${phase.fromDay} (${plusDays('2031-03-01', phase.fromDay)})`);
 
   await page.getByTestId(`option-name-${o}`).click();
   const dates = `${plusDays('2031-03-01', phase.fromDay)} to ${plusDays('2031-03-01', phase.toDay - 1)}`;
   await expect(page.getByTestId('phase-tab-0')).toHaveText(`Phase 1: days ${phase.fromDay}–${phase.toDay - 1} (${dates})`);
   await expect(page.getByTestId('day-convention')).toContainText('Day 0 is the scenario\'s first day (2031-03-01)');
   await expect(page.getByTestId('phase-from-date')).toHaveValue(plusDays('2031-03-01', phase.fromDay));
+  await expect(page.getByTestId('editor-r-phase')).toContainText(`from day ${phase.fromDay} (${plusDays('2031-03-01', phase.fromDay)})`);
 
   // First day entered by date: 2031-04-01 is day 31 (March has 31 days).
   await page.getByTestId('phase-from-date').fill('2031-04-01');

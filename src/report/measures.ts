@@ -43,11 +43,11 @@ export function triggerRuleText(t: Trigger): string {
   return `in force when ${name} exceeds ${value(t.onAbove)}, lifted when it falls below ${value(t.offBelow)}, decided each day ${lag}${minimum}`;
 }
 
-/** What a trigger did over the horizon, in words. */
-export function triggerFiredText(t: TriggerOutcome): string {
+/** What a trigger did over the horizon, in words; the first day with its date when the scenario has a start date. */
+export function triggerFiredText(t: TriggerOutcome, startDate: string | null = null): string {
   if (t.switchesOn === 0) return 'never came into force';
   const times = t.switchesOn === 1 ? 'once' : `${t.switchesOn} times`;
-  return `came into force ${times}, first on day ${t.firstOnDay}, in force ${t.daysInForce} ${t.daysInForce === 1 ? 'day' : 'days'} in all`;
+  return `came into force ${times}, first on day ${dayWithDate(t.firstOnDay, startDate)}, in force ${t.daysInForce} ${t.daysInForce === 1 ? 'day' : 'days'} in all`;
 }
 
 /**
@@ -107,6 +107,12 @@ export function phaseMeasuresText(phase: Phase, bandLabels: readonly string[]): 
   return parts.length === 0 ? 'no change to contacts' : parts.join('; ');
 }
 
+/** "45", or "45 (2026-04-15)" with the scenario's start date. */
+function dayWithDate(day: number | null, startDate: string | null): string {
+  const date = startDate === null || day === null ? null : dateOfDay(startDate, day);
+  return date === null ? String(day) : `${day} (${date})`;
+}
+
 /**
  * When a phase applies, both ends included, within the horizon; null when it lies outside it.
  * With the scenario's start date, the calendar dates follow: "Days 21 to 76 (56 days; 2031-03-22 to 2031-05-16)".
@@ -161,8 +167,8 @@ export function optionSummary(option: PolicyOption, scenario: Scenario, isRefere
       when: phase.trigger === undefined ? when : `${when}, when triggered`,
       what: phaseMeasuresText(phase, labels),
       rule: phase.trigger === undefined ? null : triggerRuleText(phase.trigger),
-      fired: outcome === undefined ? null : triggerFiredText(outcome),
-      r: rText(result?.rByPhase[index]),
+      fired: outcome === undefined ? null : triggerFiredText(outcome, scenario.startDate ?? null),
+      r: rText(result?.rByPhase[index], scenario.startDate ?? null),
     });
   }
   const campaign = option.vaccinationCampaign === undefined ? undefined : scenario.vaccinationCampaigns.find((c) => c.name === option.vaccinationCampaign);
@@ -177,9 +183,9 @@ export function optionSummary(option: PolicyOption, scenario: Scenario, isRefere
   };
 }
 
-function rText(r: PhaseReproduction | undefined): string | null {
+function rText(r: PhaseReproduction | undefined, startDate: string | null): string | null {
   if (r === undefined) return null;
-  return `R ${print.r(r.rAtPhaseStart)} on day ${r.startDay}, ${print.r(r.rMeasuresOnly)} with everyone susceptible`;
+  return `R ${print.r(r.rAtPhaseStart)} on day ${dayWithDate(r.startDay, startDate)}, ${print.r(r.rMeasuresOnly)} with everyone susceptible`;
 }
 
 /** Summaries of every option, in the scenario's order; with `results`, what each trigger did. */

@@ -65,7 +65,7 @@ export interface Outcome extends ValueFormat {
   /** Text when the outcome applies but the engine gives null (e.g. "never", "flat"); default: not applicable. */
   whenNull?: string;
   /** Writes the cell itself instead of `formatValue` (e.g. doubling or halving time). */
-  text?(o: OptionSummary, f: NumberFormatter): string;
+  text?(o: OptionSummary, f: NumberFormatter, context: ValueContext): string;
   /** Beds available, for bed outcomes: the board marks options whose peak exceeds it. */
   capacity?(o: OptionSummary): number | null;
   /** A second line on the board (screen style). */
@@ -107,11 +107,11 @@ function beds(key: string, column: string, label: string, printLabel: string, hi
       return f.style === 'screen' ? f.bedsAgainstCapacity(b.peakOccupancy, b.capacityBeds) : f.persons(b.peakOccupancy);
     },
     capacity: (o) => pick(o)?.capacityBeds ?? null,
-    detail: (o) => {
+    detail: (o, results) => {
       const b = pick(o);
       if (b === undefined) return '';
       const surge = b.surgeCapacityBeds === null ? '' : ` · surge ${screen.persons(b.surgeCapacityBeds)}`;
-      return `peak on day ${b.peakDay}${surge}`;
+      return `peak on ${formatValue({ kind: 'day' }, b.peakDay, 'screen', valueContextOf(results))}${surge}`;
     },
   };
 }
@@ -537,11 +537,11 @@ export const OUTCOMES: readonly Outcome[] = [
     shownOn: ['board', 'table'],
     read: (o) => firstPhase(o)?.rAtPhaseStart ?? null,
     // On screen every phase; in print the first phase's R (the report's option summaries list every phase).
-    text: (o, f) =>
+    text: (o, f, context) =>
       f.style === 'print'
         ? f.r(firstPhase(o)?.rAtPhaseStart ?? Number.NaN)
         : phasesByStart(o)
-            .map((p) => `from day ${p.startDay}: ${f.r(p.rAtPhaseStart)} (${f.r(p.rMeasuresOnly)})`)
+            .map((p) => `from ${formatValue({ kind: 'day' }, p.startDay, 'screen', context)}: ${f.r(p.rAtPhaseStart)} (${f.r(p.rMeasuresOnly)})`)
             .join(' · '),
   },
   {
@@ -684,7 +684,7 @@ export function isReferenceCell(entry: Outcome, o: OptionSummary, results: Scena
 export function outcomeText(entry: Outcome, o: OptionSummary, results: ScenarioSummary, style: NumberStyle, context: ValueContext = valueContextOf(results)): string {
   if (!appliesTo(entry, o)) return NOT_APPLICABLE[style];
   if (isReferenceCell(entry, o, results)) return REFERENCE_CELL;
-  if (entry.text !== undefined) return entry.text(o, numberFormatter(style));
+  if (entry.text !== undefined) return entry.text(o, numberFormatter(style), context);
   const value = entry.read(o, results);
   if (value === null) return entry.whenNull ?? NOT_APPLICABLE[style];
   return formatValue(entry, value, style, context);

@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import type { PolicyOption } from '../../src/engine/scenario.ts';
 import { runScenario } from '../../src/engine/index.ts';
-import { optionSummaries, optionSummary, phaseWhenText } from '../../src/report/measures.ts';
+import { optionSummaries, optionSummary, phaseWhenText, triggerFiredText } from '../../src/report/measures.ts';
+import { outcome, outcomeText } from '../../src/report/outcomes.ts';
 import { buildReportHtml } from '../../src/report/reportHtml.ts';
 import { demoScenario } from '../helpers/demo.ts';
 import type { ReportMeta } from '../../src/report/reportTypes.ts';
@@ -106,5 +107,22 @@ describe('phase days with the scenario start date', () => {
     expect(phaseWhenText({ ...phase, fromDay: 0, toDay: 365 }, 365, '2028-02-08')).toBe('Whole horizon (days 0 to 364; 2028-02-08 to 2029-02-06)');
     expect(phaseWhenText({ ...phase, toDay: 22 }, 365, '2028-02-08')).toBe('Day 21 only (2028-02-29)');
     expect(phaseWhenText(phase, 365)).toBe('Days 21 to 76 (56 days)');
+  });
+});
+
+describe('phase outcomes with the scenario start date', () => {
+  it('put the date beside the day R under a phase is read and the day a trigger first acts', () => {
+    const { scenario } = demo();
+    const dated = { ...scenario, startDate: '2028-02-08' };
+    const results = runScenario(dated);
+    const k = dated.options.findIndex((o) => o.name === 'Schools closed 8 weeks');
+    const summary = optionSummary(dated.options[k], dated, false, results.options[k]);
+    // Day 21 after 2028-02-08 is the leap day.
+    expect(summary.phases[0].when).toBe('Days 21 to 76 (56 days; 2028-02-29 to 2028-04-24)');
+    expect(summary.phases[0].r).toMatch(/^R \d\.\d\d on day 21 \(2028-02-29\), /);
+    expect(triggerFiredText({ phase: 0, switchesOn: 2, firstOnDay: 30, daysInForce: 40 } as never, '2027-12-31')).toBe('came into force 2 times, first on day 30 (2028-01-30), in force 40 days in all');
+    expect(triggerFiredText({ phase: 0, switchesOn: 1, firstOnDay: 30, daysInForce: 1 } as never)).toBe('came into force once, first on day 30, in force 1 day in all');
+    const board = outcomeText(outcome('rUnderMeasures'), results.options[k], results, 'screen');
+    expect(board).toMatch(/^from day 21 \(2028-02-29\): \d\.\d\d \(\d\.\d\d\)$/);
   });
 });
