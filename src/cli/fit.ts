@@ -40,7 +40,7 @@ function parseFitArgs(words: readonly string[]): FitArgs {
   const scenarioFile = options.get('--scenario');
   if (scenarioFile === undefined) throw usageError(`'fit' needs --scenario FILE (its periods turn r into R0)`);
   const familyWord = options.get('--family');
-  const family = familyWord === undefined ? 'auto' : FAMILIES[familyWord];
+  const family = familyWord === undefined ? 'auto' : Object.hasOwn(FAMILIES, familyWord) ? FAMILIES[familyWord] : undefined;
   if (family === undefined) throw usageError(`--family must be poisson or negative-binomial, got ${JSON.stringify(options.get('--family'))}`);
   const format = options.get('--format') ?? 'table';
   if (format !== 'table' && format !== 'json') throw usageError(`--format must be table or json for 'fit', got ${JSON.stringify(format)}`);

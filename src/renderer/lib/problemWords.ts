@@ -52,9 +52,14 @@ const CAPACITY_LABELS: Record<string, string> = {
 
 const capitalise = (text: string) => text.charAt(0).toUpperCase() + text.slice(1);
 
+/** A table's own entry for `name`, never a built-in every object has (a field named "constructor" or "toString"). */
+function own(table: Record<string, string>, name: string): string | undefined {
+  return Object.hasOwn(table, name) ? table[name] : undefined;
+}
+
 /** "wardSurgeBeds" → "ward surge beds" when the table has no words for it. */
 function spelt(name: string): string {
-  return FIELD_WORDS[name] ?? name.replace(/([a-z])([A-Z])/g, '$1 $2').toLowerCase();
+  return own(FIELD_WORDS, name) ?? name.replace(/([a-z])([A-Z])/g, '$1 $2').toLowerCase();
 }
 
 function band(scenario: Scenario, index: string): string {
@@ -64,7 +69,7 @@ function band(scenario: Scenario, index: string): string {
 /** The label of the field at `path`. */
 export function fieldLabel(path: string, scenario: Scenario): string {
   let m = /^healthcare\.capacity\.(\w+)$/.exec(path);
-  if (m) return CAPACITY_LABELS[m[1]] ?? capitalise(spelt(m[1]));
+  if (m) return own(CAPACITY_LABELS, m[1]) ?? capitalise(spelt(m[1]));
   m = /^(?:populationPersons|initialState\.(\w+)|severity\.(\w+)|disease\.(\w+)|healthcare\.(\w+))\[(\d+)\]$/.exec(path);
   if (m) return `${capitalise(spelt(m[1] ?? m[2] ?? m[3] ?? m[4] ?? 'populationPersons'))} ${band(scenario, m[5])}`;
   m = /^options\[(\d+)\]\.phases\[(\d+)\]\.(\w+)/.exec(path);
@@ -85,7 +90,10 @@ export function fieldLabel(path: string, scenario: Scenario): string {
 
 /** The rule with the fields it names put in words ("must be at least wardBeds (3200)" → "... the usual ward beds (3200)"). */
 function ruleInWords(rule: string): string {
-  return rule.replace(/\b([a-z]+[A-Z]\w*)\b/g, (name) => (FIELD_WORDS[name] === undefined ? name : `${name.endsWith('Beds') ? 'the ' : ''}${FIELD_WORDS[name]}`));
+  return rule.replace(/\b([a-z]+[A-Z]\w*)\b/g, (name) => {
+    const words = own(FIELD_WORDS, name);
+    return words === undefined ? name : `${name.endsWith('Beds') ? 'the ' : ''}${words}`;
+  });
 }
 
 /** One line for the user: label, rule, offending value. */

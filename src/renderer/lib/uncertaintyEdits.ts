@@ -36,7 +36,7 @@ export function parameterLabel(name: string): string {
     const setting = name.slice(CONTACT_SCALE_PREFIX.length);
     return `${setting.charAt(0).toUpperCase()}${setting.slice(1)} contacts factor`;
   }
-  return FIXED_LABELS[name] ?? name;
+  return Object.hasOwn(FIXED_LABELS, name) ? FIXED_LABELS[name] : name;
 }
 
 /** Inputs this scenario can treat as uncertain (the rules of uncertaintyProblems.ts), in a stable order. */
