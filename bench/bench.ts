@@ -11,6 +11,8 @@
  *    thread, on a pool of 1 worker and on one worker per core; and the peak resident memory of a
  *    separate `mixwise run` of the same 1000 options (this process keeps several batches, so its own
  *    peak would overstate it), read by bench/peakMemory.mjs in the child.
+ * 4. Uncertainty draws (bench/drawsBench.ts): 1,000 draws of the demo's options on one worker per
+ *    core, wall and CPU time against the goal of at most 5 s on two cores.
  * Timings on a shared machine are noisy: compare the ratios, and rerun.
  */
 import { spawnSync } from 'node:child_process';
@@ -18,6 +20,7 @@ import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { availableParallelism, cpus, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { nodeWorkerPool } from '../src/cli/workerThreads.ts';
+import { benchDraws } from './drawsBench.ts';
 import { prepareScenario } from '../src/engine/prepare.ts';
 import { runScenarioSummary, runScenarioSummaryOnPool } from '../src/engine/run.ts';
 import type { PolicyOption, Scenario } from '../src/engine/scenario.ts';
@@ -170,3 +173,5 @@ for (const size of [1, availableParallelism()]) {
     rmSync(dir, { recursive: true, force: true });
   }
 }
+
+await benchDraws(demo);
