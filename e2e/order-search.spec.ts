@@ -86,3 +86,61 @@ test('refuses groups that repeat a band, in words', async ({ page }) => {
   await finder.getByTestId('order-find').click();
   await expect(finder.getByTestId('order-problems')).toContainText('Groups must not repeat a band: band 9 (45-49) appears twice');
 });
+
+test('with uncertain inputs, shows the share of draws each top order is best; includes the comparison in the report, one undo step, left out once outdated; says when an order is already the option\'s', async ({ page }) => {
+  const errors = await openApp(page);
+  const scenario = demoScenario();
+  const o = scenario.options.findIndex((opt) => opt.vaccinationCampaign !== undefined);
+
+  // R0 uncertain, with few draws.
+  await page.getByRole('tab', { name: 'Assumptions' }).click();
+  await page.getByTestId('uncertainty-add-name').selectOption({ label: 'R0' });
+  await page.getByTestId('uncertainty-add-section').click();
+  await page.getByTestId('uncertainty-draws').fill('6');
+  await page.getByTestId('uncertainty-draws').press('Enter');
+  await expect(page.getByTestId('uncertainty-draws')).toHaveValue('6');
+  await page.getByRole('tab', { name: 'Board' }).click();
+
+  await page.getByTestId(`option-name-${o}`).click();
+  const finder = page.getByTestId('best-order-finder');
+  await finder.getByTestId('order-groups').selectOption('custom');
+  await finder.getByTestId('order-groups-spec').fill(SPEC);
+  await finder.getByTestId('order-top').fill('3');
+  await finder.getByTestId('order-find').click();
+  await expect(finder.getByTestId('order-draws')).toContainText('share of 6 uncertainty draws', { timeout: 90_000 });
+  const shares = await Promise.all([0, 1, 2].map(async (k) => Number(await finder.getByTestId(`found-order-value-${k}-share`).getAttribute('data-share'))));
+  expect(shares.reduce((a, b) => a + b, 0)).toBeCloseTo(1, 9);
+  for (const x of shares) expect(Math.abs(x * 12 - Math.round(x * 12))).toBeLessThan(1e-9);
+  await expect(finder.getByTestId('found-order-value-0-share')).toHaveText(/^\d+ %$/);
+
+  // Include in the report (one undo step).
+  await finder.getByTestId('order-include').click();
+  await expect(finder.getByTestId('order-included')).toBeVisible();
+  // Using the best order for the option changes the scenario, which outdates the included comparison.
+  await finder.getByTestId('order-apply-0').click();
+  await expect(finder.getByTestId('order-method')).toContainText('has changed since');
+  // Adding the order the option now runs as a new option says so and adds nothing.
+  const n = await columns(page).count();
+  await finder.getByTestId('order-add-0').click();
+  await expect(finder.getByTestId('order-notice')).toContainText('already runs, so no option was added');
+  await expect(columns(page)).toHaveCount(n);
+
+  // The report leaves the outdated comparison out and says so; undoing the apply brings it back,
+  // undoing the include takes it out.
+  await page.getByRole('tab', { name: 'Report' }).click();
+  const report = page.frameLocator('iframe.sheet');
+  await expect(page.getByTestId('report-orders-outdated')).toBeVisible();
+  await expect(report.locator('h1')).toContainText('Policy options report', { timeout: 30_000 });
+  await expect(report.locator('#orders')).toHaveCount(0);
+  await page.getByTestId('undo').click();
+  await expect(report.locator('#orders')).toContainText('Vaccination orders compared', { timeout: 30_000 });
+  await expect(page.getByTestId('report-orders-outdated')).toHaveCount(0);
+  await expect(report.locator('#orders')).toContainText('Best in draws');
+  await expect(report.locator('#orders tr[data-row="order-0"]')).toContainText('1. 60+ > 50-59 > 0-49');
+  await page.screenshot({ path: `${ARTIFACTS}/order-search-report.png`, fullPage: true });
+  await page.getByTestId('undo').click();
+  await expect(report.locator('#orders')).toHaveCount(0, { timeout: 30_000 });
+  await page.getByTestId('redo').click();
+  await expect(report.locator('#orders')).toHaveCount(1, { timeout: 30_000 });
+  expect(errors).toEqual([]);
+});

@@ -3,6 +3,7 @@ import { readFileSync } from 'node:fs';
 import { parseScenarioText, validateScenario } from '../../src/engine/validation.ts';
 import { referenceIndexOf } from '../../src/engine/run.ts';
 import type { Scenario } from '../../src/engine/scenario.ts';
+import type { OrderComparison } from '../../src/engine/index.ts';
 import {
   addOption,
   addPhase,
@@ -11,6 +12,7 @@ import {
   deletePhase,
   documentFor,
   duplicateOption,
+  includeOrders,
   indexAfterMove,
   moveOption,
   renameOption,
@@ -123,5 +125,15 @@ describe('phase edits', () => {
     const full = doc.scenario.options.findIndex((o) => o.phases.some((p) => p.toDay >= doc.scenario.horizonDays));
     expect(full).toBeGreaterThanOrEqual(0);
     expect(addPhase(doc, full)).toBeNull();
+  });
+});
+
+describe('an order comparison included in the report', () => {
+  const comparison = { option: 'x' } as unknown as OrderComparison;
+  it('stays with the document through edits and goes when left out', () => {
+    const doc = includeOrders(documentFor(demo()), { comparison, revision: 'r1' });
+    const edited = setReferenceOption(renameOption(addOption(doc), 0, 'Renamed'), 1);
+    expect(edited.includedOrders).toEqual({ comparison, revision: 'r1' });
+    expect(includeOrders(edited, null)).not.toHaveProperty('includedOrders');
   });
 });

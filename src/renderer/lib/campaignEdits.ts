@@ -32,7 +32,7 @@ export const NEW_CAMPAIGN_DEFAULTS = {
 } as const;
 
 function withScenario(doc: WorkingDocument, scenario: Scenario, colourSlots = doc.colourSlots): WorkingDocument {
-  return { scenario, colourSlots };
+  return { ...doc, scenario, colourSlots };
 }
 
 /** A campaign name not used yet: `base`, else `base (2)`, `base (3)`, ... */

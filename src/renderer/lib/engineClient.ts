@@ -4,9 +4,38 @@
  * the results with the engine (`runScenarioOnPool`); a newer run cancels the older one between
  * options, and only the newest run's results reach `onResults`. `orders(scenario, option)` does
  * the same for vaccination order templates and the coverage needed for R < 1 (newest wins); it
- * queues behind a run's options, so it never delays the redraw after an edit.
+ * queues behind a run's options, so it never delays the redraw after an edit. `findOrders` runs
+ * a vaccination order search: the search's bookkeeping here, each batch of orders (and, with an
+ * uncertainty section, each draw of the top orders) on the pool, so runs after an edit slip in
+ * between batches; aborting its signal stops it.
  */
-import { PoolCancelled, runScenarioOnPool, WorkerPool, type OrdersInfo, type PoolEndpoint, type PoolReply, type Scenario, type ScenarioResults } from '../../engine/index.ts';
+import {
+  formatProblem,
+  orderComparisonOf,
+  orderShares,
+  PoolCancelled,
+  poolEvaluator,
+  prepareOrderDraws,
+  prepareOrderSearch,
+  runScenarioOnPool,
+  searchOrders,
+  topOrdersUnderDraws,
+  WorkerPool,
+  type OrderComparison,
+  type OrderSearchRequest,
+  type OrderSearchSettings,
+  type OrdersInfo,
+  type PoolEndpoint,
+  type PoolReply,
+  type Scenario,
+  type ScenarioResults,
+} from '../../engine/index.ts';
+
+/** What an order search came to: the comparison, the request's problems, or cancelled. */
+export type OrderSearchOutcome = { kind: 'found'; comparison: OrderComparison } | { kind: 'refused'; problems: string[] } | { kind: 'cancelled' };
+
+/** Progress of an order search: the search itself, then the draws of the top orders. */
+export type OrderSearchStep = { stage: 'search'; fraction: number; evaluated: number; ruledOut: number } | { stage: 'draws'; fraction: number; done: number; total: number };
 
 export interface EngineCallbacks {
   onResults(results: ScenarioResults, runId: number, computeMs: number): void;
@@ -73,6 +102,28 @@ export class EngineClient {
       },
     );
     return requestId;
+  }
+
+  /** Searches the orders of `request` (see the module comment); never rejects. */
+  async findOrders(scenario: Scenario, request: OrderSearchRequest, settings: Partial<OrderSearchSettings>, onProgress: (step: OrderSearchStep) => void, signal: AbortSignal): Promise<OrderSearchOutcome> {
+    const prepared = prepareOrderSearch(scenario, request);
+    if (!prepared.ok) return { kind: 'refused', problems: prepared.problems.map(formatProblem) };
+    const job = prepared.job;
+    try {
+      const result = await searchOrders(job, poolEvaluator(this.pool, { scenario, request }, signal), settings, {
+        onProgress: (p) => onProgress({ stage: 'search', fraction: p.fraction, evaluated: p.evaluated, ruledOut: p.ruledOut }),
+        isCancelled: () => signal.aborted,
+      });
+      if (result.cancelled) return { kind: 'cancelled' };
+      if (scenario.uncertainty === undefined) return { kind: 'found', comparison: orderComparisonOf(job, result) };
+      const context = { scenario, ...topOrdersUnderDraws(job, result) };
+      const draws = Array.from({ length: scenario.uncertainty.draws }, (_, i) => i);
+      const results = await this.pool.map('orderDraws', context, draws, { signal, onProgress: (done, total) => onProgress({ stage: 'draws', fraction: done / total, done, total }) });
+      return { kind: 'found', comparison: orderComparisonOf(job, result, orderShares(prepareOrderDraws(context), results)) };
+    } catch (err) {
+      if (err instanceof PoolCancelled || signal.aborted) return { kind: 'cancelled' };
+      return { kind: 'refused', problems: [messageOf(err)] };
+    }
   }
 
   dispose(): void {

@@ -2,7 +2,7 @@
  * The report and its exports for the scenario on screen, built with the same code as
  * `mixwise report` (src/report), so the app, the CLI and a printout agree to the character.
  */
-import type { ScenarioResults, Scenario } from '../../engine/index.ts';
+import type { OrderComparison, ScenarioResults, Scenario } from '../../engine/index.ts';
 import { buildReportHtml, dailySeriesCsv, optionsTableCsv, scenarioFingerprint, shortFingerprint, type Orientation, type Paper } from '../../report/index.ts';
 import type { ReportDocument } from '../../shared/hostApi.ts';
 import { APP_VERSION } from './appVersion.ts';
@@ -23,7 +23,8 @@ export interface BuiltReport extends ReportDocument {
 /**
  * The report for `scenario` and its `results` (results must be the engine's for exactly this scenario).
  * `colourSlots` (the working document's, one per option) makes the printout draw each option in the
- * colour it has in the app; without them options are coloured by position.
+ * colour it has in the app; without them options are coloured by position. `orderComparison`, found
+ * for exactly this scenario, is printed beside the options table.
  */
 export async function buildReport(
   scenario: Scenario,
@@ -31,9 +32,10 @@ export async function buildReport(
   settings: ReportSettings,
   generatedAt: Date,
   colourSlots?: readonly number[],
+  orderComparison?: OrderComparison,
 ): Promise<BuiltReport> {
   const fingerprint = await scenarioFingerprint(scenario, APP_VERSION);
-  const html = buildReportHtml(scenario, results, { appVersion: APP_VERSION, generatedAt, fingerprint, ...settings, ...(colourSlots ? { colourSlots } : {}) });
+  const html = buildReportHtml(scenario, results, { appVersion: APP_VERSION, generatedAt, fingerprint, ...settings, ...(colourSlots ? { colourSlots } : {}), ...(orderComparison ? { orderComparison } : {}) });
   return { html, paper: settings.paper, orientation: settings.orientation, fingerprint, shortFingerprint: shortFingerprint(fingerprint), generatedAt };
 }
 

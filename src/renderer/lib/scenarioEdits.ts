@@ -4,14 +4,26 @@
  *
  * The working document is the validated scenario plus one colour slot per option, moved
  * along with its option so an option keeps its colour when others are added, moved or deleted.
+ * It may also carry an order comparison included in the report (includedOrders).
  */
-import type { Phase, PolicyOption, Scenario } from '../../engine/index.ts';
+import type { OrderComparison, Phase, PolicyOption, Scenario } from '../../engine/index.ts';
 import { freeColourSlot } from './optionLines.ts';
 
 export interface WorkingDocument {
   scenario: Scenario;
   /** colourSlots[o] is option o's colour slot (see palette.ts). */
   colourSlots: number[];
+  /**
+   * An order comparison the analyst chose to include in the report, with the revision of the
+   * scenario it was found for (scenarioRevision): the report prints it only while the scenario
+   * is still that one. Kept through edits so undo and redo bring it back with the scenario.
+   */
+  includedOrders?: IncludedOrders;
+}
+
+export interface IncludedOrders {
+  comparison: OrderComparison;
+  revision: string;
 }
 
 export function documentFor(scenario: Scenario): WorkingDocument {
@@ -22,7 +34,7 @@ function withOptions(doc: WorkingDocument, options: PolicyOption[], colourSlots:
   const scenario: Scenario = { ...doc.scenario, options };
   if (referenceOption === undefined) delete scenario.referenceOption;
   else scenario.referenceOption = referenceOption;
-  return { scenario, colourSlots };
+  return { ...doc, scenario, colourSlots };
 }
 
 /** A name not used by any option: `base`, else `base (2)`, `base (3)`, ... */
@@ -149,5 +161,11 @@ export function setSettingMultiplier(doc: WorkingDocument, optionIndex: number, 
 
 /** Replaces the whole scenario part (e.g. an assumptions edit), keeping colour slots. */
 export function replaceScenario(doc: WorkingDocument, scenario: Scenario): WorkingDocument {
-  return { scenario, colourSlots: doc.colourSlots };
+  return { ...doc, scenario };
+}
+
+/** The document with `included` as the order comparison of the report (null: none). */
+export function includeOrders(doc: WorkingDocument, included: IncludedOrders | null): WorkingDocument {
+  const { includedOrders: _dropped, ...rest } = doc;
+  return included === null ? rest : { ...rest, includedOrders: included };
 }

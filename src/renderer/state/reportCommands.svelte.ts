@@ -40,7 +40,7 @@ class ReportCommands {
       }
       await new Promise((resolve) => setTimeout(resolve, POLL_MS));
     }
-    return { scenario: workspace.scenario, results: workspace.results, colourSlots: workspace.doc.colourSlots };
+    return { scenario: workspace.scenario, results: workspace.results, colourSlots: workspace.doc.colourSlots, orderComparison: workspace.reportOrders ?? undefined };
   }
 
   private tell(outcome: SaveOutcome): void {
@@ -51,7 +51,7 @@ class ReportCommands {
 
   private async report() {
     const inputs = await this.freshInputs();
-    return inputs === null ? null : buildReport(inputs.scenario, inputs.results, reportSettings.current, new Date(), inputs.colourSlots);
+    return inputs === null ? null : buildReport(inputs.scenario, inputs.results, reportSettings.current, new Date(), inputs.colourSlots, inputs.orderComparison);
   }
 
   private async csv(kind: CsvExport): Promise<void> {

@@ -5,7 +5,7 @@
  */
 import { tick } from 'svelte';
 import { parseScenarioText, formatProblem, scenarioRevision, type Scenario, type ScenarioResults, type OrdersInfo } from '../../engine/index.ts';
-import { EngineClient } from '../lib/engineClient.ts';
+import { EngineClient, type OrderSearchOutcome } from '../lib/engineClient.ts';
 import { checkEdit, type EditResult } from '../lib/editCheck.ts';
 import { pushHistory, redoHistory, startHistory, undoHistory, type HistoryState } from '../lib/history.ts';
 import { documentFor, replaceScenario, type WorkingDocument } from '../lib/scenarioEdits.ts';
@@ -53,6 +53,11 @@ class Workspace {
   readonly dirty = $derived(this.savedDocument !== this.history.present);
   readonly canUndo = $derived(this.history.past.length > 0);
   readonly canRedo = $derived(this.history.future.length > 0);
+  private readonly revision = $derived(scenarioRevision(this.history.present.scenario));
+  /** The order comparison included in the report, while the scenario is still the one it was found for; else null. */
+  readonly reportOrders = $derived(this.history.present.includedOrders?.revision === this.revision ? (this.history.present.includedOrders?.comparison ?? null) : null);
+  /** True when an included order comparison was found for an earlier version of the scenario (the report leaves it out). */
+  readonly reportOrdersOutdated = $derived(this.history.present.includedOrders !== undefined && this.reportOrders === null);
   /**
    * True when `results` has one result per option of the present scenario, in its order: the
    * results' scenario has the same options (by name, in the same order). Stale results of such a
@@ -93,6 +98,12 @@ class Workspace {
     this.host();
     void this.refreshRecent();
     this.recompute();
+  }
+
+  /** Searches vaccination orders on the engine's pool (EngineClient.findOrders). */
+  findOrders(...args: Parameters<EngineClient['findOrders']>): Promise<OrderSearchOutcome> {
+    if (this.engine === null) return Promise.resolve({ kind: 'refused', problems: ['The engine has not started yet.'] });
+    return this.engine.findOrders(...args);
   }
 
   /** Asks the engine for order templates and option `optionIndex`'s coverage needed (unless already asked for this scenario). */
