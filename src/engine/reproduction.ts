@@ -9,10 +9,12 @@
  *   K(d) x = diag(D S_eff(d)) p, so min_i (K x)_i / x_i <= R(d) <= max_i (K x)_i / x_i costs n
  *   multiplications. Before and after the wave, where S hardly moves, it is already narrower than
  *   REPRODUCTION_TOLERANCE and the day costs no matrix-vector product.
- * - Otherwise power iteration starts from the Perron vector extrapolated quadratically from the
- *   three days before (3 x_{d-1} - 3 x_{d-2} + x_{d-3}, clipped at 0), much closer than
- *   yesterday's vector while S changes fast; in the first days after the measures change, from
- *   yesterday's.
+ * - Otherwise power iteration starts from the Perron vector extrapolated cubically from the four
+ *   days before (4 x_{d-1} - 6 x_{d-2} + 4 x_{d-3} - x_{d-4}, clipped at 0; quadratically,
+ *   3 x_{d-1} - 3 x_{d-2} + x_{d-3}, on the fourth day after the measures change), much closer
+ *   than yesterday's vector while S changes fast (on the demo the cubic start saves 10-17% of the
+ *   products over the quadratic one; linear or quintic starts cost more); in the first days after
+ *   the measures change, from yesterday's.
  */
 import { spectralRadius } from './ngm.ts';
 import type { PreparedScenario } from './prepare.ts';
@@ -51,6 +53,7 @@ export function reproductionByDay(p: PreparedScenario, segments: readonly Segmen
   const x1 = new Float64Array(n);
   const x2 = new Float64Array(n);
   const x3 = new Float64Array(n);
+  const x4 = new Float64Array(n);
   let seg = 0;
   let measuresSince = 0;
   for (let d = 0; d <= H; d++) {
@@ -65,12 +68,14 @@ export function reproductionByDay(p: PreparedScenario, segments: readonly Segmen
     for (let i = 0; i < n; i++) scale[i] = D * effectiveSusceptible[d * n + i];
     rt[d] = d === 0 || measuresChanged ? NaN : bracketMidpoint(x1, product, scale, n);
     if (Number.isNaN(rt[d])) {
-      if (d - 3 >= measuresSince) for (let i = 0; i < n; i++) vector[i] = Math.max(0, 3 * x1[i] - 3 * x2[i] + x3[i]);
+      if (d - 4 >= measuresSince) for (let i = 0; i < n; i++) vector[i] = Math.max(0, 4 * x1[i] - 6 * x2[i] + 4 * x3[i] - x4[i]);
+      else if (d - 3 >= measuresSince) for (let i = 0; i < n; i++) vector[i] = Math.max(0, 3 * x1[i] - 3 * x2[i] + x3[i]);
       else if (d > 0) vector.set(x1);
       rt[d] = spectralRadius(segments[seg].transmission, n, vector, scratch, d === 0 ? START_TOLERANCE : REPRODUCTION_TOLERANCE, scale, product);
     } else {
       vector.set(x1);
     }
+    x4.set(x3);
     x3.set(x2);
     x2.set(x1);
     x1.set(vector);
