@@ -7,8 +7,11 @@
  * queues behind a run's options, so it never delays the redraw after an edit. `findOrders` runs
  * a vaccination order search: the search's bookkeeping here, each batch of orders (and, with an
  * uncertainty section, each draw of the top orders) on the pool, so runs after an edit slip in
- * between batches; aborting its signal stops it.
+ * between batches; aborting its signal stops it. `draws(scenario)` runs the draws of a scenario's
+ * uncertainty section (drawSlices.ts), newest wins; an edit cancels them (`cancelDraws`) before the
+ * options of the edited scenario run.
  */
+import { runDrawsInSlices, type DrawsCallbacks } from './drawSlices.ts';
 import {
   formatProblem,
   orderComparisonOf,
@@ -68,6 +71,7 @@ export class EngineClient {
   private lastOrdersId = 0;
   private running: AbortController | null = null;
   private asking: AbortController | null = null;
+  private drawing: AbortController | null = null;
 
   constructor(private readonly callbacks: EngineCallbacks) {}
 
@@ -126,7 +130,21 @@ export class EngineClient {
     }
   }
 
+  /** Starts the draws of `scenario` (it has an uncertainty section); any older draws are cancelled. */
+  draws(scenario: Scenario, callbacks: DrawsCallbacks): void {
+    this.drawing?.abort();
+    const control = (this.drawing = new AbortController());
+    runDrawsInSlices(this.pool, scenario, { ...callbacks, signal: control.signal });
+  }
+
+  /** Cancels the draws in progress (their queued slices are dropped); nothing more is reported. */
+  cancelDraws(): void {
+    this.drawing?.abort();
+    this.drawing = null;
+  }
+
   dispose(): void {
+    this.drawing?.abort();
     this.running?.abort();
     this.asking?.abort();
     this.pool.close();

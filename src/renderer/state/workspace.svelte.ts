@@ -4,7 +4,7 @@
  * Components read this and call its actions; they do no model math.
  */
 import { tick } from 'svelte';
-import { parseScenarioText, formatProblem, scenarioRevision, type Scenario, type ScenarioResults, type OrdersInfo } from '../../engine/index.ts';
+import { parseScenarioText, formatProblem, scenarioRevision, type Scenario, type ScenarioResults, type OrdersInfo, type UncertaintyResults } from '../../engine/index.ts';
 import { EngineClient, type OrderSearchOutcome } from '../lib/engineClient.ts';
 import { checkEdit, type EditResult } from '../lib/editCheck.ts';
 import { pushHistory, redoHistory, startHistory, undoHistory, type HistoryState } from '../lib/history.ts';
@@ -14,8 +14,20 @@ import { DEMO_FILE_NAME, demoScenario } from '../lib/demo.ts';
 import { host } from '../lib/host.ts';
 import type { RecentFile } from '../../shared/hostApi.ts';
 
-export type ViewName = 'board' | 'curves' | 'by-age' | 'assumptions' | 'report';
+export type ViewName = 'board' | 'curves' | 'by-age' | 'spread' | 'assumptions' | 'report';
 export type Notice = { kind: 'info' | 'error'; text: string };
+
+/** The draws of the scenario's uncertainty section: progress, and the newest summary (provisional until every draw is done). */
+export interface DrawsState {
+  scenario: Scenario;
+  done: number;
+  total: number;
+  results: UncertaintyResults | null;
+  /** Draws in `results` (all of them once `state` is 'done'). */
+  summarised: number;
+  state: 'running' | 'done' | 'cancelled' | 'failed';
+  error: string | null;
+}
 
 /** Performance mark/measure names for the edit-to-redraw time (read by the e2e run). */
 export const EDIT_MARK = 'mixwise-edit';
@@ -47,6 +59,8 @@ class Workspace {
   /** Vaccination order templates and coverage needed for R < 1, as the engine gave them for `scenario` and `optionIndex`. */
   orders = $state.raw<{ scenario: Scenario; optionIndex: number; info: OrdersInfo } | null>(null);
   ordersError = $state<string | null>(null);
+  /** Draws of the present scenario's uncertainty section; null when it has none (or before its options are computed). */
+  draws = $state.raw<DrawsState | null>(null);
 
   readonly doc = $derived(this.history.present);
   readonly scenario = $derived(this.history.present.scenario);
@@ -129,6 +143,8 @@ class Workspace {
     this.stale = false;
     this.engineError = null;
     this.computeMs = computeMs;
+    // The deterministic board first, then the draws on the same pool.
+    this.startDraws();
     if (this.editPending) {
       this.editPending = false;
       await tick();
@@ -139,7 +155,42 @@ class Workspace {
     }
   }
 
+  /** Starts the draws of the computed scenario when it has an uncertainty section (older draws are cancelled). */
+  startDraws(): void {
+    this.engine?.cancelDraws();
+    const scenario = this.resultsScenario;
+    if (scenario === null || scenario !== this.scenario || scenario.uncertainty === undefined || this.engine === null) {
+      this.draws = null;
+      return;
+    }
+    this.draws = { scenario, done: 0, total: scenario.uncertainty.draws, results: null, summarised: 0, state: 'running', error: null };
+    const mine = (): DrawsState | null => (this.draws?.scenario === scenario ? this.draws : null);
+    this.engine.draws(scenario, {
+      onProgress: (done, total) => {
+        const d = mine();
+        if (d !== null) this.draws = { ...d, done, total };
+      },
+      onSummary: (results, done, final) => {
+        const d = mine();
+        if (d !== null) this.draws = { ...d, results, summarised: done, done: Math.max(d.done, done), state: final ? 'done' : d.state };
+      },
+      onFailure: (message) => {
+        const d = mine();
+        if (d !== null) this.draws = { ...d, state: 'failed', error: message };
+      },
+    });
+  }
+
+  /** Stops the draws in progress; the summary so far stays, marked as such. */
+  cancelDraws(): void {
+    this.engine?.cancelDraws();
+    if (this.draws?.state === 'running') this.draws = { ...this.draws, state: 'cancelled' };
+  }
+
   private afterChange(): void {
+    // An edit cancels the draws of the scenario it replaces; they start again once the options are computed.
+    this.engine?.cancelDraws();
+    this.draws = null;
     const max = this.scenario.options.length - 1;
     if (this.selectedOption > max) this.selectedOption = max;
     const phases = this.scenario.options[this.selectedOption].phases.length;

@@ -1,0 +1,123 @@
+/**
+ * Draws of the uncertain inputs on the board and in the Spread view (web mode, Debian's chromium):
+ * the deterministic board shows first, the draws run on the app's worker pool with a progress bar,
+ * count and Cancel; intervals fill in under each cell and the chance rows appear, equal to the
+ * engine's summary of the same draws computed here in one thread; Cancel stops, an edit restarts
+ * the draws for the edited scenario, and the app answers clicks while draws run.
+ */
+import { expect, test, type Page } from '@playwright/test';
+import { readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { evaluateDrawRange, parseScenarioText, prepareDraws, runScenario, summariseDraws, type Scenario } from '../src/engine/index.ts';
+import { catalogueReader } from '../src/report/drawOutcomes.ts';
+import { formatInterval, screen } from '../src/report/numberFormat.ts';
+import { outcome, valueContextOf } from '../src/report/outcomes.ts';
+import { DEMO, settled } from './helpers.ts';
+
+function withDraws(draws: number, seed: number): Scenario {
+  const parsed = parseScenarioText(readFileSync(DEMO, 'utf8'));
+  if (!parsed.ok) throw new Error('The demo scenario is not valid');
+  return {
+    ...parsed.scenario,
+    uncertainty: {
+      draws,
+      seed,
+      intervalLevel: 0.9,
+      parameters: [
+        { name: 'r0', distribution: { kind: 'uniform', low: 2, high: 3 }, source: 'Invented range for the test' },
+        { name: 'contactScale.work', distribution: { kind: 'triangular', low: 0.7, mode: 1, high: 1.2 }, source: 'Invented range for the test' },
+      ],
+    },
+  };
+}
+
+async function openScenario(page: Page, scenario: Scenario, name: string) {
+  const path = join(tmpdir(), `${name}-${Date.now()}.json`);
+  writeFileSync(path, JSON.stringify(scenario));
+  const [chooser] = await Promise.all([page.waitForEvent('filechooser'), page.getByTestId('open').click()]);
+  await chooser.setFiles(path);
+}
+
+test('intervals and chances fill in from the draws, equal to the engine summary; progress and count while they run', async ({ page }) => {
+  const errors: string[] = [];
+  page.on('pageerror', (e) => errors.push(e.message));
+  await page.goto('/');
+  await settled(page);
+  const scenario = withDraws(48, 5);
+  await openScenario(page, scenario, 'mixwise-draws');
+  await settled(page);
+
+  // The deterministic board is there at once (the draws come after).
+  const deterministic = runScenario(scenario);
+  // (Equal up to the last bits of a double: the browser's and Node's libm may round differently.)
+  const shown = Number(await page.getByTestId('cell-deaths-1').getAttribute('data-value'));
+  expect(Math.abs(shown - deterministic.options[1].deaths)).toBeLessThan(1e-9 * deterministic.options[1].deaths);
+  const status = page.getByTestId('draws-status');
+  await expect(status).toBeVisible();
+  await expect(status).toHaveAttribute('data-state', 'done', { timeout: 60_000 });
+  await expect(page.getByTestId('draws-count')).toHaveText('48 draws done');
+
+  // The same summary as the engine gives on one thread for the same draws.
+  const p = prepareDraws(scenario);
+  const summary = summariseDraws(p, evaluateDrawRange(p, 0, 48, catalogueReader), catalogueReader.keys);
+  const context = valueContextOf(deterministic);
+  for (const key of ['deaths', 'infections', 'peakIcuOccupancy']) {
+    for (const k of [0, 2]) {
+      const expected = formatInterval({ ...outcome(key), unit: '' }, summary.options[k].intervals[key]!, 'screen', context);
+      await expect(page.getByTestId(`interval-${key}-${k}`)).toHaveText(expected);
+    }
+  }
+  await expect(page.getByTestId('row-label-better-deaths')).toHaveText('Chance of fewer deaths than the reference');
+  const chance = page.getByTestId('chance-better-deaths-2');
+  await expect(chance).toHaveAttribute('data-value', String(summary.options[2].probabilityBetterThanReference.deaths));
+  await expect(chance).toHaveText(screen.percent(summary.options[2].probabilityBetterThanReference.deaths));
+  await expect(page.getByTestId('chance-better-deaths-0')).toHaveText('reference');
+  await expect(page.getByTestId('chance-best-deaths-1')).toHaveAttribute('data-value', String(summary.options[1].probabilityBest.deaths));
+  await page.screenshot({ path: 'e2e-artifacts/board-draws.png', fullPage: false });
+  expect(errors).toEqual([]);
+});
+
+test('Cancel stops the draws; an edit restarts them for the edited scenario; the app answers while they run', async ({ page }) => {
+  const errors: string[] = [];
+  page.on('pageerror', (e) => errors.push(e.message));
+  await page.goto('/');
+  await settled(page);
+  await openScenario(page, withDraws(4000, 1), 'mixwise-many-draws');
+  await settled(page);
+
+  const status = page.getByTestId('draws-status');
+  await expect(status).toHaveAttribute('data-state', 'running');
+  await expect(status.locator('progress')).toHaveAttribute('max', '4000');
+  await expect(page.getByTestId('draws-count')).toHaveText(/^[\d,]+ of 4,000 draws$/);
+  // Progress moves: some draws are done while the rest run.
+  await expect.poll(async () => Number(await status.locator('progress').getAttribute('value')), { timeout: 60_000 }).toBeGreaterThan(0);
+
+  // The app answers while draws run: another view opens, and the board comes back with the draws still going.
+  await page.getByRole('tab', { name: 'Curves' }).click();
+  await expect(page.getByRole('tab', { name: 'Curves' })).toHaveAttribute('aria-selected', 'true');
+  await page.getByRole('tab', { name: 'Options board' }).click();
+  await expect(status).toHaveAttribute('data-state', 'running');
+
+  await page.getByTestId('draws-cancel').click();
+  await expect(status).toHaveAttribute('data-state', 'cancelled');
+  await expect(page.getByTestId('draws-count')).toHaveText(/^Draws stopped at [\d,]+ of 4,000\.$/);
+  const stoppedAt = await status.locator('[data-testid="draws-count"]').textContent();
+  await page.waitForTimeout(1500);
+  // Nothing more arrives after Cancel.
+  await expect(page.getByTestId('draws-count')).toHaveText(stoppedAt ?? '');
+
+  await page.getByTestId('draws-restart').click();
+  await expect(status).toHaveAttribute('data-state', 'running');
+
+  // An edit (fewer draws, in the Assumptions view) cancels the running draws and starts the edited scenario's.
+  await page.getByRole('tab', { name: 'Assumptions' }).click();
+  const draws = page.getByTestId('uncertainty-draws');
+  await draws.fill('24');
+  await draws.press('Enter');
+  await page.getByRole('tab', { name: 'Options board' }).click();
+  await expect(status.locator('progress').or(page.getByTestId('draws-count'))).not.toHaveCount(0);
+  await expect(status).toHaveAttribute('data-state', 'done', { timeout: 60_000 });
+  await expect(page.getByTestId('draws-count')).toHaveText('24 draws done');
+  expect(errors).toEqual([]);
+});
