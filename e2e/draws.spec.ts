@@ -121,3 +121,50 @@ test('Cancel stops the draws; an edit restarts them for the edited scenario; the
   await expect(page.getByTestId('draws-count')).toHaveText('24 draws done');
   expect(errors).toEqual([]);
 });
+
+test('the Spread view: interval plot and table per outcome, PRCC ranking in a chart and in words, the caution; reached by keyboard', async ({ page }) => {
+  const errors: string[] = [];
+  page.on('pageerror', (e) => errors.push(e.message));
+  await page.goto('/');
+  await settled(page);
+
+  // Without uncertain inputs the view says where to name them.
+  await page.getByRole('tab', { name: 'Spread' }).click();
+  await expect(page.getByTestId('spread-empty')).toContainText('treats no input as uncertain');
+
+  const scenario = withDraws(48, 5);
+  await openScenario(page, scenario, 'mixwise-spread');
+  await settled(page);
+  await page.getByRole('tab', { name: 'Report' }).focus();
+  await page.keyboard.press('ArrowRight');
+  await expect(page.getByRole('tab', { name: 'Spread' })).toBeFocused();
+  await page.keyboard.press('Alt+1');
+  await expect(page.getByRole('tab', { name: 'Options board' })).toHaveAttribute('aria-selected', 'true');
+  await page.keyboard.press('Alt+6');
+  await expect(page.getByRole('tab', { name: 'Spread' })).toHaveAttribute('aria-selected', 'true');
+  await expect(page.getByTestId('spread-basis')).toContainText('Over 48 draws', { timeout: 60_000 });
+
+  const p = prepareDraws(scenario);
+  const summary = summariseDraws(p, evaluateDrawRange(p, 0, 48, catalogueReader), catalogueReader.keys);
+  const deterministic = runScenario(scenario);
+  const context = valueContextOf(deterministic);
+  await expect(page.getByTestId('spread-outcome')).toHaveValue('deaths');
+  for (const k of [0, 1, 3]) await expect(page.getByTestId(`spread-interval-${k}`)).toHaveText(formatInterval(outcome('deaths'), summary.options[k].intervals.deaths!, 'screen', context));
+  await expect(page.getByTestId('spread-view').getByRole('img')).toHaveCount(2);
+
+  // The ranking for the selected option, in words: the same order as the engine's PRCCs.
+  const prcc = (name: string) => summary.sensitivity.find((e) => e.option === 'No measures' && e.outcome === 'deaths' && e.parameter === name)!.prcc!;
+  expect(Math.abs(prcc('r0'))).toBeGreaterThan(Math.abs(prcc('contactScale.work')));
+  await expect(page.getByTestId('spread-words')).toContainText(`R0 explains most of the spread in deaths under “No measures” (PRCC +${prcc('r0').toFixed(2)}`);
+  await expect(page.getByTestId('sensitivity-table').locator('tbody tr').first()).toContainText('R0');
+
+  // Another outcome by keyboard; the table follows.
+  const pick = page.getByTestId('spread-outcome');
+  await pick.focus();
+  await pick.selectOption('infections');
+  await expect(page.getByTestId('spread-interval-1')).toHaveText(formatInterval(outcome('infections'), summary.options[1].intervals.infections!, 'screen', context));
+  await expect(page.getByTestId('spread-caution')).toContainText('not forecasts');
+  await expect(page.getByTestId('spread-caution')).toContainText('responsible public-health authority and local rules');
+  await page.screenshot({ path: 'e2e-artifacts/view-spread.png', fullPage: true });
+  expect(errors).toEqual([]);
+});

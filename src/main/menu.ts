@@ -70,6 +70,7 @@ export function menuTemplate(recent: readonly RecentFile[], actions: MenuActions
         command('view-by-age', actions),
         command('view-assumptions', actions),
         command('view-report', actions),
+        command('view-spread', actions),
         { type: 'separator' },
         { role: 'resetZoom' },
         { role: 'zoomIn' },

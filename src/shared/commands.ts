@@ -42,6 +42,7 @@ export const COMMANDS = [
   { id: 'view-by-age', label: 'By age', keys: [{ key: '3', alt: true }] },
   { id: 'view-assumptions', label: 'Assumptions', keys: [{ key: '4', alt: true }] },
   { id: 'view-report', label: 'Report', keys: [{ key: '5', alt: true }] },
+  { id: 'view-spread', label: 'Spread', keys: [{ key: '6', alt: true }] },
   { id: 'show-model-notes', label: 'Model notes', keys: [{ key: 'f1' }] },
   { id: 'show-about', label: 'About Mixwise', keys: [] },
 ] as const satisfies readonly CommandEntry[];
