@@ -1,7 +1,10 @@
 /**
- * Seeded fuzzing of the scenario reader and the engine: 1,000 mutants of the demo file (wrong
- * types, non-finite and extreme numbers, missing and extra keys, wrong lengths, deep nesting, odd
- * names, broken JSON, other encodings). Each must end in a refusal whose every line names a JSON
+ * Seeded fuzzing of the scenario reader and the engine: 1,200 mutants (wrong types, non-finite and
+ * extreme numbers, missing and extra keys, wrong lengths, deep nesting, odd names, broken JSON,
+ * other encodings), half of the demo file and half of the demo with every newer section filled in
+ * (start date, life table, by-band delays, triggered measures, a second vaccination order, an
+ * uncertainty section with each kind of distribution). Accepted mutants with an uncertainty
+ * section also run two draws. Each must end in a refusal whose every line names a JSON
  * path (or the file) without raw control characters, or in a result whose numbers are finite and
  * in range, within a budget of integrator steps. No wall-clock assertion: the step budget and the
  * time limit below (a guard against a hang, far above the test's cost on an idle machine) catch
@@ -10,13 +13,16 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { integratorStepsSoFar } from '../../src/engine/dopri5.ts';
-import { formatProblem, parseScenarioText, runScenario, type OptionResults, type Scenario } from '../../src/engine/index.ts';
+import { evaluateDraw, formatProblem, parseScenarioText, prepareDraws, runScenario, withDrawSettings, type OptionResults, type Scenario } from '../../src/engine/index.ts';
+import { catalogueReader } from '../../src/report/drawOutcomes.ts';
 import { decodeUtf8Text } from '../../src/shared/textFile.ts';
 import { DEMO_PATH } from '../helpers/demo.ts';
 import { seededRandom } from '../helpers/random.ts';
-import { mutateScenario } from '../helpers/scenarioMutations.ts';
+import { enrichedDemo, mutateScenario } from '../helpers/scenarioMutations.ts';
 
-const MUTANTS = 1000;
+const MUTANTS = 1200;
+/** Draws run for an accepted mutant with an uncertainty section. */
+const DRAWS = 2;
 /** One accepted mutant in RUN_EVERY is run (the rest are only validated, to keep the suite quick). */
 const RUN_EVERY = 2;
 /** Days a run is cut to: the checks are about finiteness and ranges, not about long horizons. */
@@ -53,6 +59,7 @@ export interface FuzzTally {
   accepted: number;
   refused: number;
   run: number;
+  draws: number;
   faults: string[];
 }
 
@@ -84,15 +91,25 @@ function tryMutant(label: string, bytes: Uint8Array, run: boolean, tally: FuzzTa
   if (steps > STEP_BUDGET) tally.faults.push(`${label}: ${steps} integrator steps`);
   if (!Number.isFinite(results.r0) || !Number.isFinite(results.beta)) tally.faults.push(`${label}: r0 ${results.r0}, beta ${results.beta}`);
   for (const o of results.options) tally.faults.push(...checkOption(o).map((f) => `${label}: ${f}`));
+  if (scenario.uncertainty === undefined) return;
+  // A draw may break a rule (refused with that rule); a crash ("the run failed") or an infinite outcome is a fault.
+  const draws = prepareDraws(withDrawSettings(scenario, { draws: DRAWS }));
+  for (let d = 0; d < DRAWS; d++) {
+    const r = evaluateDraw(draws, d, catalogueReader);
+    tally.draws++;
+    if (!r.ok && /^the run failed/.test(r.reason)) tally.faults.push(`${label}: draw ${d}: ${r.reason}`);
+    if (r.ok) for (const v of r.outcomes) for (const x of v) if (x === Infinity || x === -Infinity) tally.faults.push(`${label}: draw ${d}: an outcome is ${x}`);
+  }
 }
 
 describe('fuzzing the demo scenario', () => {
   it(`ends each of ${MUTANTS} mutants in a clear refusal or a finite, in-range result`, () => {
-    const base = JSON.parse(readFileSync(DEMO_PATH, 'utf8')) as Record<string, unknown>;
+    const demo = JSON.parse(readFileSync(DEMO_PATH, 'utf8')) as Record<string, unknown>;
+    const bases = [demo, enrichedDemo(demo)];
     const random = seededRandom(20261202);
-    const tally: FuzzTally = { tried: 0, accepted: 0, refused: 0, run: 0, faults: [] };
+    const tally: FuzzTally = { tried: 0, accepted: 0, refused: 0, run: 0, draws: 0, faults: [] };
     for (let k = 0; k < MUTANTS; k++) {
-      const mutant = mutateScenario(random, base);
+      const mutant = mutateScenario(random, bases[k % 2]);
       try {
         tryMutant(mutant.label, mutant.bytes, tally.accepted % RUN_EVERY === 0, tally);
       } catch (err) {
@@ -104,5 +121,6 @@ describe('fuzzing the demo scenario', () => {
     // The mutants reach both ends: many refusals, and enough accepted files to run some.
     expect(tally.refused).toBeGreaterThan(MUTANTS / 2);
     expect(tally.run).toBeGreaterThan(20);
+    expect(tally.draws).toBeGreaterThan(20);
   }, 600_000);
 });

@@ -57,7 +57,7 @@ function mapOf(root: Record<string, unknown>): PlaceMap {
       map.all.push(at);
       if (typeof child === 'number') map.numbers.push(at);
       if (typeof child === 'number' && !at.includes('contactsPerDay')) map.scalars.push(at);
-      if (key === 'name' || key === 'setting' || key === 'vaccinationCampaign' || key === 'referenceOption') map.names.push(at);
+      if (key === 'name' || key === 'setting' || key === 'vaccinationCampaign' || key === 'referenceOption' || key === 'quantity' || key === 'kind' || key === 'startDate') map.names.push(at);
       if (key === 'contactsPerDay') map.matrices.push(at);
       if (Array.isArray(child)) map.lists.push(at);
       else if (child !== null && typeof child === 'object') map.objects.push(at);
@@ -248,4 +248,43 @@ export function mutateScenario(random: () => number, base: Record<string, unknow
   if (!textLevel) return { label: labels.join('; '), bytes: encoder.encode(text) };
   const how = pick(random, ENCODINGS);
   return { label: [...labels, `text: ${how}`].join('; '), bytes: encode(random, text, how) };
+}
+
+/**
+ * The demo with every newer section filled in, so mutations reach them too: a start date, a life
+ * table, admission delays band by band, triggered measures (on infections per 100,000 and on
+ * admissions, with lags and minimum days), a second campaign with its own priority order
+ * (all-or-nothing) and an uncertainty section with each kind of distribution (contactScale of a
+ * setting included).
+ */
+export function enrichedDemo(demo: Record<string, unknown>): Record<string, unknown> {
+  const s = structuredClone(demo) as Record<string, any>;
+  const bands = (s.ageBands as unknown[]).length;
+  s.startDate = '2031-03-01';
+  s.lifeTable = { rows: [{ ageYears: 0, remainingYears: 85 }, { ageYears: 40, remainingYears: 46 }, { ageYears: 90, remainingYears: 6 }], source: 'invented for the fuzz test' };
+  s.healthcare.admissionDelayByBand = Array.from({ length: bands }, (_, i) => ({ meanDays: 8 + i / 4, shape: 3 }));
+  s.options.push(
+    { name: 'Close schools on infections', phases: [{ fromDay: 10, toDay: 200, trigger: { quantity: 'infectiousPer100k', onAbove: 200, offBelow: 50, minimumDaysOn: 14, lagDays: 3 }, settingMultipliers: { school: 0 } }] },
+    { name: 'Halve work on admissions', phases: [{ fromDay: 0, toDay: 365, trigger: { quantity: 'dailyAdmissions', onAbove: 40, offBelow: 10, lagDays: 7 }, settingMultipliers: { work: 0.5 }, caseIsolation: 0.3 }], vaccinationCampaign: 'Young first' },
+  );
+  s.vaccinationCampaigns.push({
+    ...structuredClone(s.vaccinationCampaigns[0]),
+    name: 'Young first',
+    protection: 'allOrNothing',
+    priority: [[3, 4, 5, 6], [7, 8, 9, 10], [11, 12, 13, 14, 15]],
+  });
+  s.uncertainty = {
+    draws: 20,
+    seed: 5,
+    intervalLevel: 0.8,
+    parameters: [
+      { name: 'r0', distribution: { kind: 'triangular', low: 2, mode: 2.5, high: 3.2 }, source: 'invented' },
+      { name: 'latentPeriodDays', distribution: { kind: 'normal', mean: 3, sd: 0.5, low: 1, high: 5 }, source: 'invented' },
+      { name: 'contactScale.school', distribution: { kind: 'lognormal', median: 1, range95: [0.7, 1.4] }, source: 'invented' },
+      { name: 'ifrScale', distribution: { kind: 'lognormal', median: 1, geometricSd: 1.3 }, source: 'invented' },
+      { name: 'measureAdherence', distribution: { kind: 'uniform', low: 0.6, high: 1 }, source: 'invented' },
+      { name: 'hospitalisationScale', distribution: { kind: 'uniform', low: 0.8, high: 1.2 }, source: 'invented' },
+    ],
+  };
+  return s;
 }
