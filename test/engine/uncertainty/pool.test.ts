@@ -20,10 +20,15 @@ function bytesOf(value: unknown): string {
   });
 }
 
-/** The demo with `draws` draws; the latent period's normal reaches below its minimum, so some draws fail. */
+/**
+ * The demo with `draws` draws; the latent period's normal reaches below its minimum, so some draws
+ * fail. Sixty days: the checks compare threads byte for byte, which needs no full epidemic (the
+ * demo's 365 days made this file a quarter of the unit suite's time).
+ */
 function demoWithDraws(draws: number): Scenario {
   return {
     ...demoScenario(),
+    horizonDays: 60,
     uncertainty: {
       draws,
       seed: 7,
