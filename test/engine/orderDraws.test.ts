@@ -6,7 +6,9 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { nodeWorkerPool } from '../../src/cli/workerThreads.ts';
 import { mapInline } from '../../src/engine/pool/pool.ts';
 import type { Scenario, ScenarioInput } from '../../src/engine/scenario.ts';
-import { orderShares, prepareOrderDraws, type OrderDrawsContext } from '../../src/engine/vaccination/orderDraws.ts';
+import { orderShares, orderValuesUnderDraw, prepareOrderDraws, type OrderDrawsContext } from '../../src/engine/vaccination/orderDraws.ts';
+import { evaluateOptionUnderDraw } from '../../src/engine/uncertainty/drawOutcomes.ts';
+import { demoScenario } from '../helpers/demo.ts';
 import { valid } from '../helpers/scenarios.ts';
 
 const ACTIVITY = [0.5, 2, 1.5, 2.5];
@@ -80,6 +82,36 @@ describe('share of draws in which an order is best', () => {
     expect(shares.shareOfDrawsBest).toEqual([0.5, 0, 0.5]);
     const mixed = sharesOf(context([GOOD, [[1], [0], [2], [3]], [[0], [2], [1], [3]], POOR])).shares.shareOfDrawsBest;
     expect(mixed.reduce((a, b) => a + b, 0)).toBeCloseTo(1, 12);
+  });
+
+  it('runs each order under the draw evaluateOptionUnderDraw gives, measure adherence included', () => {
+    // The demo's campaign option, given the measures of an option that has some.
+    const demo = demoScenario();
+    const withMeasures = demo.options.find((o) => o.phases.length > 0);
+    const k = demo.options.findIndex((o) => o.vaccinationCampaign !== undefined);
+    if (withMeasures === undefined || k < 0) throw new Error('the demo has an option with measures and one with a campaign');
+    const option = { ...demo.options[k], phases: withMeasures.phases };
+    const scenario = valid({
+      ...demo,
+      options: demo.options.map((o, j) => (j === k ? option : o)),
+      uncertainty: {
+        draws: 4,
+        seed: 5,
+        parameters: [
+          { name: 'measureAdherence', distribution: { kind: 'uniform', low: 0.3, high: 0.9 }, source: 'test range' },
+          { name: 'r0', distribution: { kind: 'uniform', low: 2, high: 3 }, source: 'test range' },
+        ],
+      },
+    } as ScenarioInput);
+    const campaign = scenario.vaccinationCampaigns.find((v) => v.name === option.vaccinationCampaign);
+    const priority = [...(campaign?.priority ?? [])].reverse();
+    const p = prepareOrderDraws({ scenario, option: option.name, outcome: 'deaths', priorities: [priority] });
+    for (const draw of [0, 3]) {
+      const mine = orderValuesUnderDraw(p, draw);
+      const theirs = evaluateOptionUnderDraw(p.byOrder[0], draw, option);
+      if (!mine.ok || !theirs.ok) throw new Error('draws must run');
+      expect(mine.values[0]).toBe(theirs.results.deaths);
+    }
   });
 
   it('is the same on a pool of workers', { timeout: 120_000 }, async () => {

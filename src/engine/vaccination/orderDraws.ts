@@ -1,7 +1,8 @@
 /**
  * How often each of the top orders is the best one when the scenario's uncertain inputs vary:
  * every order runs under every Latin hypercube draw of the scenario's `uncertainty` section (the
- * same draws, from the same seed, as `mixwise run`; uncertainty/drawOutcomes.ts), and per draw
+ * same draws, from the same seed, as `mixwise run`: preparedScenarioOfDraw, as the run's draws
+ * use, then a summary run of the option, whose outcomes are the full run's bit for bit), and per draw
  * the order with the lowest value of the searched outcome wins, ties split equally (common
  * random numbers: the orders are compared draw by draw). A draw that fails for any order is left
  * out for all of them, so the comparison stays paired.
@@ -10,8 +11,9 @@
  * (job `orderDraws`, pool/jobs.ts) with the same shares as one thread.
  */
 import { probabilityLowest } from '../uncertainty/summaries.ts';
-import { evaluateOptionUnderDraw, prepareDraws, type PreparedDraws } from '../uncertainty/drawOutcomes.ts';
+import { prepareDraws, preparedScenarioOfDraw, type PreparedDraws } from '../uncertainty/drawOutcomes.ts';
 import type { PolicyOption, Scenario } from '../scenario.ts';
+import { simulateOption } from '../simulate.ts';
 import { outcomeValue, type OrderOutcome } from './orderEvaluation.ts';
 
 /** What every worker needs: plain data. */
@@ -55,14 +57,20 @@ export function prepareOrderDraws(c: OrderDrawsContext): PreparedOrderDraws {
   return { option, outcome: c.outcome, byOrder };
 }
 
-/** Every order under draw i. */
+/** Every order under draw i; never throws. */
 export function orderValuesUnderDraw(p: PreparedOrderDraws, draw: number): OrderDrawResult {
   const values: number[] = [];
-  for (const drawn of p.byOrder) {
-    const r = evaluateOptionUnderDraw(drawn, draw, p.option);
-    if (!r.ok) return { draw, ok: false, reason: r.reason };
-    const o = r.results;
-    values.push(outcomeValue({ deaths: o.deaths, infections: o.infections, yearsOfLifeLost: o.yearsOfLifeLost, admissions: o.healthcare?.admissions ?? null, peakIcuOccupancy: o.healthcare?.icu.peakOccupancy ?? null }, p.outcome));
+  try {
+    for (const drawn of p.byOrder) {
+      const prepared = preparedScenarioOfDraw(drawn, draw);
+      if (!prepared.ok) return { draw, ok: false, reason: prepared.reason };
+      // The drawn option: measureAdherence changes options' measures.
+      const option = prepared.prepared.scenario.options.find((o) => o.name === p.option.name) ?? p.option;
+      const o = simulateOption(prepared.prepared, option, { series: 'summary' });
+      values.push(outcomeValue({ deaths: o.deaths, infections: o.infections, yearsOfLifeLost: o.yearsOfLifeLost, admissions: o.healthcare?.admissions ?? null, peakIcuOccupancy: o.healthcare?.icu.peakOccupancy ?? null }, p.outcome));
+    }
+  } catch (err) {
+    return { draw, ok: false, reason: `the run failed: ${err instanceof Error ? err.message.split('\n')[0] : String(err)}` };
   }
   return { draw, ok: true, values };
 }
