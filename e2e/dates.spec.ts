@@ -1,11 +1,16 @@
 /**
  * Calendar dates in the app (web mode, Debian's chromium): the start date is set and cleared in
  * the Assumptions view (one undo step each, a refused value explained with the field's label);
- * with it the board's peak row and the phases show dates, and a phase can be entered by date.
+ * with it the board's peak row and the phases show dates, and a phase can be entered by date;
+ * dated counts are fitted on the scenario's days.
  */
 import { expect, test, type Page } from '@playwright/test';
+import { readFileSync } from 'node:fs';
+import { fitCaseCounts, parseCaseCountsCsv } from '../src/engine/index.ts';
 import { demoScenario } from './engineReference.ts';
 import { openApp, settled } from './helpers.ts';
+
+const CASES = 'resources/example-cases.csv';
 
 async function type(page: Page, testid: string, text: string) {
   const input = page.getByTestId(testid);
@@ -85,5 +90,27 @@ test('clearing the start date is one undoable edit', async ({ page }) => {
   await page.getByTestId('undo').click();
   await expect(page.getByTestId('start-date')).toHaveValue('');
   await expect(page.getByTestId('undo')).toBeDisabled();
+  expect(errors).toEqual([]);
+});
+
+test('the fit places dated counts on the scenario days and refuses counts before the start date, naming the line', async ({ page }) => {
+  const errors = await openApp(page);
+  await setStartDate(page, '2031-03-05');
+  await page.getByTestId('fit-file').setInputFiles(CASES);
+  // The example counts start 2031-03-03, two days before day 0: line 2 is the first such row.
+  await expect(page.getByTestId('fit-placement')).toContainText('line 2, column "date": is before the scenario\'s start date 2031-03-05, so it has no scenario day; lines 2 to 3 are (2 rows)');
+  await expect(page.getByTestId('fit-placement')).toContainText('got "2031-03-03"');
+
+  // 2031-02-10 + 21 days = 2031-03-03 (February 2031 has 28 days).
+  await type(page, 'start-date', '2031-02-10');
+  await expect(page.getByTestId('fit-placement')).toHaveCount(0);
+  await expect(page.getByTestId('fit-results')).toHaveAttribute('data-busy', 'false', { timeout: 20_000 });
+  await expect(page.getByTestId('fit-days')).toHaveText("Counts are placed on the scenario's days (day 0 = 2031-02-10); the file's first date 2031-03-03 is day 21.");
+  await expect(page.getByTestId('fit-from')).toHaveValue('21');
+  const parsed = parseCaseCountsCsv(readFileSync(CASES, 'utf8'));
+  if (!parsed.ok) throw new Error('example counts not read');
+  const expected = fitCaseCounts({ series: parsed.series, scenario: { ...demoScenario(), startDate: '2031-02-10' }, sourceFile: 'example-cases.csv' });
+  if (!expected.ok) throw new Error(expected.problems.join('; '));
+  await expect.poll(async () => Number(await page.getByTestId('fit-r0').getAttribute('data-value')), { timeout: 20_000 }).toBeCloseTo(expected.value.r0.r0, 9);
   expect(errors).toEqual([]);
 });

@@ -4,7 +4,7 @@
  * (attack rate, deaths). Totals over bands are plain sums of the engine's by-band series.
  */
 import { totalOverBands, type OptionResults, type ScenarioResults } from '../engine/index.ts';
-import { formatAxisValue, print } from './numberFormat.ts';
+import { dayAxisTitle, formatAxisValue, print } from './numberFormat.ts';
 import { optionStyle, type OptionStyle } from './palette.ts';
 import { lineChartSvg, type ChartSeries } from './svgLineChart.ts';
 
@@ -31,7 +31,7 @@ export function curveCharts(results: ScenarioResults, styleOf: StyleOf = optionS
       caption: 'Persons currently infected (latent or infectious), all ages, by day.',
       svg: lineChartSvg({
         title: 'People infected by day, each option',
-        xLabel: 'Day',
+        xLabel: dayAxisTitle('Day', results.startDate),
         yLabel: 'Persons infected',
         series: seriesOf(results, (o) => totalOverBands(o.series.prevalence, o.series.bands), styleOf),
         yFormat: formatAxisValue,
@@ -43,7 +43,7 @@ export function curveCharts(results: ScenarioResults, styleOf: StyleOf = optionS
       caption: 'Deaths per day, all ages (infections spread over the infection-to-death delay).',
       svg: lineChartSvg({
         title: 'Deaths per day, each option',
-        xLabel: 'Day',
+        xLabel: dayAxisTitle('Day', results.startDate),
         yLabel: 'Deaths per day',
         series: seriesOf(results, (o) => o.series.deaths, styleOf),
         yFormat: formatAxisValue,
@@ -60,7 +60,7 @@ export function curveCharts(results: ScenarioResults, styleOf: StyleOf = optionS
       caption: 'ICU beds in use (mean over each day) against capacity, dotted lines.',
       svg: lineChartSvg({
         title: 'ICU beds in use by day, each option, with capacity',
-        xLabel: 'Day',
+        xLabel: dayAxisTitle('Day', results.startDate),
         yLabel: 'ICU beds in use',
         series: seriesOf(results, (o) => o.healthcare?.series.icuOccupancy ?? new Float64Array(0), styleOf),
         referenceLines: lines,

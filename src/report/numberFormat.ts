@@ -185,6 +185,11 @@ export function dateOfDay(startDate: string, day: number): string | null {
   return new Date(start + day * DAY_MS).toISOString().slice(0, 10);
 }
 
+/** A day axis's title: "Day", or "Day (day 0 = 2026-03-01)" when the scenario has a start date. */
+export function dayAxisTitle(word: string, startDate: string | null | undefined): string {
+  return startDate === null || startDate === undefined ? word : `${word} (day 0 = ${startDate})`;
+}
+
 /** A number written by its kind in the given style. */
 export function formatValue(format: ValueFormat, value: number, style: NumberStyle, context: ValueContext = {}): string {
   const { kind, unit = '', digits = 2 } = format;

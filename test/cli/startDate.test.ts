@@ -3,7 +3,9 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { formatProblem } from '../../src/engine/problems.ts';
 import { validateScenario } from '../../src/engine/validation.ts';
-import { dateOfDay, formatValue } from '../../src/report/numberFormat.ts';
+import { dateOfDay, dayAxisTitle, formatValue } from '../../src/report/numberFormat.ts';
+import { curveCharts } from '../../src/report/charts.ts';
+import { runScenario } from '../../src/engine/index.ts';
 import { demoJson, runCli, writeTemp } from './helpers.ts';
 
 const dated = (startDate: string) => writeTemp('dated.json', { ...demoJson(), startDate });
@@ -33,6 +35,15 @@ describe('startDate in the scenario', () => {
       if (!r.ok) expect(r.problems.map(formatProblem)).toEqual([`startDate must be a calendar date written YYYY-MM-DD, got "${bad}"`]);
     }
     expect(validateScenario({ ...demoJson(), startDate: '2028-02-29' }).ok).toBe(true);
+  });
+
+  it('titles the day axis of the report\'s curves with the date of day 0', () => {
+    const checked = validateScenario({ ...demoJson(), startDate: '2028-02-08' });
+    if (!checked.ok) throw new Error('demo with a start date is not valid');
+    const charts = curveCharts(runScenario(checked.scenario));
+    expect(charts.length).toBeGreaterThan(1);
+    for (const chart of charts) expect(chart.svg).toContain('Day (day 0 = 2028-02-08)');
+    expect(dayAxisTitle('Day', undefined)).toBe('Day');
   });
 
   it('is a full-date in the JSON Schema (format "date" and its pattern)', () => {
