@@ -49,7 +49,7 @@ function write(io: Output, out: string | null, text: string): void {
 
 /** The options report of a scenario, with the summary of its draws (draws 0..N-1 in order) when it has an uncertainty section. */
 function reportText(scenario: Scenario, calibration: Calibration | undefined, format: OutputFormat, draws: () => DrawResult[]): string {
-  const summary = scenario.uncertainty === undefined ? undefined : summarise(scenario, draws());
+  const summary = scenario.uncertainty === undefined ? undefined : { summary: summarise(scenario, draws()), parameters: scenario.uncertainty.parameters };
   return formatReport(runScenarioSummary(scenario, calibration), format, csvSourceOf(scenario), summary);
 }
 

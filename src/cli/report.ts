@@ -6,7 +6,7 @@
  * the comparison of vaccination orders for that option's campaign (the search of `mixwise orders`).
  */
 import packageJson from '../../package.json' with { type: 'json' };
-import { runScenario } from '../engine/index.ts';
+import { runScenario, type Scenario } from '../engine/index.ts';
 import { buildReportHtml, dailySeriesCsv, optionsTableCsv, scenarioFingerprint } from '../report/index.ts';
 import { loadScenarioOrComplain, type Output } from './commands.ts';
 import { EXIT_CODES, reportFault, type ExitCode } from './errors.ts';
@@ -14,6 +14,15 @@ import { writeFileAtomically } from './files.ts';
 import { parseReportArgs, type ReportArgs } from './reportArgs.ts';
 import { findChromium, printHtmlToPdf } from './reportPdf.ts';
 import { findOrderComparison } from './orders.ts';
+import { computeDrawsOnThreads, drawThreadsFor, summarise } from './uncertainty.ts';
+import type { DrawSummary } from '../report/drawSummary.ts';
+
+/** With an uncertainty section: its draws (on one thread per core from 64 draws up) and their summary, as `mixwise run` computes them. */
+async function drawSummaryOf(scenario: Scenario): Promise<DrawSummary | undefined> {
+  const u = scenario.uncertainty;
+  if (u === undefined) return undefined;
+  return { summary: summarise(scenario, await computeDrawsOnThreads(scenario, 0, u.draws, drawThreadsFor(u.draws, null))), parameters: u.parameters };
+}
 
 export interface ReportContext {
   /** Environment (CHROMIUM_PATH). */
@@ -33,10 +42,11 @@ async function report(io: Output, args: ReportArgs, context: ReportContext): Pro
   const orderComparison = args.orders === null ? undefined : await findOrderComparison(io, scenario, { file: args.file, ...args.orders, optionFlag: '--orders', format: 'table', draws: null, settings: args.orders.top === undefined ? {} : { top: args.orders.top } });
   if (orderComparison === null) return EXIT_CODES.cancelled;
   const results = runScenario(scenario, loaded.calibration);
+  const draws = await drawSummaryOf(scenario);
   const fingerprint = await scenarioFingerprint(scenario, packageJson.version);
   const source = { fingerprint, appVersion: packageJson.version };
   let text: string;
-  if (args.format === 'csv') text = args.series ? dailySeriesCsv(results, source) : optionsTableCsv(results, source);
+  if (args.format === 'csv') text = args.series ? dailySeriesCsv(results, source) : optionsTableCsv(results, source, draws);
   else {
     text = buildReportHtml(scenario, results, {
       appVersion: packageJson.version,
@@ -45,6 +55,7 @@ async function report(io: Output, args: ReportArgs, context: ReportContext): Pro
       paper: args.paper,
       orientation: args.orientation,
       ...(orderComparison === undefined ? {} : { orderComparison }),
+      ...(draws === undefined ? {} : { draws: draws.summary }),
     });
   }
   if (args.out === null) io.out(text);

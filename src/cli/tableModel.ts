@@ -4,6 +4,7 @@
  * groups of at most `OPTIONS_PER_TABLE` options), the by-band tables of the catalogue and notes.
  */
 import type { ScenarioSummary } from '../engine/index.ts';
+import { drawFacts, uncertainParameterRows, type DrawSummary } from '../report/drawSummary.ts';
 import { print } from '../report/numberFormat.ts';
 import { columnGroups, optionsTable } from '../report/optionsTable.ts';
 import { BAND_OUTCOMES, formatBandValue } from '../report/outcomes.ts';
@@ -29,8 +30,11 @@ export interface PrintedReport {
   caution: string;
 }
 
-export function printedReport(results: ScenarioSummary): PrintedReport {
-  const table = optionsTable(results);
+/** The summary of uncertainty draws and the inputs drawn. */
+export type PrintedDraws = DrawSummary;
+
+export function printedReport(results: ScenarioSummary, draws?: PrintedDraws): PrintedReport {
+  const table = optionsTable(results, draws?.summary);
   const groups = columnGroups(table.optionNames.length, OPTIONS_PER_TABLE);
   const optionTables = groups.map(
     (group, g): TextTable => ({
@@ -48,15 +52,18 @@ export function printedReport(results: ScenarioSummary): PrintedReport {
       rows: results.ageBands.map((band, i) => [band, ...results.options.map((o) => formatBandValue(b, o, results, i, 'print'))]),
     }),
   );
+  const parameterTables: TextTable[] =
+    draws === undefined ? [] : [{ caption: 'Uncertain inputs', header: ['Input', 'Distribution', 'Source'], leftColumns: 3, rows: uncertainParameterRows(draws.parameters) }];
   return {
     title: results.title,
     facts: [
       `R0 (no measures): ${print.r(results.r0)}`,
       `Horizon: ${results.horizonDays} days`,
       `Reference option: ${table.optionNames[table.referenceIndex] ?? ''}`,
+      ...(draws === undefined ? [] : drawFacts(draws.summary.uncertainty)),
     ],
-    tables: [...optionTables, ...bandTables],
-    notes: reciprocityNotes(reciprocityRows(results.reciprocity, results.ageBands)),
+    tables: [...optionTables, ...parameterTables, ...bandTables],
+    notes: [...table.notes.slice(draws === undefined ? table.notes.length : -1).map((n) => n.replace(/\.$/, '')), ...(draws?.summary.uncertainty.notes ?? []), ...reciprocityNotes(reciprocityRows(results.reciprocity, results.ageBands))],
     caution: CAUTION,
   };
 }

@@ -16,3 +16,12 @@ export const MODEL_LIMITS = [
   'Immunity after infection is complete and lasts for the whole horizon; there is no waning, no new variant, and no vaccination unless the scenario includes it.',
   'Parameter uncertainty is not shown: each number is a single value under the stated inputs, not a range. Small differences between options may not be meaningful.',
 ];
+
+/** The last limit when the report gives intervals from uncertainty draws. */
+export const DRAWS_LIMIT =
+  'The ranges cover only the inputs listed as uncertain, over the distributions stated; the model itself and the other inputs are taken as given, so the true uncertainty is wider. Small differences between options may still not be meaningful.';
+
+/** The model's limits, with the one on uncertainty as it applies to this report. */
+export function modelLimits(withDraws: boolean): string[] {
+  return withDraws ? [...MODEL_LIMITS.slice(0, -1), DRAWS_LIMIT] : [...MODEL_LIMITS];
+}

@@ -14,7 +14,8 @@
  */
 import type { ScenarioResults, ScenarioSummary } from '../engine/index.ts';
 import { CAUTION } from './cautions.ts';
-import { appliesTo, BAND_OUTCOMES, outcomeDatum, outcomesFor } from './outcomes.ts';
+import { drawFacts, uncertainParameterRows, type DrawSummary } from './drawSummary.ts';
+import { appliesTo, BAND_OUTCOMES, outcomeDatum, outcomesFor, type Outcome } from './outcomes.ts';
 import { dateOfDay } from './numberFormat.ts';
 
 type Field = string | number | boolean | null;
@@ -48,7 +49,7 @@ function csvLines(rows: readonly Field[][]): string {
 const oneLine = (text: string) => text.replace(/[\r\n]+/g, ' ');
 
 /** The "#" lines at the top of every export. */
-export function csvHeaderBlock(what: string, results: ScenarioSummary, source: CsvSource, units: string): string {
+export function csvHeaderBlock(what: string, results: ScenarioSummary, source: CsvSource, units: string, more: readonly string[] = []): string {
   const reference = results.options[results.referenceIndex]?.name ?? '';
   const lines = [
     `Mixwise ${what}: ${results.title}`,
@@ -57,6 +58,7 @@ export function csvHeaderBlock(what: string, results: ScenarioSummary, source: C
     `Reference option: ${reference}`,
     units,
     `Numbers: ${CSV_SIGNIFICANT_DIGITS} significant digits (whole numbers exact). Empty cell: does not apply, or none.`,
+    ...more,
   ];
   return lines.map((line) => `# ${oneLine(line)}\r\n`).join('');
 }
@@ -65,26 +67,54 @@ export function csvHeaderBlock(what: string, results: ScenarioSummary, source: C
  * The policy options table, one row per option: `option`, `reference` (true for the reference
  * option), then every outcome of the catalogue (src/report/outcomes.ts) that applies to some
  * option, under its CSV column name, then the by-band outcomes as `<column> <band label>`.
+ * With uncertainty draws: each outcome with an interval is followed by `<column>_low` and
+ * `<column>_high`, then `chance_lower_than_reference_<column>` and `chance_lowest_<column>` (shares
+ * of draws, 0-1) come before the by-band outcomes, and the header block says how the draws were taken.
  */
-export function optionsTableCsv(results: ScenarioSummary, source: CsvSource): string {
+export function optionsTableCsv(results: ScenarioSummary, source: CsvSource, draws?: DrawSummary): string {
   const outcomes = outcomesFor(results);
   const bands = BAND_OUTCOMES.filter((b) => results.options.some((o) => appliesTo(b, o)));
+  const summary = draws?.summary;
+  const intervalOf = (e: Outcome, k: number) => summary?.options[k]?.intervals[e.key] ?? null;
+  const withInterval = (e: Outcome) => e.kind !== 'date' && results.options.some((_, k) => intervalOf(e, k) !== null);
+  const first = summary?.options[0];
+  const better = first === undefined ? [] : Object.keys(first.probabilityBetterThanReference);
+  const best = first === undefined ? [] : Object.keys(first.probabilityBest);
+  const column = (key: string) => outcomesFor(results).find((e) => e.key === key)?.column ?? key;
   const header: Field[] = [
     'option',
     'reference',
-    ...outcomes.map((e) => e.column),
+    ...outcomes.flatMap((e) => (withInterval(e) ? [e.column, `${e.column}_low`, `${e.column}_high`] : [e.column])),
+    ...better.map((key) => `chance_lower_than_reference_${column(key)}`),
+    ...best.map((key) => `chance_lowest_${column(key)}`),
     ...bands.flatMap((b) => results.ageBands.map((band) => `${b.column} ${band}`)),
   ];
   const rows = results.options.map((o, k): Field[] => [
     o.name,
     k === results.referenceIndex,
-    ...outcomes.map((e) => (appliesTo(e, o) ? outcomeDatum(e, o, results) : null)),
+    ...outcomes.flatMap((e): Field[] => {
+      const value = appliesTo(e, o) ? outcomeDatum(e, o, results) : null;
+      if (!withInterval(e)) return [value];
+      const interval = appliesTo(e, o) ? intervalOf(e, k) : null;
+      return [value, interval?.low ?? null, interval?.high ?? null];
+    }),
+    ...better.map((key) => summary?.options[k]?.probabilityBetterThanReference[key] ?? null),
+    ...best.map((key) => summary?.options[k]?.probabilityBest[key] ?? null),
     ...bands.flatMap((b) => (appliesTo(b, o) ? b.read(o, results) : results.ageBands.map(() => null))),
   ]);
   const units =
     'Units: rates per day; times in days; day numbers from day 0 (the scenario\'s first day); dates ISO 8601 (YYYY-MM-DD); prevalence, attack rates and shares as fractions 0-1; ' +
     'counts in persons (beds, doses); averted = reference minus option.';
-  return csvHeaderBlock('policy options table', results, source, units) + csvLines([header, ...rows]);
+  const drawLines =
+    draws === undefined
+      ? []
+      : [
+          ...drawFacts(draws.summary.uncertainty),
+          '_low and _high: the bounds of that interval of the draws; the value itself is the run at the stated inputs. chance_: share of draws (0-1), the same draws for every option.',
+          ...uncertainParameterRows(draws.parameters).map(([name, distribution, from]) => `Uncertain input ${name}: ${distribution}; source: ${from}`),
+          ...draws.summary.uncertainty.notes,
+        ];
+  return csvHeaderBlock('policy options table', results, source, units, drawLines) + csvLines([header, ...rows]);
 }
 
 /** Daily quantities written by `dailySeriesCsv`, with their units (see `DailySeries`). */

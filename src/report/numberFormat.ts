@@ -228,11 +228,18 @@ export interface Interval {
   high: number;
 }
 
+/**
+ * The bounds of an interval, written like its value without unit: screen "1,100–1,400", print
+ * "1,100 to 1,400". Days are written as day numbers only (the value beside them carries the date).
+ */
+export function formatRange(format: ValueFormat, interval: Interval, style: NumberStyle, context: ValueContext = {}): string {
+  const bare = (x: number) => formatValue({ ...format, unit: '' }, x, style, format.kind === 'day' ? {} : context);
+  return style === 'screen' ? `${bare(interval.low)}–${bare(interval.high)}` : `${bare(interval.low)} to ${bare(interval.high)}`;
+}
+
 /** An interval written like its value: screen "1,234 persons (1,100–1,400)", print "1,234 (1,100 to 1,400)". */
 export function formatInterval(format: ValueFormat, interval: Interval, style: NumberStyle, context: ValueContext = {}): string {
-  const bare = (x: number) => formatValue({ ...format, unit: '' }, x, style, context);
-  const range = style === 'screen' ? `${bare(interval.low)}–${bare(interval.high)}` : `${bare(interval.low)} to ${bare(interval.high)}`;
-  return `${formatValue(format, interval.median, style, context)} (${range})`;
+  return `${formatValue(format, interval.median, style, context)} (${formatRange(format, interval, style, context)})`;
 }
 
 /** A short chart axis value: 0, 950, 12k, 1.5M (same in both styles). */

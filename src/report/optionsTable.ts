@@ -3,10 +3,13 @@
  * outcome of the catalogue shown on the `table` surface (src/report/outcomes.ts) that applies to
  * some option, one column per option, every cell a number the engine returned in the print style.
  * Comparisons (deaths averted) are the engine's; the reference option's own cell reads "reference".
+ * With the summary of uncertainty draws, each cell also gives its interval ("8,298 (6,900 to
+ * 9,700)") and rows of chances (lower than under the reference, lowest of all) follow the outcomes.
  */
-import type { ScenarioSummary } from '../engine/index.ts';
+import type { ScenarioSummary, UncertaintyResults } from '../engine/index.ts';
+import { chanceRows } from './drawSummary.ts';
 import { print } from './numberFormat.ts';
-import { outcomesFor, outcomeText } from './outcomes.ts';
+import { outcomesFor, outcomeTextWithInterval, REFERENCE_CELL } from './outcomes.ts';
 
 export interface OutcomeRow {
   /** The outcome's key (the JSON key of `mixwise run`), used by tests. */
@@ -35,7 +38,7 @@ function capacityNote(results: ScenarioSummary): string | null {
   );
 }
 
-export function optionsTable(results: ScenarioSummary): OptionsTable {
+export function optionsTable(results: ScenarioSummary, draws?: UncertaintyResults): OptionsTable {
   const reference = results.options[results.referenceIndex];
   const outcomes = outcomesFor(results, 'table');
   const shown = (key: string) => outcomes.some((e) => e.key === key);
@@ -52,10 +55,22 @@ export function optionsTable(results: ScenarioSummary): OptionsTable {
   }
   const capacity = capacityNote(results);
   if (capacity !== null) notes.push(capacity);
+  if (draws !== undefined) {
+    const u = draws.uncertainty;
+    notes.push(
+      `In brackets: the central ${print.percent(u.intervalLevel, 0)} of ${u.draws - u.failedDraws} uncertainty draws of the inputs listed as uncertain (the value before the bracket is the run at their stated values). ` +
+        'Chances: the share of draws in which the option has fewer than the reference, or the fewest of all options, the same draws for every option.',
+    );
+  }
+  const rows = outcomes.map((e) => ({
+    key: e.key,
+    label: e.printLabel,
+    cells: results.options.map((o, k) => outcomeTextWithInterval(e, o, results, 'print', draws?.options[k]?.intervals[e.key])),
+  }));
   return {
     optionNames: results.options.map((o) => o.name),
     referenceIndex: results.referenceIndex,
-    rows: outcomes.map((e) => ({ key: e.key, label: e.printLabel, cells: results.options.map((o) => outcomeText(e, o, results, 'print')) })),
+    rows: draws === undefined ? rows : [...rows, ...chanceRows(draws, results.referenceIndex, 'print', REFERENCE_CELL)],
     notes,
   };
 }

@@ -9,7 +9,7 @@
  * Pure TypeScript: no DOM, no Node.
  */
 import type { BedDemand, OptionSummary, ScenarioSummary } from '../engine/index.ts';
-import { dateOfDay, screen, type NumberStyle, type ValueContext, type ValueFormat, formatValue, numberFormatter, type NumberFormatter } from './numberFormat.ts';
+import { dateOfDay, formatRange, type Interval, screen, type NumberStyle, type ValueContext, type ValueFormat, formatValue, numberFormatter, type NumberFormatter } from './numberFormat.ts';
 
 export type OutcomeGroup = 'spread' | 'hospital' | 'vaccination' | 'measures';
 
@@ -688,6 +688,19 @@ export function outcomeText(entry: Outcome, o: OptionSummary, results: ScenarioS
   const value = entry.read(o, results);
   if (value === null) return entry.whenNull ?? NOT_APPLICABLE[style];
   return formatValue(entry, value, style, context);
+}
+
+/**
+ * The cell of an outcome with the interval of the uncertainty draws beside it: "8,298 (6,900 to
+ * 9,700)" in print, "8,298 persons (6,900–9,700)" on screen. The value is the point estimate (the
+ * run at the central inputs); the bracket the interval of the draws. Without an interval (none
+ * given, the outcome missing in some draws, not applicable, the reference's own comparison cell)
+ * the cell is `outcomeText` alone.
+ */
+export function outcomeTextWithInterval(entry: Outcome, o: OptionSummary, results: ScenarioSummary, style: NumberStyle, interval: Interval | null | undefined, context: ValueContext = valueContextOf(results)): string {
+  const text = outcomeText(entry, o, results, style, context);
+  if (interval == null || !appliesTo(entry, o) || isReferenceCell(entry, o, results)) return text;
+  return `${text} (${formatRange(entry, interval, style, context)})`;
 }
 
 /** The number a row is shaded by (its own, or that of `shadeBy`). */

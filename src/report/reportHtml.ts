@@ -6,7 +6,8 @@
  */
 import type { ScenarioResults, Scenario } from '../engine/index.ts';
 import { bandTable, parameterRows } from './assumptions.ts';
-import { CAUTION, CAUTION_PARAGRAPHS, MODEL_LIMITS } from './cautions.ts';
+import { CAUTION, CAUTION_PARAGRAPHS, modelLimits } from './cautions.ts';
+import { drawFacts, uncertainParameterRows } from './drawSummary.ts';
 import { byAgeCharts, curveCharts, type ReportChart, type StyleOf } from './charts.ts';
 import { escapeMarkup as esc } from './escape.ts';
 import { FIT_SOURCE, R0_CHANGED_AFTER_FIT } from './fitRecord.ts';
@@ -95,13 +96,22 @@ function assumptionsHtml(scenario: Scenario, results: ScenarioResults): string {
   );
 }
 
+/** The uncertain inputs (name, distribution with bounds, source) and the notes on failed draws. */
+function uncertainInputsHtml(scenario: Scenario, notes: readonly string[]): string {
+  const rows = uncertainParameterRows(scenario.uncertainty?.parameters ?? []);
+  return `<h3>Uncertain inputs</h3>
+<table class="uncertain-inputs"><thead><tr><th>Input</th><th>Distribution</th><th>Source</th></tr></thead>
+<tbody>${rows.map((cells) => `<tr>${cells.map((c) => `<td>${esc(c)}</td>`).join('')}</tr>`).join('')}</tbody></table>
+${notes.length === 0 ? '' : `<div class="notes">${notes.map((n) => `<p>${esc(n)}</p>`).join('')}</div>`}`;
+}
+
 /** The report as a complete HTML document (UTF-8). */
 export function buildReportHtml(scenario: Scenario, results: ScenarioResults, meta: ReportMeta): string {
   const short = shortFingerprint(meta.fingerprint);
   const when = formatReportTime(meta.generatedAt);
   const footer = `Mixwise ${meta.appVersion} - scenario ${short} - ${when}`;
   const styleOf: StyleOf = (k) => optionStyleOf(k, meta.colourSlots);
-  const table = optionsTable(results);
+  const table = optionsTable(results, meta.draws);
   const legend = legendHtml(results, styleOf);
   const charts = (list: ReportChart[]) => list.map((c) => chartHtml(c, legend)).join('');
   const summaries = optionSummaries(scenario, results.referenceIndex, results).map((summary, k) => summaryHtml(summary, k, styleOf)).join('');
@@ -125,6 +135,7 @@ export function buildReportHtml(scenario: Scenario, results: ScenarioResults, me
 <dt>Scenario fingerprint</dt><dd><strong>${esc(short)}</strong> <span class="notes">(SHA-256 of the scenario and program version: ${esc(meta.fingerprint)})</span></dd>
 <dt>Options</dt><dd>${results.options.length}, compared with the reference option "${esc(results.options[results.referenceIndex].name)}"</dd>
 <dt>Horizon</dt><dd>${scenario.horizonDays} days from day 0</dd>
+${meta.draws === undefined ? '' : `<dt>Uncertainty</dt><dd>${drawFacts(meta.draws.uncertainty).map(esc).join('; ')}</dd>`}
 </dl>
 <p class="caution">${esc(CAUTION)}</p>
 </header>
@@ -138,6 +149,7 @@ ${scenario.options.some((o) => o.phases.some((p) => p.trigger !== undefined)) ? 
 <h2>2. Policy options table</h2>
 ${optionsTableHtml(table, OPTION_COLUMNS_PER_TABLE[meta.orientation], styleOf)}
 <div class="notes">${table.notes.map((n) => `<p>${esc(n)}</p>`).join('')}</div>
+${meta.draws === undefined ? '' : uncertainInputsHtml(scenario, meta.draws.uncertainty.notes)}
 ${meta.orderComparison === undefined ? '' : orderComparisonHtml(meta.orderComparison, scenario)}
 </section>
 <section id="curves">
@@ -156,7 +168,7 @@ ${assumptionsHtml(scenario, results)}
 <h2>6. Cautions and limits</h2>
 ${CAUTION_PARAGRAPHS.map((p) => `<p>${esc(p)}</p>`).join('')}
 <h3>Limits of the model</h3>
-<ul class="limits">${MODEL_LIMITS.map((p) => `<li>${esc(p)}</li>`).join('')}</ul>
+<ul class="limits">${modelLimits(meta.draws !== undefined).map((p) => `<li>${esc(p)}</li>`).join('')}</ul>
 </section>
 </main>
 </body>

@@ -1,5 +1,5 @@
 /** Types the report's modules share: page settings, report metadata and table rows. */
-import type { OrderComparison } from '../engine/index.ts';
+import type { OrderComparison, UncertaintyResults } from '../engine/index.ts';
 
 /** One row of the assumptions table: an input parameter with its value, unit and source. */
 export interface ParameterRow {
@@ -42,6 +42,13 @@ export interface ReportMeta {
    * scenario only.
    */
   orderComparison?: OrderComparison;
+  /**
+   * Optional summary of this scenario's uncertainty draws (the engine's `uncertaintyOnPool`, or
+   * the CLI's draws): the options table then gives each value's interval and the chances, and the
+   * report lists the uncertain inputs. It must come from this very scenario's `uncertainty`
+   * section, which the fingerprint covers (draws, seed, level and every distribution).
+   */
+  draws?: UncertaintyResults;
 }
 
 /**
