@@ -8,7 +8,7 @@
  * λ is the dominant eigenvalue (Diekmann, Heesterbeek & Roberts 2010, J R Soc Interface 7:873).
  * A growth rate fitted while the measures were in force gives R under measures; dividing by ρ
  * gives R0 (r0FromFit). Which phase: the one an option has in force on the window's first day,
- * counting case days and scenario days from the same day 0.
+ * on the fit's days, which are the scenario's when the counts are placed on them (scenarioDays.ts).
  */
 import { initialSusceptibleOf } from '../initialState.ts';
 import { phaseAt } from '../phases.ts';
