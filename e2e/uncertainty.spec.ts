@@ -123,7 +123,7 @@ test('"Use this R0" with its interval writes R0 lognormal from the fit in one un
   await expect(page.getByTestId('uncertain-0-median')).toHaveValue(String(median));
   await expect(page.getByTestId('uncertain-0-low')).toHaveValue(four(fit.r0Interval[0]));
   await expect(page.getByTestId('uncertain-0-high')).toHaveValue(four(fit.r0Interval[1]));
-  await expect(page.getByTestId('uncertain-0-source')).toHaveValue(/^Fit of example-cases\.csv, days \d+ to \d+: R0 /);
+  await expect(page.getByTestId('uncertain-0-source')).toHaveValue(/^Fit of example-cases\.csv, days \d+ to \d+ \(2031-\d\d-\d\d to 2031-\d\d-\d\d\): R0 /);
 
   // One step: undo restores R0 2.5 and no uncertain input.
   await page.getByTestId('undo').click();
