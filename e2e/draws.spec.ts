@@ -3,7 +3,8 @@
  * the deterministic board shows first, the draws run on the app's worker pool with a progress bar,
  * count and Cancel; intervals fill in under each cell and the chance rows appear, equal to the
  * engine's summary of the same draws computed here in one thread; Cancel stops, an edit restarts
- * the draws for the edited scenario, and the app answers clicks while draws run.
+ * the draws for the edited scenario, and the app answers clicks while draws run. The Spread view
+ * shows the same summary; the printed report and the table CSV carry the finished draws.
  */
 import { expect, test, type Page } from '@playwright/test';
 import { readFileSync, writeFileSync } from 'node:fs';
@@ -166,5 +167,27 @@ test('the Spread view: interval plot and table per outcome, PRCC ranking in a ch
   await expect(page.getByTestId('spread-caution')).toContainText('not forecasts');
   await expect(page.getByTestId('spread-caution')).toContainText('responsible public-health authority and local rules');
   await page.screenshot({ path: 'e2e-artifacts/view-spread.png', fullPage: true });
+  expect(errors).toEqual([]);
+});
+
+test('the printed report carries the finished draws: intervals, uncertain inputs with sources, draws and seed', async ({ page }) => {
+  const errors: string[] = [];
+  page.on('pageerror', (e) => errors.push(e.message));
+  await page.goto('/');
+  await settled(page);
+  await openScenario(page, withDraws(24, 9), 'mixwise-report-draws');
+  await settled(page);
+  await page.getByRole('tab', { name: 'Report' }).click();
+  const report = page.frameLocator('[data-testid="report-frame"]');
+  await expect(report.getByRole('heading', { name: 'Uncertain inputs' })).toBeVisible({ timeout: 60_000 });
+  await expect(page.getByTestId('report-draws-pending')).toHaveCount(0);
+  await expect(report.locator('table.uncertain-inputs')).toContainText('Invented range for the test');
+  await expect(report.locator('dt', { hasText: 'Uncertainty' }).locator('xpath=following-sibling::dd[1]')).toContainText('24');
+  await expect(report.locator('dt', { hasText: 'Uncertainty' }).locator('xpath=following-sibling::dd[1]')).toContainText('seed 9');
+  // The table CSV carries the intervals and chances too.
+  const [download] = await Promise.all([page.waitForEvent('download'), page.getByTestId('report-export-table-csv').click()]);
+  const header = readFileSync(await download.path(), 'utf8').split('\n').find((line) => line.startsWith('option'));
+  expect(header).toContain('deaths_low');
+  expect(header).toContain('chance_lower_than_reference_deaths');
   expect(errors).toEqual([]);
 });

@@ -2,7 +2,7 @@
  * The report and its exports for the scenario on screen, built with the same code as
  * `mixwise report` (src/report), so the app, the CLI and a printout agree to the character.
  */
-import type { OrderComparison, ScenarioResults, Scenario } from '../../engine/index.ts';
+import type { OrderComparison, ScenarioResults, Scenario, UncertaintyResults } from '../../engine/index.ts';
 import { buildReportHtml, dailySeriesCsv, optionsTableCsv, scenarioFingerprint, shortFingerprint, type Orientation, type Paper } from '../../report/index.ts';
 import type { ReportDocument } from '../../shared/hostApi.ts';
 import { APP_VERSION } from './appVersion.ts';
@@ -24,7 +24,8 @@ export interface BuiltReport extends ReportDocument {
  * The report for `scenario` and its `results` (results must be the engine's for exactly this scenario).
  * `colourSlots` (the working document's, one per option) makes the printout draw each option in the
  * colour it has in the app; without them options are coloured by position. `orderComparison`, found
- * for exactly this scenario, is printed beside the options table.
+ * for exactly this scenario, is printed beside the options table. `draws`, the summary of exactly
+ * this scenario's uncertainty draws, puts intervals and chances in the table and lists the uncertain inputs.
  */
 export async function buildReport(
   scenario: Scenario,
@@ -33,9 +34,10 @@ export async function buildReport(
   generatedAt: Date,
   colourSlots?: readonly number[],
   orderComparison?: OrderComparison,
+  draws?: UncertaintyResults,
 ): Promise<BuiltReport> {
   const fingerprint = await scenarioFingerprint(scenario, APP_VERSION);
-  const html = buildReportHtml(scenario, results, { appVersion: APP_VERSION, generatedAt, fingerprint, ...settings, ...(colourSlots ? { colourSlots } : {}), ...(orderComparison ? { orderComparison } : {}) });
+  const html = buildReportHtml(scenario, results, { appVersion: APP_VERSION, generatedAt, fingerprint, ...settings, ...(colourSlots ? { colourSlots } : {}), ...(orderComparison ? { orderComparison } : {}), ...(draws ? { draws } : {}) });
   return { html, paper: settings.paper, orientation: settings.orientation, fingerprint, shortFingerprint: shortFingerprint(fingerprint), generatedAt };
 }
 
@@ -44,11 +46,12 @@ export type CsvExport = 'table' | 'daily-series';
 /**
  * The CSV text of an export: the options table (one row per option) or the daily series (long
  * format), headed by the scenario's fingerprint and the caution (results must be the engine's for
- * exactly this scenario).
+ * exactly this scenario; `draws`, the summary of its uncertainty draws, adds the table's interval and chance columns).
  */
-export async function csvText(kind: CsvExport, scenario: Scenario, results: ScenarioResults): Promise<string> {
+export async function csvText(kind: CsvExport, scenario: Scenario, results: ScenarioResults, draws?: UncertaintyResults): Promise<string> {
   const source = { fingerprint: await scenarioFingerprint(scenario, APP_VERSION), appVersion: APP_VERSION };
-  return kind === 'table' ? optionsTableCsv(results, source) : dailySeriesCsv(results, source);
+  const drawn = draws === undefined || scenario.uncertainty === undefined ? undefined : { summary: draws, parameters: scenario.uncertainty.parameters };
+  return kind === 'table' ? optionsTableCsv(results, source, drawn) : dailySeriesCsv(results, source);
 }
 
 /**

@@ -40,7 +40,8 @@ class ReportCommands {
       }
       await new Promise((resolve) => setTimeout(resolve, POLL_MS));
     }
-    return { scenario: workspace.scenario, results: workspace.results, colourSlots: workspace.doc.colourSlots, orderComparison: workspace.reportOrders ?? undefined };
+    if (workspace.draws?.state === 'running') workspace.notice = { kind: 'info', text: 'The uncertainty draws are still running: this report has no intervals yet. Print again once they are done.' };
+    return { scenario: workspace.scenario, results: workspace.results, colourSlots: workspace.doc.colourSlots, orderComparison: workspace.reportOrders ?? undefined, draws: workspace.reportDraws ?? undefined };
   }
 
   private tell(outcome: SaveOutcome): void {
@@ -51,14 +52,14 @@ class ReportCommands {
 
   private async report() {
     const inputs = await this.freshInputs();
-    return inputs === null ? null : buildReport(inputs.scenario, inputs.results, reportSettings.current, new Date(), inputs.colourSlots, inputs.orderComparison);
+    return inputs === null ? null : buildReport(inputs.scenario, inputs.results, reportSettings.current, new Date(), inputs.colourSlots, inputs.orderComparison, inputs.draws);
   }
 
   private async csv(kind: CsvExport): Promise<void> {
     const inputs = await this.freshInputs();
     if (inputs === null) return;
     const suggestedName = exportFileName(workspace.fileName, kind, 'csv');
-    this.tell(await host.exportCsv({ suggestedName, text: await csvText(kind, inputs.scenario, inputs.results) }));
+    this.tell(await host.exportCsv({ suggestedName, text: await csvText(kind, inputs.scenario, inputs.results, inputs.draws) }));
   }
 
   private async execute(command: ReportCommand): Promise<void> {
