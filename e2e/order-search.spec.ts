@@ -142,5 +142,11 @@ test('with uncertain inputs, shows the share of draws each top order is best; in
   await expect(report.locator('#orders')).toHaveCount(0, { timeout: 30_000 });
   await page.getByTestId('redo').click();
   await expect(report.locator('#orders')).toHaveCount(1, { timeout: 30_000 });
+
+  // Back on the board, the finder still shows what it found.
+  await page.getByRole('tab', { name: 'Options board' }).click();
+  await page.getByTestId(`option-name-${o}`).click();
+  await expect(finder.getByTestId('found-order-text-0')).toContainText('1. 60+ > 50-59 > 0-49');
+  await expect(finder.getByTestId('order-included')).toBeVisible();
   expect(errors).toEqual([]);
 });

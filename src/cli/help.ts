@@ -46,7 +46,9 @@ Usage:
       the scenario fingerprint. Self-contained HTML by default; --out report.pdf prints it
       to PDF with a local Chromium (/usr/bin/chromium or $CHROMIUM_PATH; exit code 3 when
       none is found). --format csv gives the options table (one row per option), with
-      --series the daily series (option, day, band, quantity, value).
+      --series the daily series (option, day, band, quantity, value). With an "uncertainty"
+      section in FILE the draws run first and the table gives each interval beside its value,
+      the chances against the reference and the uncertain inputs with their sources.
       --orders OPTION adds the comparison of vaccination orders for OPTION's campaign (the
       search of 'mixwise orders', with its --minimise, --groups, --top and --workers).
   mixwise orders FILE --option NAME [--minimise deaths|infections|admissions|

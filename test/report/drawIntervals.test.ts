@@ -6,6 +6,8 @@
  */
 import { describe, expect, it } from 'vitest';
 import { formatReport } from '../../src/cli/format.ts';
+import { reportCommand } from '../../src/cli/report.ts';
+import { writeTemp } from '../cli/helpers.ts';
 import { evaluateDrawRange, prepareDraws, runScenario, summariseDraws, type Scenario } from '../../src/engine/index.ts';
 import { catalogueReader, DRAW_OUTCOME_KEYS } from '../../src/report/drawOutcomes.ts';
 import { DRAWS_LIMIT } from '../../src/report/cautions.ts';
@@ -109,5 +111,14 @@ describe('printed outputs with uncertainty draws', () => {
     expect(await scenarioFingerprint({ ...scenario, uncertainty: { ...scenario.uncertainty!, seed: 5 } }, '1.2.3')).not.toBe(fingerprint);
     const parameters = [{ ...scenario.uncertainty!.parameters[0], distribution: { kind: 'uniform' as const, low: 2, high: 3.5 } }, scenario.uncertainty!.parameters[1]];
     expect(await scenarioFingerprint({ ...scenario, uncertainty: { ...scenario.uncertainty!, parameters } }, '1.2.3')).not.toBe(fingerprint);
+  });
+
+  it('mixwise report runs the draws of a scenario with an uncertainty section and prints them', async () => {
+    const file = writeTemp('uncertain.json', scenario);
+    let out = '';
+    const code = await reportCommand({ out: (t) => void (out += t), err: () => undefined }, [file], { env: {}, now: () => new Date(2031, 0, 1) });
+    expect(code).toBe(0);
+    for (let k = 0; k < results.options.length; k++) expect(out).toContain(deathsCell(k));
+    expect(out).toContain('test range for IFR');
   });
 });

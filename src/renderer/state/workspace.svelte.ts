@@ -4,7 +4,7 @@
  * Components read this and call its actions; they do no model math.
  */
 import { tick } from 'svelte';
-import { parseScenarioText, formatProblem, scenarioRevision, type Scenario, type ScenarioResults, type OrdersInfo, type UncertaintyResults } from '../../engine/index.ts';
+import { parseScenarioText, formatProblem, scenarioRevision, type OrderComparison, type Scenario, type ScenarioResults, type OrdersInfo, type UncertaintyResults } from '../../engine/index.ts';
 import { EngineClient, type OrderSearchOutcome } from '../lib/engineClient.ts';
 import { checkEdit, type EditResult } from '../lib/editCheck.ts';
 import { pushHistory, redoHistory, startHistory, undoHistory, type HistoryState } from '../lib/history.ts';
@@ -59,6 +59,8 @@ class Workspace {
   /** Vaccination order templates and coverage needed for R < 1, as the engine gave them for `scenario` and `optionIndex`. */
   orders = $state.raw<{ scenario: Scenario; optionIndex: number; info: OrdersInfo } | null>(null);
   ordersError = $state<string | null>(null);
+  /** The last vaccination order search of the finder: the scenario and option it was found for, and what it found. */
+  lastOrderSearch = $state.raw<{ scenario: Scenario; optionIndex: number; comparison: OrderComparison } | null>(null);
   /** Draws of the present scenario's uncertainty section; null when it has none (or before its options are computed). */
   draws = $state.raw<DrawsState | null>(null);
   /** The full summary of the present scenario's draws, once every draw is done (what the report prints). */
