@@ -107,8 +107,14 @@ export const MUTANTS: Mutant[] = [
   { id: 'sim-attack-total', file: SIM, find: '(population[i] > 0 ? fraction(x / population[i]) : 0)', replace: '(population[i] > 0 ? fraction(x / totalPopulation) : 0)', what: 'band attack rate over the whole population' },
   { id: 'sim-rstart-full', file: SIM, find: 'segments[0].transmission, p.initialSusceptible,', replace: 'segments[0].transmission, p.bands.population,', what: 'R at start ignores prior immunity' },
   // Final size
-  { id: 'fs-transposed', file: F, find: 'transmission[i * n + j] * population[j] * z[j]', replace: 'transmission[j * n + i] * population[j] * z[j]', what: 'final size with M transposed' },
-  { id: 'fs-no-s0', file: F, find: 'next[i] = initialSusceptibleFraction[i] * -Math.expm1(-pressure);', replace: 'next[i] = -Math.expm1(-pressure);', what: 'final size ignores initial susceptibility' },
+  { id: 'fs-transposed', file: F, find: 'infectiousPeriodDays * transmission[i * n + j] * population[j]', replace: 'infectiousPeriodDays * transmission[j * n + i] * population[j]', what: 'final size with M transposed' },
+  {
+    id: 'fs-no-s0',
+    file: F,
+    find: 'g[i] = s0[i] * -Math.expm1(-pressure);\n      slope[i] = s0[i] * Math.exp(-pressure);',
+    replace: 'g[i] = -Math.expm1(-pressure);\n      slope[i] = Math.exp(-pressure);',
+    what: 'final size ignores initial susceptibility',
+  },
   // Growth rate
   { id: 'gr-latent-one-stage', file: G, find: 'Math.pow(1 + (r * te) / ke, -ke)', replace: 'Math.pow(1 + r * te, -1)', what: 'latent stages ignored in M(r)' },
   { id: 'gr-series', file: G, find: '1 - (x * (ki + 1)) / (2 * ki)', replace: '1 - x / 2', what: 'series near r = 0 for one stage only' },
