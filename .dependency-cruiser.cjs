@@ -11,8 +11,8 @@
  * type-only imports included. DEVELOPERS.md explains the layers.
  */
 const PROGRAMS = '(cli|main|preload|renderer)';
-/** npm packages the engine may use: its schema library. */
-const ENGINE_PACKAGES = '^node_modules/(zod)/';
+/** npm packages the engine may use: its schema and matrix libraries. */
+const ENGINE_PACKAGES = '^node_modules/(zod|ml-matrix)/';
 /** Shared modules that use Node (for the CLI and the main process only). */
 const NODE_SHARED = '^src/shared/atomicWrite\\.ts$';
 

@@ -3,21 +3,21 @@
  * the weighted normal equations (X^T W X) b = X^T W z of each IRLS step and to invert the
  * information matrix (Golub & Van Loan 2013, Matrix Computations, 4th ed., sec. 4.2).
  */
+import { CholeskyDecomposition, Matrix } from 'ml-matrix';
 
-/** Lower-triangular L with A = L L^T, or null when A is not (numerically) positive definite. */
+/**
+ * Lower-triangular L with A = L L^T (ml-matrix's CholeskyDecomposition, a direct method with no
+ * iteration), or null when A is not (numerically) positive definite: a pivot l_jj^2 at or below
+ * 1e-13 max(1, |a_jj|) counts as zero. Only the lower triangle of A is read (mirrored, as the
+ * library wants an exactly symmetric matrix).
+ */
 export function choleskyFactor(a: number[][]): number[][] | null {
-  const n = a.length;
-  const l = a.map(() => new Array<number>(n).fill(0));
-  for (let j = 0; j < n; j++) {
-    let d = a[j][j];
-    for (let k = 0; k < j; k++) d -= l[j][k] * l[j][k];
-    if (!(d > 1e-13 * Math.max(1, Math.abs(a[j][j])))) return null;
-    l[j][j] = Math.sqrt(d);
-    for (let i = j + 1; i < n; i++) {
-      let s = a[i][j];
-      for (let k = 0; k < j; k++) s -= l[i][k] * l[j][k];
-      l[i][j] = s / l[j][j];
-    }
+  const lowerMirrored = a.map((row, i) => row.map((v, j) => (j <= i ? v : a[j][i])));
+  const decomposition = new CholeskyDecomposition(new Matrix(lowerMirrored));
+  if (!decomposition.isPositiveDefinite()) return null;
+  const l = decomposition.lowerTriangularMatrix.to2DArray();
+  for (let j = 0; j < a.length; j++) {
+    if (!(l[j][j] * l[j][j] > 1e-13 * Math.max(1, Math.abs(a[j][j])))) return null;
   }
   return l;
 }
