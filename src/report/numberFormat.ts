@@ -234,7 +234,11 @@ export interface Interval {
  */
 export function formatRange(format: ValueFormat, interval: Interval, style: NumberStyle, context: ValueContext = {}): string {
   const bare = (x: number) => formatValue({ ...format, unit: '' }, x, style, format.kind === 'day' ? {} : context);
-  return style === 'screen' ? `${bare(interval.low)}–${bare(interval.high)}` : `${bare(interval.low)} to ${bare(interval.high)}`;
+  const low = bare(interval.low);
+  const high = bare(interval.high);
+  // An en dash between signed numbers ("−195–−7") reads as a minus: signed ranges say "to" (common practice).
+  const signed = /^[+−-]/.test(low) || /^[+−-]/.test(high);
+  return style === 'screen' && !signed ? `${low}–${high}` : `${low} to ${high}`;
 }
 
 /** An interval written like its value: screen "1,234 persons (1,100–1,400)", print "1,234 (1,100 to 1,400)". */

@@ -56,6 +56,10 @@ describe('formatValue by kind', () => {
     expect(formatInterval({ kind: 'fraction' }, { median: 0.5, low: 0.45, high: 0.55 }, 'print')).toBe('50.0% (45.0% to 55.0%)');
   });
 
+  it('says "to" on screen when a bound carries a sign, so the dash never reads as a minus', () => {
+    expect(formatInterval({ kind: 'change', unit: 'persons' }, { median: -53, low: -195, high: -7 }, 'screen')).toBe('−53 persons (−195 to −7)');
+  });
+
   it('writes a day of the horizon as its date when the start date is known', () => {
     expect(formatValue({ kind: 'date' }, 45, 'screen', { startDate: '2026-02-01' })).toBe('2026-03-18');
     expect(formatValue({ kind: 'date' }, 0, 'print', { startDate: '2024-02-29' })).toBe('2024-02-29');
