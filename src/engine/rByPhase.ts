@@ -8,6 +8,7 @@
  *   day its trigger first put it in force (fromDay when it never did) for a triggered one;
  * - rMeasuresOnly = rho(D diag(N) M_k): the phase's measures at full susceptibility, i.e.
  *   R0 times what the measures alone do.
+ * M_k and rMeasuresOnly are computed once per prepared scenario (phaseTransmission.ts).
  * rho is the dominant eigenvalue of the next-generation matrix (Diekmann, Heesterbeek & Roberts
  * 2010, J R Soc Interface 7:873), by the certified power iteration of ngm.ts.
  */
@@ -15,30 +16,26 @@ import { spectralRadius } from './ngm.ts';
 import type { PreparedScenario } from './prepare.ts';
 import type { PhaseReproduction, TriggerOutcome } from './results.ts';
 import type { PolicyOption } from './scenario.ts';
-import { transmissionMatrixInto } from './transmission.ts';
+import { phaseTransmission, rMeasuresOnly } from './phaseTransmission.ts';
 
 export function reproductionByPhase(p: PreparedScenario, option: PolicyOption, effectiveSusceptible: Float64Array, triggers: readonly TriggerOutcome[]): PhaseReproduction[] {
   const n = p.bands.bands;
   const H = p.scenario.horizonDays;
   const D = p.periods.infectiousPeriodDays;
-  const m = new Float64Array(n * n);
   const scale = new Float64Array(n);
   const vector = new Float64Array(n);
   const scratch = new Float64Array(n);
-  const radius = (susceptible: ArrayLike<number>): number => {
-    for (let i = 0; i < n; i++) scale[i] = D * susceptible[i];
-    vector.fill(1 / n);
-    return spectralRadius(m, n, vector, scratch, 1e-10, scale);
-  };
   return option.phases.map((phase, k) => {
-    transmissionMatrixInto(m, p.scenario, p.bands, p.beta, phase);
+    const m = phaseTransmission(p, phase);
     const start = Math.min(H, phase.trigger === undefined ? phase.fromDay : (triggers.find((t) => t.phase === k)?.firstOnDay ?? phase.fromDay));
+    for (let i = 0; i < n; i++) scale[i] = D * effectiveSusceptible[start * n + i];
+    vector.fill(1 / n);
     return {
       fromDay: phase.fromDay,
       toDay: phase.toDay,
       startDay: start,
-      rAtPhaseStart: radius(effectiveSusceptible.subarray(start * n, (start + 1) * n)),
-      rMeasuresOnly: radius(p.bands.population),
+      rAtPhaseStart: spectralRadius(m, n, vector, scratch, 1e-10, scale),
+      rMeasuresOnly: rMeasuresOnly(p, phase),
     };
   });
 }

@@ -6,14 +6,14 @@
 import { changeDays, phaseAt } from './phases.ts';
 import type { PreparedScenario } from './prepare.ts';
 import type { PolicyOption } from './scenario.ts';
-import { transmissionMatrixInto } from './transmission.ts';
+import { phaseTransmission } from './phaseTransmission.ts';
 import { dosePieceAt, type DosePiece } from './vaccination/dosePlan.ts';
 
 export interface Segment {
   /** Start and end, days (dose-plan changes need not fall on whole days). */
   fromDay: number;
   toDay: number;
-  /** M (n x n, per day) under the measures in force. */
+  /** M (n x n, per day) under the measures in force; shared by every run (phaseTransmission.ts), read-only. */
   transmission: Float64Array;
   /** Doses per day by band (zeros without vaccination). */
   doseRates: Float64Array;
@@ -34,7 +34,7 @@ export function segmentsOf(p: PreparedScenario, option: PolicyOption, plan: read
   for (let k = 0; k + 1 < sorted.length; k++) {
     const from = sorted[k];
     const changes = transmission === null || measureDays.includes(from);
-    if (changes) transmission = transmissionMatrixInto(new Float64Array(n * n), s, p.bands, p.beta, phaseAt(option, from));
+    if (changes) transmission = phaseTransmission(p, phaseAt(option, from));
     const piece = dosePieceAt(plan, from);
     segments.push({
       fromDay: from,

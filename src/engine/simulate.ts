@@ -5,25 +5,26 @@
  * Deaths by band: IFR_i x (infections_i - Xp_i + f_D Xp_i), with Xp_i the infections of protected
  * people and f_D their relative fatality (vaccination/prepare.ts); without vaccination, IFR x
  * infections. The daily death series convolves the same weighted daily infections with the
- * infection-to-death delay. Hospital demand gets the daily infections weighted by f_H the same way.
+ * infection-to-death delay. Hospital demand gets the daily infections weighted by f_H the same way
+ * (healthcare/demand.ts reads them from the cumulative infections, so a summary run builds no
+ * H x n array of daily infections).
  */
 import { weightedBandSum } from './bandTotals.ts';
 import { convolve } from './distributions.ts';
-import { finalSizeByBand } from './finalSize.ts';
 import { doublingTimeDays, growthRateFromR, halvingTimeDays } from './growth.ts';
-import { healthcareDemand } from './healthcare/demand.ts';
+import { healthcareDemandOfRun } from './healthcare/demand.ts';
 import { type Accuracy, integrateOption } from './integrateOption.ts';
 import { yearsOfLifeLostByBand } from './lifeExpectancy.ts';
 import { hasTriggers, measuresConstant, phaseAt } from './phases.ts';
 import type { PreparedScenario } from './prepare.ts';
 import { reproductionByDay } from './reproduction.ts';
-import { reproductionNumber } from './reproductionNumber.ts';
 import type { DailySeries, OptionResults, OptionSummary, VaccinationOutcomes } from './results.ts';
 import type { PolicyOption } from './scenario.ts';
 import { type Segment, segmentsOf } from './segments.ts';
 import { TriggeredMeasures } from './triggeredMeasures.ts';
 import { measureBurden } from './measureBurden.ts';
 import { reproductionByPhase } from './rByPhase.ts';
+import { finalSizeUnder, rAtDayZero } from './phaseTransmission.ts';
 import { type DosePiece, dosesByBandUntil } from './vaccination/dosePlan.ts';
 import type { PreparedCampaign } from './vaccination/prepareCampaign.ts';
 
@@ -131,7 +132,7 @@ export function simulateOption(p: PreparedScenario, option: PolicyOption, settin
   const triggers = triggered === null ? [] : triggered.measures.controller.outcomes(H);
   const burden = measureBurden(s, option, triggers);
 
-  const rStart = reproductionNumber(segments[0].transmission, p.initialSusceptible, p.periods.infectiousPeriodDays);
+  const rStart = rAtDayZero(p, segments[0].transmission);
   const growthRatePerDay = growthRateFromR(rStart, p.periods);
 
   let peakDay = 0;
@@ -153,14 +154,11 @@ export function simulateOption(p: PreparedScenario, option: PolicyOption, settin
   const infections = sum(infectionsByBand);
   const yllByBand = yearsOfLifeLostByBand(deathsByBand, p.remainingLifeExpectancy);
 
-  // Daily infections: for the series and the hospital demand.
-  const incidence = full || p.healthcare !== null ? dailyIncidence(p, daily.cumulative) : null;
-  const protectedIncidence = incidence === null || campaign === null ? null : dailyDifferences(daily.protectedCumulative, n, H);
 
   let finalSize: OptionResults['finalSize'] = null;
   if (campaign === null && measuresConstant(option, H)) {
     const s0 = Array.from(population, (N, i) => (N > 0 ? 1 - (s.initialState.priorImmunityFraction?.[i] ?? 0) : 0));
-    const z = Array.from(finalSizeByBand(segments[0].transmission, population, s0, p.periods.infectiousPeriodDays));
+    const z = Array.from(finalSizeUnder(p, segments[0].transmission, s0));
     finalSize = { attackRateByBand: z.map(fraction), attackRate: fraction(sum(z.map((x, i) => x * population[i])) / totalPopulation) };
   }
 
@@ -182,7 +180,7 @@ export function simulateOption(p: PreparedScenario, option: PolicyOption, settin
     yearsOfLifeLost: sum(yllByBand),
     yearsOfLifeLostByBand: yllByBand,
     finalSize,
-    healthcare: p.healthcare === null || incidence === null ? null : healthcareDemand(p.healthcare, weightedIncidence(incidence, protectedIncidence, campaign?.admissionRiskFactor ?? 1)),
+    healthcare: p.healthcare === null ? null : healthcareDemandOfRun(p.healthcare, daily.cumulative, p.seeds, campaign === null ? null : daily.protectedCumulative, campaign?.admissionRiskFactor ?? 1),
     vaccination: campaign === null ? null : vaccinationOutcomes(campaign, plan, n, H, daily.dosesToNonSusceptible),
     triggers,
     daysUnderMeasures: burden.daysUnderMeasures,
@@ -190,7 +188,10 @@ export function simulateOption(p: PreparedScenario, option: PolicyOption, settin
     measureBurden: burden,
     comparison: null,
   };
-  if (!full || incidence === null) return summary;
+  if (!full) return summary;
+  // Daily infections, by band: the series, and the death series through the infection-to-death delay.
+  const incidence = dailyIncidence(p, daily.cumulative);
+  const protectedIncidence = campaign === null ? null : dailyDifferences(daily.protectedCumulative, n, H);
   const series: DailySeries = {
     days: H,
     bands: n,
