@@ -18,7 +18,7 @@ export interface Mutant {
 const T = 'src/engine/transmission.ts';
 const C = 'src/engine/contacts.ts';
 const S = 'src/engine/seir.ts';
-const D = 'src/engine/dopri5.ts';
+const D = 'src/engine/integrator.ts';
 const I = 'src/engine/integrateOption.ts';
 const N = 'src/engine/ngm.ts';
 const P = 'src/engine/initialState.ts';
@@ -74,16 +74,16 @@ export const MUTANTS: Mutant[] = [
   { id: 'rhs-latent-chain-rate', file: S, find: 'dydt[at] = aE * (y[at - n] - y[at]);', replace: 'dydt[at] = aI * (y[at - n] - y[at]);', what: 'later latent stages at the infectious rate' },
   { id: 'rhs-waiting-infected', file: S, find: 'dydt[oW + i] = toWaiting - lambda * w - protecting;', replace: 'dydt[oW + i] = toWaiting - protecting;', what: 'vaccinated-waiting people not infected' },
   // Integrator
-  { id: 'dp-a41', file: D, find: 'A41 = 44 / 45', replace: 'A41 = 44 / 46', what: 'a Butcher coefficient off' },
-  { id: 'dp-b5', file: D, find: 'A75 = -2187 / 6784', replace: 'A75 = -2187 / 6785', what: 'a 5th-order weight off slightly' },
-  { id: 'dp-e1', file: D, find: 'E1 = 71 / 57600', replace: 'E1 = 71 / 5760', what: 'error estimate coefficient off' },
-  { id: 'dp-ignore-maxstep', file: D, find: 'h = Math.min(h * factor, maxStep);', replace: 'h = h * factor;', what: 'largest step ignored' },
-  { id: 'dp-dense-sign', file: D, find: 'r4[i] = ydiff - h * k7[i] - bspl;', replace: 'r4[i] = ydiff - h * k7[i] + bspl;', what: 'dense output sign slip' },
-  { id: 'dp-d5', file: D, find: 'D5 = 701980252875 / 199316789632', replace: 'D5 = 701980252875 / 189316789632', what: 'dense output coefficient off' },
-  { id: 'dp-accept-all', file: D, find: 'if (!(err <= 1)) {', replace: 'if (!(err <= 1000)) {', what: 'steps with large error accepted' },
-  { id: 'dp-theta', file: D, find: 'const theta = (outputTimes[out] - t) / h;', replace: 'const theta = (outputTimes[out] - t) / (1.01 * h);', what: 'dense output at a slightly wrong time' },
+  { id: 'rk-a43', file: D, find: 'A43 = 4.362295432869581', replace: 'A43 = 4.462295432869581', what: 'a Butcher coefficient off' },
+  { id: 'rk-b5', file: D, find: 'B5 = -3.290069515436081', replace: 'B5 = -3.390069515436081', what: 'a 5th-order weight off slightly' },
+  { id: 'rk-e7', file: D, find: 'E7 = -1 / 66', replace: 'E7 = 1 / 66', what: 'error estimate coefficient sign slip' },
+  { id: 'rk-ignore-maxstep', file: D, find: 'h = Math.min(h * factor, maxStep);', replace: 'h = h * factor;', what: 'largest step ignored' },
+  { id: 'rk-dense-sign', file: D, find: 'w[6] = 2.5 * (t - 1) * (t - 0.6) * t2;', replace: 'w[6] = -2.5 * (t - 1) * (t - 0.6) * t2;', what: 'dense output sign slip' },
+  { id: 'rk-dense-weight', file: D, find: 'w[3] = -16.54810288924490272', replace: 'w[3] = -16.64810288924490272', what: 'dense output coefficient off' },
+  { id: 'rk-accept-all', file: D, find: 'if (!(err <= 1)) {', replace: 'if (!(err <= 1000)) {', what: 'steps with large error accepted' },
+  { id: 'rk-theta', file: D, find: 'denseWeights((outputTimes[out] - t) / h, w);', replace: 'denseWeights((outputTimes[out] - t) / (1.01 * h), w);', what: 'dense output at a slightly wrong time' },
   // Daily record
-  { id: 'io-no-stable-cap', file: I, find: 'return Math.min(DEFAULT_TOLERANCES.maxStep, 2.5 / Math.max(...rates));', replace: 'return DEFAULT_TOLERANCES.maxStep;', what: 'no stability cap on the step' },
+  { id: 'io-no-stable-cap', file: I, find: 'return Math.min(DEFAULT_TOLERANCES.maxStep, (0.75 * REAL_STABILITY_BOUNDARY) / Math.max(...rates));', replace: 'return DEFAULT_TOLERANCES.maxStep;', what: 'no stability cap on the step' },
   { id: 'io-prevalence-e-only', file: I, find: 'for (let k = 0; k < infectedBlocks; k++)', replace: 'for (let k = 0; k < L.latentStages; k++)', what: 'prevalence counts E only' },
   { id: 'io-eff-susceptible', file: I, find: 'const eff = s + y[oW + i] + risk * y[oP + i];', replace: 'const eff = s + y[oW + i] + y[oP + i];', what: 'R(t) counts protected people at full risk' },
   // The integrator skips an output time that falls exactly on a step's end; each segment's last step ends on its last day.

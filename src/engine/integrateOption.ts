@@ -1,7 +1,7 @@
 /**
  * Integrates one option segment by segment and keeps the daily state the outcomes need.
  */
-import { DEFAULT_TOLERANCES, Dopri5Workspace, integrate, type Tolerances } from './dopri5.ts';
+import { DEFAULT_TOLERANCES, integrate, IntegratorWorkspace, REAL_STABILITY_BOUNDARY, type Tolerances } from './integrator.ts';
 import { initialStateOf } from './initialState.ts';
 import type { PreparedScenario } from './prepare.ts';
 import { protectedRisk, seirRightHandSide, type StateLayout, stateLayout } from './seir.ts';
@@ -30,15 +30,15 @@ export interface DailyState {
 
 /**
  * The largest step that keeps the explicit method stable on the model's fastest decay: stage
- * exits at rate k_E / T_E, k_I / T_I and protection at 1 / delay. Dormand-Prince 5(4) is stable
- * for h * rate up to about 3.3 on the negative real axis (Hairer & Wanner 1996, Solving ODEs II,
- * section IV.2); 2.5 leaves a margin. Without this cap a nearly empty compartment lets the error
+ * exits at rate k_E / T_E, k_I / T_I and protection at 1 / delay. The integrator is stable for
+ * h * rate up to REAL_STABILITY_BOUNDARY (3.5) on the negative real axis; three quarters of it
+ * leaves a margin (common practice). Without this cap a nearly empty compartment lets the error
  * controller take steps far beyond that limit, and the decaying mode then grows instead.
  */
 function largestStableStep(p: PreparedScenario, campaign: PreparedCampaign | null): number {
   const rates = [p.periods.latentStages / p.periods.latentPeriodDays, p.periods.infectiousStages / p.periods.infectiousPeriodDays];
   if (campaign !== null) rates.push(1 / campaign.vaccine.delayToProtectionDays);
-  return Math.min(DEFAULT_TOLERANCES.maxStep, 2.5 / Math.max(...rates));
+  return Math.min(DEFAULT_TOLERANCES.maxStep, (0.75 * REAL_STABILITY_BOUNDARY) / Math.max(...rates));
 }
 
 /** Error tolerances that override the integrator's defaults (relative; absolute, persons). */
@@ -108,7 +108,7 @@ export function integrateOption(
   const transmission = new Float64Array(n * n);
   const doseRates = new Float64Array(n);
   const rhs = seirRightHandSide(L, p.periods.latentPeriodDays, p.periods.infectiousPeriodDays, transmission, campaign?.vaccine ?? null, doseRates, counters);
-  const ws = new Dopri5Workspace(y.length);
+  const ws = new IntegratorWorkspace(y.length);
   const tolerances = { ...DEFAULT_TOLERANCES, ...accuracy, maxStep: largestStableStep(p, campaign) };
   const days = new Float64Array(H);
   for (let d = 0; d < H; d++) days[d] = d + 1;

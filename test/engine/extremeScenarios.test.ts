@@ -6,7 +6,7 @@
  * steps, not time.
  */
 import { describe, expect, it } from 'vitest';
-import { integratorStepsSoFar } from '../../src/engine/dopri5.ts';
+import { integratorStepsSoFar } from '../../src/engine/integrator.ts';
 import { runScenario, type ScenarioInput } from '../../src/engine/index.ts';
 import { MAX_CONTACTS_PER_DAY, MAX_R0, MIN_PERIOD_DAYS } from '../../src/engine/limits.ts';
 import { valid } from '../helpers/scenarios.ts';

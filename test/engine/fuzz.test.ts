@@ -12,7 +12,7 @@
  */
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { integratorStepsSoFar } from '../../src/engine/dopri5.ts';
+import { integratorStepsSoFar } from '../../src/engine/integrator.ts';
 import { evaluateDraw, formatProblem, parseScenarioText, prepareDraws, runScenario, withDrawSettings, type OptionResults, type Scenario } from '../../src/engine/index.ts';
 import { catalogueReader } from '../../src/report/drawOutcomes.ts';
 import { decodeUtf8Text } from '../../src/shared/textFile.ts';

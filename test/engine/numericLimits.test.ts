@@ -5,7 +5,7 @@
 import { describe, expect, it } from 'vitest';
 import { settingMultipliers } from '../../src/engine/contacts.ts';
 import { dailyDelayWeights, regularizedLowerGamma } from '../../src/engine/distributions.ts';
-import { DEFAULT_TOLERANCES, Dopri5Workspace, integrate } from '../../src/engine/dopri5.ts';
+import { DEFAULT_TOLERANCES, IntegratorWorkspace, integrate } from '../../src/engine/integrator.ts';
 import { growthRateFromR } from '../../src/engine/growth.ts';
 import { profileLikelihoodInterval } from '../../src/engine/fitting/profileInterval.ts';
 import { runScenario } from '../../src/engine/index.ts';
@@ -79,7 +79,7 @@ describe('engine numeric limits', () => {
     // tight enough to follow it all the way down).
     const y = Float64Array.from([1, 2]);
     const seen: number[] = [];
-    const ws = new Dopri5Workspace(2);
+    const ws = new IntegratorWorkspace(2);
     const days = Array.from({ length: 1000 }, (_, d) => d + 1);
     integrate((_t, state, out) => {
       out[0] = -state[0];

@@ -7,7 +7,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { MIN_PERIOD_DAYS } from '../../src/engine/limits.ts';
-import { integratorStepsSoFar } from '../../src/engine/dopri5.ts';
+import { integratorStepsSoFar } from '../../src/engine/integrator.ts';
 import { runScenario } from '../../src/engine/run.ts';
 import type { Scenario, ScenarioInput } from '../../src/engine/scenario.ts';
 import { validateScenario } from '../../src/engine/validation.ts';

@@ -1,6 +1,6 @@
 /** Whole-option runs: conservation, deaths, determinism, measures, and no impossible values. */
 import { describe, expect, it } from 'vitest';
-import { Dopri5Workspace, integrate } from '../../src/engine/dopri5.ts';
+import { IntegratorWorkspace, integrate } from '../../src/engine/integrator.ts';
 import { prepareScenario } from '../../src/engine/prepare.ts';
 import { runScenario } from '../../src/engine/run.ts';
 import { seirRightHandSide } from '../../src/engine/seir.ts';
@@ -25,7 +25,7 @@ describe('population conservation', () => {
       let sum = 0;
       for (let k = 0; k < L.cumulative; k++) sum += state[k];
       worst = Math.max(worst, Math.abs(sum - total) / total);
-    }, new Dopri5Workspace(L.size));
+    }, new IntegratorWorkspace(L.size));
     expect(worst).toBeLessThan(1e-9);
   });
 });

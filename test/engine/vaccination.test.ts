@@ -1,7 +1,7 @@
 /** Vaccination: dose plans, protection, R, final size with vaccinated fractions, and sanity properties. */
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { Dopri5Workspace, integrate } from '../../src/engine/dopri5.ts';
+import { IntegratorWorkspace, integrate } from '../../src/engine/integrator.ts';
 import { initialStateOf } from '../../src/engine/initialState.ts';
 import { prepareScenario } from '../../src/engine/prepare.ts';
 import { runScenario } from '../../src/engine/run.ts';
@@ -241,7 +241,7 @@ describe('property: any valid order and supply keeps every compartment non-negat
           const transmission = new Float64Array(9);
           const doseRates = new Float64Array(3);
           const rhs = seirRightHandSide(L, 3, 5, transmission, campaign.vaccine, doseRates);
-          const ws = new Dopri5Workspace(L.size);
+          const ws = new IntegratorWorkspace(L.size);
           let lowest = Infinity;
           for (const seg of segmentsOf(p, s.options[0], campaign.plan)) {
             transmission.set(seg.transmission);

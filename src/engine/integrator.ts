@@ -1,11 +1,20 @@
 /**
- * Dormand-Prince 5(4) with adaptive step size and dense output.
+ * The ODE integrator of every option run: Tsitouras 5(4), an explicit Runge-Kutta pair with
+ * adaptive step size and dense output.
  *
- * Coefficients, error estimate and the 4th-order continuous extension are those of
- * Dormand & Prince 1980, J Comput Appl Math 6:19, as given by Hairer, Norsett & Wanner 1993,
- * Solving Ordinary Differential Equations I, 2nd ed., section II.5 and II.6 (code DOPRI5).
- * Error norm: RMS of e_i / (atol + rtol * max(|y_i|, |y_new_i|)); step factor
- * 0.9 * err^(-1/5), limited to [0.2, 5]. Works on Float64Arrays; no allocation per step.
+ * Coefficients, the embedded 4th-order error estimate and the continuous extension of order 4
+ * are those of Ch. Tsitouras 2011, "Runge-Kutta pairs of order 5(4) satisfying only the first
+ * column simplifying assumption", Computers & Mathematics with Applications 62:770-775. Seven
+ * stages, the last one at the new point (first same as last): six evaluations of the right-hand
+ * side per step, like Dormand-Prince 5(4), with smaller error coefficients, so fewer steps reach
+ * the same accuracy (the demo's "Schools closed 8 weeks": 116 steps instead of 136, at a smaller
+ * worst error of the outcomes; test/engine/accuracy.test.ts). The order conditions (order 5 for the step, order 4 for the
+ * continuous extension at every theta) are checked in test/engine/integrator.test.ts.
+ *
+ * Error norm: RMS of e_i / (atol + rtol * max(|y_i|, |y_new_i|)) with e = h sum_j E_j k_j;
+ * step factor 0.9 * err^(-1/5), limited to [0.2, 5] (Hairer, Norsett & Wanner 1993, Solving
+ * ODEs I, 2nd ed., section II.4). Works on Float64Arrays; no allocation per step. Units: the
+ * caller's (days and persons in the engine).
  */
 
 /** dy/dt = f(t, y), written into dydt. Must not keep references to y or dydt. */
@@ -25,17 +34,24 @@ export interface Tolerances {
   flushBelow?: number;
 }
 
-/** A safety net: no realistic scenario needs more steps in one segment (the demo takes about 100). */
+/** A safety net: no realistic scenario needs more steps in one segment (the demo takes about 110). */
 const MAX_STEPS = 1_000_000;
 
 /**
- * The tolerances of every option run. rtol 4e-6 is the loosest round value that keeps attack
- * rates, deaths, the peak of the infected and peak bed occupancy within 1e-6 (relative) of an
- * rtol 1e-10 solution on the demo and on fast- and slow-growth variants, vaccination included
- * (test/engine/accuracy.test.ts; at 1e-5 a vaccination option and a fast epidemic missed by 1.3e-6
- * and 1.8e-6). atol is in persons.
+ * The tolerances of every option run. rtol 5e-6 keeps attack rates, deaths, the peak of the
+ * infected and peak bed occupancy within 1e-6 (relative) of an rtol 1e-10 solution on the demo and
+ * on fast- and slow-growth variants, vaccination included, with a margin of about 3 (worst
+ * 3.6e-7; test/engine/accuracy.test.ts). At 8e-6 the demo's vaccination option misses by 1.6e-6.
+ * atol is in persons.
  */
-export const DEFAULT_TOLERANCES: Tolerances = { relative: 4e-6, absolute: 1e-6, maxStep: 10, flushBelow: 1e-100 };
+export const DEFAULT_TOLERANCES: Tolerances = { relative: 5e-6, absolute: 1e-6, maxStep: 10, flushBelow: 1e-100 };
+
+/**
+ * Largest x with |R(-x')| <= 1 for every x' in [0, x], R the stability polynomial of the pair's
+ * 5th-order solution: the method is stable for h * rate up to this on the negative real axis.
+ * Computed from the coefficients below (test/engine/integrator.test.ts: 3.507).
+ */
+export const REAL_STABILITY_BOUNDARY = 3.5;
 
 let attemptedSteps = 0;
 
@@ -47,23 +63,66 @@ export function integratorStepsSoFar(): number {
   return attemptedSteps;
 }
 
-const C2 = 1 / 5, C3 = 3 / 10, C4 = 4 / 5, C5 = 8 / 9;
-const A21 = 1 / 5;
-const A31 = 3 / 40, A32 = 9 / 40;
-const A41 = 44 / 45, A42 = -56 / 15, A43 = 32 / 9;
-const A51 = 19372 / 6561, A52 = -25360 / 2187, A53 = 64448 / 6561, A54 = -212 / 729;
-const A61 = 9017 / 3168, A62 = -355 / 33, A63 = 46732 / 5247, A64 = 49 / 176, A65 = -5103 / 18656;
-const A71 = 35 / 384, A73 = 500 / 1113, A74 = 125 / 192, A75 = -2187 / 6784, A76 = 11 / 84;
-const E1 = 71 / 57600, E3 = -71 / 16695, E4 = 71 / 1920, E5 = -17253 / 339200, E6 = 22 / 525, E7 = -1 / 40;
-const D1 = -12715105075 / 11282082432, D3 = 87487479700 / 32700410799, D4 = -10690763975 / 1880347072;
-const D5 = 701980252875 / 199316789632, D6 = -1453857185 / 822651844, D7 = 69997945 / 29380423;
+// Tsitouras 2011, Table 1 (a_i1 = c_i - sum_{j>1} a_ij, the row-sum condition of the paper).
+const C2 = 0.161, C3 = 0.327, C4 = 0.9, C5 = 0.9800255409045097;
+const A32 = 0.335480655492357;
+const A42 = -6.359448489975075, A43 = 4.362295432869581;
+const A52 = -11.74888356406283, A53 = 7.495539342889836, A54 = -0.09249506636175525;
+const A62 = -12.92096931784711, A63 = 8.159367898576159, A64 = -0.071584973281401, A65 = -0.02826905039406838;
+const A21 = C2;
+const A31 = C3 - A32;
+const A41 = C4 - A42 - A43;
+const A51 = C5 - A52 - A53 - A54;
+const A61 = 1 - A62 - A63 - A64 - A65;
+/** 5th-order weights b_i (b_7 = 0): the new state, and stage 7 is evaluated at it. */
+const B1 = 0.09646076681806523, B2 = 0.01, B3 = 0.4798896504144996, B4 = 1.379008574103742, B5 = -3.290069515436081, B6 = 2.324710524099774;
+/** b_i - bhat_i: the difference to the embedded 4th-order solution (sum 0). */
+const E1 = 0.001780011052226, E2 = 0.000816434459657, E3 = -0.007880878010262, E4 = 0.144711007173263;
+const E5 = -0.582357165452555, E6 = 0.458082105929187, E7 = -1 / 66;
+
+/**
+ * Weights b_i(theta) of the continuous extension, y(t + theta h) = y + h sum_i b_i(theta) k_i,
+ * in the factored form of Tsitouras 2011 (section 3), written into w[0..6]. b_i(1) = b_i.
+ */
+export function denseWeights(theta: number, w: Float64Array): void {
+  const t = theta;
+  const t2 = t * t;
+  w[0] = -1.0530884977290216 * t * (t - 1.3299890189751412) * (t2 - 1.4364028541716351 * t + 0.7139816917074209);
+  w[1] = 0.1017 * t2 * (t2 - 2.1966568338249754 * t + 1.2949852507374631);
+  w[2] = 2.490627285651252793 * t2 * (t2 - 2.38535645472061657 * t + 1.57803468208092486);
+  w[3] = -16.54810288924490272 * (t - 1.21712927295533244) * (t - 0.61620406037800089) * t2;
+  w[4] = 47.37952196281928122 * (t - 1.203071208372362603) * (t - 0.658047292653547382) * t2;
+  w[5] = -34.87065786149660974 * (t - 1.2) * (t - 0.666666666666666667) * t2;
+  w[6] = 2.5 * (t - 1) * (t - 0.6) * t2;
+}
+
+/** y + h sum_i w_i k_i at the components `dense`, into out. */
+function denseState(
+  out: Float64Array, y: Float64Array, h: number, w: Float64Array,
+  k1: Float64Array, k2: Float64Array, k3: Float64Array, k4: Float64Array, k5: Float64Array, k6: Float64Array, k7: Float64Array,
+  dense: Int32Array,
+): void {
+  const w1 = h * w[0], w2 = h * w[1], w3 = h * w[2], w4 = h * w[3], w5 = h * w[4], w6 = h * w[5], w7 = h * w[6];
+  for (let c = 0; c < dense.length; c++) {
+    const i = dense[c];
+    out[i] = y[i] + w1 * k1[i] + w2 * k2[i] + w3 * k3[i] + w4 * k4[i] + w5 * k5[i] + w6 * k6[i] + w7 * k7[i];
+  }
+}
+
+/** The pair's coefficients as arrays, for the order-condition checks (test/engine/integrator.test.ts). */
+export const TABLEAU: { c: readonly number[]; a: readonly (readonly number[])[]; b: readonly number[]; e: readonly number[] } = {
+  c: [0, C2, C3, C4, C5, 1, 1],
+  a: [[], [A21], [A31, A32], [A41, A42, A43], [A51, A52, A53, A54], [A61, A62, A63, A64, A65], [B1, B2, B3, B4, B5, B6]],
+  b: [B1, B2, B3, B4, B5, B6, 0],
+  e: [E1, E2, E3, E4, E5, E6, E7],
+};
 
 /** Scratch space for one system size; reuse it across calls to avoid allocation. */
-export class Dopri5Workspace {
+export class IntegratorWorkspace {
   readonly k1: Float64Array; readonly k2: Float64Array; readonly k3: Float64Array; readonly k4: Float64Array;
   readonly k5: Float64Array; readonly k6: Float64Array; readonly k7: Float64Array;
   readonly stage: Float64Array; readonly next: Float64Array; readonly state: Float64Array;
-  readonly r1: Float64Array; readonly r2: Float64Array; readonly r3: Float64Array; readonly r4: Float64Array; readonly r5: Float64Array;
+  readonly weights = new Float64Array(7);
   /** Accepted and rejected step counts of the last call. */
   steps = 0;
   rejected = 0;
@@ -73,7 +132,6 @@ export class Dopri5Workspace {
     const f = () => new Float64Array(size);
     this.k1 = f(); this.k2 = f(); this.k3 = f(); this.k4 = f(); this.k5 = f(); this.k6 = f(); this.k7 = f();
     this.stage = f(); this.next = f(); this.state = f();
-    this.r1 = f(); this.r2 = f(); this.r3 = f(); this.r4 = f(); this.r5 = f();
   }
 }
 
@@ -90,8 +148,9 @@ export type OutputSink = (t: number, y: Float64Array) => unknown;
  * of `outputTimes` (ascending, within (t0, t1]). t_end is t1, or the output time at which `sink`
  * asked to stop (in `ws.stoppedAt`). When `denseComponents` is given, only those components of
  * the sink's state are evaluated (the rest hold scratch values): the dense output then costs what
- * the caller reads. Returns the last accepted step size, to start the next
- * segment with.
+ * the caller reads. Only components 0..active-1 are read by `rhs` (the others it only writes),
+ * so only those get intermediate stage values. Returns the last accepted step size, to start the
+ * next segment with.
  */
 export function integrate(
   rhs: RightHandSide,
@@ -100,16 +159,15 @@ export function integrate(
   t1: number,
   outputTimes: ArrayLike<number>,
   sink: OutputSink,
-  ws: Dopri5Workspace,
+  ws: IntegratorWorkspace,
   tol: Tolerances = DEFAULT_TOLERANCES,
   initialStep = 0.25,
   denseComponents: Int32Array | null = null,
   active = y.length,
 ): number {
   const n = y.length;
-  // Intermediate stages only for the components the right-hand side reads.
   const m = Math.min(n, active);
-  const { k2, k3, k4, k5, k6, stage, r1, r2, r3, r4, r5 } = ws;
+  const { k2, k3, k4, k5, k6, stage, weights: w } = ws;
   // The current state, its derivative, the candidate state and its derivative: swapped on
   // acceptance (first same as last: k7 of a step is k1 of the next) instead of copied.
   let yNow = ws.state;
@@ -119,6 +177,7 @@ export function integrate(
   yNow.set(y);
   const { absolute, relative, maxStep } = tol;
   const flushBelow = tol.flushBelow ?? 0;
+  const dense = denseComponents ?? Int32Array.from({ length: n }, (_, i) => i);
   ws.steps = 0;
   ws.rejected = 0;
   ws.stoppedAt = null;
@@ -142,14 +201,14 @@ export function integrate(
     rhs(t + C5 * h, stage, k5);
     for (let i = 0; i < m; i++) stage[i] = yNow[i] + h * (A61 * k1[i] + A62 * k2[i] + A63 * k3[i] + A64 * k4[i] + A65 * k5[i]);
     rhs(t + h, stage, k6);
-    for (let i = 0; i < n; i++) yNext[i] = yNow[i] + h * (A71 * k1[i] + A73 * k3[i] + A74 * k4[i] + A75 * k5[i] + A76 * k6[i]);
+    for (let i = 0; i < n; i++) yNext[i] = yNow[i] + h * (B1 * k1[i] + B2 * k2[i] + B3 * k3[i] + B4 * k4[i] + B5 * k5[i] + B6 * k6[i]);
     rhs(t + h, yNext, k7);
     let err = 0;
     for (let i = 0; i < n; i++) {
       const a = yNow[i];
       const b = yNext[i];
       const scale = absolute + relative * Math.max(a < 0 ? -a : a, b < 0 ? -b : b);
-      const e = (h * (E1 * k1[i] + E3 * k3[i] + E4 * k4[i] + E5 * k5[i] + E6 * k6[i] + E7 * k7[i])) / scale;
+      const e = (h * (E1 * k1[i] + E2 * k2[i] + E3 * k3[i] + E4 * k4[i] + E5 * k5[i] + E6 * k6[i] + E7 * k7[i])) / scale;
       err += e * e;
     }
     err = Math.sqrt(err / n);
@@ -172,25 +231,10 @@ export function integrate(
     if (ws.steps > MAX_STEPS) throw new Error(`the model could not be solved near day ${t.toFixed(2)}: its rates are too extreme`);
     const tNew = last ? t1 : t + h;
     if (out < outputs && outputTimes[out] <= tNew) {
-      const dense = denseComponents === null ? n : denseComponents.length;
-      for (let c = 0; c < dense; c++) {
-        const i = denseComponents === null ? c : denseComponents[c];
-        const ydiff = yNext[i] - yNow[i];
-        const bspl = h * k1[i] - ydiff;
-        r1[i] = yNow[i];
-        r2[i] = ydiff;
-        r3[i] = bspl;
-        r4[i] = ydiff - h * k7[i] - bspl;
-        r5[i] = h * (D1 * k1[i] + D3 * k3[i] + D4 * k4[i] + D5 * k5[i] + D6 * k6[i] + D7 * k7[i]);
-      }
       let stopAt = Number.NaN;
       while (out < outputs && outputTimes[out] <= tNew) {
-        const theta = (outputTimes[out] - t) / h;
-        const theta1 = 1 - theta;
-        for (let c = 0; c < dense; c++) {
-          const i = denseComponents === null ? c : denseComponents[c];
-          stage[i] = r1[i] + theta * (r2[i] + theta1 * (r3[i] + theta * (r4[i] + theta1 * r5[i])));
-        }
+        denseWeights((outputTimes[out] - t) / h, w);
+        denseState(stage, yNow, h, w, k1, k2, k3, k4, k5, k6, k7, dense);
         const stop = sink(outputTimes[out], stage);
         out++;
         if (stop === true) {
