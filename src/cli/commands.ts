@@ -8,7 +8,7 @@ import type { DrawOptions, OutputFormat } from './args.ts';
 import { mergeParts, partFileText } from './drawParts.ts';
 import { computeDraws, computeDrawsOnThreads, drawThreadsFor, scenarioForDraws, summarise } from './uncertainty.ts';
 import { DRAW_OUTCOME_KEYS } from '../report/drawOutcomes.ts';
-import { EXIT_CODES, type ExitCode } from './errors.ts';
+import { EXIT_CODES, inFile, type ExitCode } from './errors.ts';
 import { readTextFile, writeFileAtomically } from './files.ts';
 import { formatReport } from './format.ts';
 import { csvSourceOf } from './nodeFingerprint.ts';
@@ -67,6 +67,14 @@ function drawRunText(scenario: Scenario, calibration: Calibration, format: Outpu
 
 /** `run` on this thread; with an uncertainty section, also its draws (or the slice `--draw-range` asks for). */
 export function runCommand(io: Output, file: string, format: OutputFormat, out: string | null, drawOptions: DrawOptions = {}): ExitCode {
+  try {
+    return runFile(io, file, format, out, drawOptions);
+  } catch (err) {
+    throw inFile(err, file);
+  }
+}
+
+function runFile(io: Output, file: string, format: OutputFormat, out: string | null, drawOptions: DrawOptions): ExitCode {
   const loaded = loadScenarioOrComplain(io, file);
   if (loaded === null) return EXIT_CODES.invalidScenario;
   const scenario = scenarioForDraws(loaded.scenario, drawOptions);
@@ -88,6 +96,14 @@ export function mergeCommand(io: Output, files: readonly string[], format: Outpu
  * (runOnPool.ts, uncertainty.ts); the same output as `runCommand`.
  */
 export async function runCommandOnThreads(io: Output, file: string, format: OutputFormat, out: string | null, workers: number | null, drawOptions: DrawOptions = {}): Promise<ExitCode> {
+  try {
+    return await runFileOnThreads(io, file, format, out, workers, drawOptions);
+  } catch (err) {
+    throw inFile(err, file);
+  }
+}
+
+async function runFileOnThreads(io: Output, file: string, format: OutputFormat, out: string | null, workers: number | null, drawOptions: DrawOptions): Promise<ExitCode> {
   const loaded = loadScenarioOrComplain(io, file);
   if (loaded === null) return EXIT_CODES.invalidScenario;
   const scenario = scenarioForDraws(loaded.scenario, drawOptions);

@@ -46,7 +46,7 @@ import { gapText, orderText } from '../report/orderText.ts';
 import { nodeWorkerPool } from './workerThreads.ts';
 import { CAUTION } from '../report/index.ts';
 import { loadScenarioOrComplain, type Output } from './commands.ts';
-import { CliError, EXIT_CODES, reportFault, type ExitCode } from './errors.ts';
+import { CliError, EXIT_CODES, inFile, reportFault, type ExitCode } from './errors.ts';
 import { HELP_TEXT } from './help.ts';
 import { groupThousands } from '../report/numberFormat.ts';
 import { onlyFile, splitWords, usageError } from './words.ts';
@@ -184,6 +184,14 @@ async function orders(io: Output, words: readonly string[]): Promise<ExitCode> {
     return EXIT_CODES.ok;
   }
   const args = parseOrdersArgs(words);
+  try {
+    return await ordersOfFile(io, args);
+  } catch (err) {
+    throw inFile(err, args.file);
+  }
+}
+
+async function ordersOfFile(io: Output, args: OrdersArgs): Promise<ExitCode> {
   const loaded = loadScenarioOrComplain(io, args.file);
   if (loaded === null) return EXIT_CODES.invalidScenario;
   const scenario = withDrawSettings(loaded.scenario, { draws: args.draws ?? undefined });

@@ -9,7 +9,7 @@ import packageJson from '../../package.json' with { type: 'json' };
 import { runScenario, type Scenario } from '../engine/index.ts';
 import { buildReportHtml, dailySeriesCsv, optionsTableCsv, scenarioFingerprint } from '../report/index.ts';
 import { loadScenarioOrComplain, type Output } from './commands.ts';
-import { EXIT_CODES, reportFault, type ExitCode } from './errors.ts';
+import { EXIT_CODES, inFile, reportFault, type ExitCode } from './errors.ts';
 import { writeFileAtomically } from './files.ts';
 import { parseReportArgs, type ReportArgs } from './reportArgs.ts';
 import { findChromium, printHtmlToPdf } from './reportPdf.ts';
@@ -66,7 +66,12 @@ async function report(io: Output, args: ReportArgs, context: ReportContext): Pro
 /** Runs `mixwise report` with the words after "report"; never throws. */
 export async function reportCommand(io: Output, words: readonly string[], context: ReportContext = processContext): Promise<ExitCode> {
   try {
-    return await report(io, parseReportArgs(words), context);
+    const args = parseReportArgs(words);
+    try {
+      return await report(io, args, context);
+    } catch (err) {
+      throw inFile(err, args.file);
+    }
   } catch (err) {
     return reportFault(err, (text) => io.err(text));
   }

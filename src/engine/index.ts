@@ -27,6 +27,7 @@ export { prepareScenario, type PreparedScenario } from './prepare.ts';
 export { simulateOption, type SeriesDetail, type OptionRunSettings } from './simulate.ts';
 export { finalSizeByBand } from './finalSize.ts';
 export { perronRoot, PerronRootNotSettled } from './perronRoot.ts';
+export { RunRefused } from './runRefusal.ts';
 export { integratorStepsSoFar } from './integrator.ts';
 export * from './healthcare/index.ts';
 export * from './vaccination/index.ts';

@@ -64,15 +64,21 @@ export function phaseTransmission(p: PreparedScenario, phase: Phase | null): Flo
   return entry(p, phase).transmission;
 }
 
-/** R under `phase`'s measures with everyone susceptible: rho(D diag(N) M), certified to 1e-10 relative (ngm.ts). */
+/**
+ * rho(D diag(N) m) for an n x n transmission matrix m, certified to 1e-10 relative (ngm.ts): R
+ * under m's measures with everyone susceptible. Throws PerronRootNotSettled when it cannot be
+ * pinned down (validation.ts refuses such a phase with this same computation).
+ */
+export function measuresOnlyRadius(m: Float64Array, n: number, infectiousPeriodDays: number, population: ArrayLike<number>): number {
+  const scale = new Float64Array(n);
+  for (let i = 0; i < n; i++) scale[i] = infectiousPeriodDays * population[i];
+  return spectralRadius(m, n, new Float64Array(n).fill(1 / n), new Float64Array(n), 1e-10, scale);
+}
+
+/** R under `phase`'s measures with everyone susceptible (`measuresOnlyRadius`), once per prepared scenario. */
 export function rMeasuresOnly(p: PreparedScenario, phase: Phase): number {
   const e = entry(p, phase);
-  if (e.rMeasuresOnly === null) {
-    const n = p.bands.bands;
-    const scale = new Float64Array(n);
-    for (let i = 0; i < n; i++) scale[i] = p.periods.infectiousPeriodDays * p.bands.population[i];
-    e.rMeasuresOnly = spectralRadius(e.transmission, n, new Float64Array(n).fill(1 / n), new Float64Array(n), 1e-10, scale);
-  }
+  if (e.rMeasuresOnly === null) e.rMeasuresOnly = measuresOnlyRadius(e.transmission, p.bands.bands, p.periods.infectiousPeriodDays, p.bands.population);
   return e.rMeasuresOnly;
 }
 

@@ -18,6 +18,8 @@
  */
 import { spectralRadius } from './ngm.ts';
 import type { PreparedScenario } from './prepare.ts';
+import { optionPath, rootOrRefusal } from './runRefusal.ts';
+import type { PolicyOption } from './scenario.ts';
 import type { Segment } from './segments.ts';
 
 /** Relative width of the certified bracket around each day's R (d >= 1). */
@@ -41,7 +43,8 @@ function bracketMidpoint(x: Float64Array, product: Float64Array, scale: Float64A
   return high > 0 && high - low <= REPRODUCTION_TOLERANCE * high ? 0.5 * (low + high) : NaN;
 }
 
-export function reproductionByDay(p: PreparedScenario, segments: readonly Segment[], effectiveSusceptible: Float64Array): Float64Array {
+/** R(t) of `option` (whose realised segments are `segments`); a day whose R cannot be pinned down ends in a RunRefused naming the option and the day (runRefusal.ts). */
+export function reproductionByDay(p: PreparedScenario, option: PolicyOption, segments: readonly Segment[], effectiveSusceptible: Float64Array): Float64Array {
   const n = p.bands.bands;
   const H = p.scenario.horizonDays;
   const D = p.periods.infectiousPeriodDays;
@@ -71,7 +74,9 @@ export function reproductionByDay(p: PreparedScenario, segments: readonly Segmen
       if (d - 4 >= measuresSince) for (let i = 0; i < n; i++) vector[i] = Math.max(0, 4 * x1[i] - 6 * x2[i] + 4 * x3[i] - x4[i]);
       else if (d - 3 >= measuresSince) for (let i = 0; i < n; i++) vector[i] = Math.max(0, 3 * x1[i] - 3 * x2[i] + x3[i]);
       else if (d > 0) vector.set(x1);
-      rt[d] = spectralRadius(segments[seg].transmission, n, vector, scratch, d === 0 ? START_TOLERANCE : REPRODUCTION_TOLERANCE, scale, product);
+      const transmission = segments[seg].transmission;
+      const tolerance = d === 0 ? START_TOLERANCE : REPRODUCTION_TOLERANCE;
+      rt[d] = rootOrRefusal(() => spectralRadius(transmission, n, vector, scratch, tolerance, scale, product), optionPath(p.scenario.options, option.name), option.name, `on day ${d}`);
     } else {
       vector.set(x1);
     }

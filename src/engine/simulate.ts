@@ -18,6 +18,7 @@ import { yearsOfLifeLostByBand } from './lifeExpectancy.ts';
 import { hasTriggers, measuresConstant, phaseAt } from './phases.ts';
 import type { PreparedScenario } from './prepare.ts';
 import { reproductionByDay } from './reproduction.ts';
+import { optionPath, rootOrRefusal } from './runRefusal.ts';
 import type { DailySeries, OptionResults, OptionSummary, VaccinationOutcomes } from './results.ts';
 import type { PolicyOption } from './scenario.ts';
 import { type Segment, segmentsOf } from './segments.ts';
@@ -132,7 +133,7 @@ export function simulateOption(p: PreparedScenario, option: PolicyOption, settin
   const triggers = triggered === null ? [] : triggered.measures.controller.outcomes(H);
   const burden = measureBurden(s, option, triggers);
 
-  const rStart = rAtDayZero(p, segments[0].transmission);
+  const rStart = rootOrRefusal(() => rAtDayZero(p, segments[0].transmission), optionPath(s.options, option.name), option.name, 'on day 0');
   const growthRatePerDay = growthRateFromR(rStart, p.periods);
 
   let peakDay = 0;
@@ -199,7 +200,7 @@ export function simulateOption(p: PreparedScenario, option: PolicyOption, settin
     prevalence: daily.prevalence,
     incidence,
     deaths: convolve(weightedBandSum(weightedIncidence(incidence, protectedIncidence, deathFactor), n, p.infectionFatalityRatio), p.deathDelayWeights),
-    rt: reproductionByDay(p, segments, daily.effectiveSusceptible),
+    rt: reproductionByDay(p, option, segments, daily.effectiveSusceptible),
     doses: dailyDoses(plan, n, H),
   };
   return { ...summary, series };

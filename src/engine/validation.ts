@@ -11,12 +11,14 @@ import { healthcareProblems } from './healthcare/healthcareProblems.ts';
 import { lifeTableProblems } from './lifeExpectancy.ts';
 import { MAX_TRIGGER_LEVEL_PER_100K } from './limits.ts';
 import { PerronRootNotSettled } from './perronRoot.ts';
+import { measuresOnlyProblems } from './rByPhase.ts';
 import { jsonValueProblems, readJsonText } from './jsonText.ts';
 import { formatPath, formatProblem, type Problem } from './problems.ts';
 import { isReservedName, strictInputProblems } from './strictInput.ts';
 import { vaccinationProblems } from './vaccination/vaccinationProblems.ts';
 import { uncertaintyProblems } from './uncertainty/uncertaintyProblems.ts';
 import { HOSPITAL_TRIGGER_QUANTITIES, scenarioSchema, type Scenario, type Trigger } from './scenario.ts';
+import { bandParameters } from './transmission.ts';
 
 /** A valid scenario comes with its calibration, to hand to `prepareScenario` / `runScenario`. */
 export type ValidationResult = { ok: true; scenario: Scenario; calibration: Calibration } | { ok: false; problems: Problem[] };
@@ -216,15 +218,19 @@ export function validateScenario(input: unknown): ValidationResult {
 function checkedWhole(scenario: Scenario): ValidationResult {
   const problems = crossFieldProblems(scenario);
   if (problems.length > 0) return { ok: false, problems: listed(problems) };
+  const bands = bandParameters(scenario);
   let calibration: Calibration;
   try {
-    calibration = calibrateTransmission(scenario);
+    calibration = calibrateTransmission(scenario, bands);
   } catch (err) {
     if (!(err instanceof PerronRootNotSettled)) throw err;
     return { ok: false, problems: [{ path: 'settings', rule: `must give contacts R0 can be computed for: with these contacts and populations ${err.message}; look for values many orders of magnitude from the rest (such as 1e-300)` }] };
   }
-  const problem = calibrationProblem(scenario, calibration);
-  return problem !== null ? { ok: false, problems: [problem] } : { ok: true, scenario, calibration };
+  const problem = calibrationProblem(scenario, calibration, bands);
+  if (problem !== null) return { ok: false, problems: [problem] };
+  // Each phase's R under its measures alone, as every run computes it (rByPhase.ts): refused here rather than mid-run.
+  const phaseProblems = measuresOnlyProblems(scenario, bands, calibration.beta);
+  return phaseProblems.length > 0 ? { ok: false, problems: listed(phaseProblems) } : { ok: true, scenario, calibration };
 }
 
 /** A top-level section of a scenario (the unit `revalidateSections` checks again). */

@@ -2,7 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
 import { parseScenarioText, validateScenario } from '../../src/engine/validation.ts';
 import { problemInWords } from '../../src/renderer/lib/problemWords.ts';
-import type { Scenario } from '../../src/engine/scenario.ts';
+import { scenarioSchema, type Scenario } from '../../src/engine/scenario.ts';
+import { phaseLeavingOddContacts } from '../helpers/unsettledRoots.ts';
 
 function demo(): Scenario {
   const parsed = parseScenarioText(readFileSync('resources/demo-scenario.json', 'utf8'));
@@ -34,5 +35,14 @@ describe('problems in the words the app shows', () => {
     const v = demo();
     v.vaccinationCampaigns[0].efficacyAgainstDeath = 0.1;
     expect(problemsOf(v)[0]).toMatch(/^Efficacy against death must be at least efficacy against infection/);
+  });
+
+  it('names a phase or an option whose R cannot be computed by its label, without repeating the option', () => {
+    const input = phaseLeavingOddContacts();
+    const check = validateScenario(input);
+    if (check.ok) throw new Error('expected a refusal');
+    const s = scenarioSchema.parse(input);
+    expect(problemInWords(check.problems[0], s)).toMatch(/^Phase 1 of “ordinary contacts shut” must give measures R can be computed under: with everyone susceptible the largest eigenvalue/);
+    expect(problemInWords({ path: 'options[0]', rule: '(option "as usual") must give measures R can be computed under: on day 0 x' }, s)).toBe('Option “as usual” must give measures R can be computed under: on day 0 x');
   });
 });

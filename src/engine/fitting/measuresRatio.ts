@@ -11,8 +11,10 @@
  * on the fit's days, which are the scenario's when the counts are placed on them (scenarioDays.ts).
  */
 import { initialSusceptibleOf } from '../initialState.ts';
+import { PerronRootNotSettled } from '../perronRoot.ts';
 import { phaseAt } from '../phases.ts';
 import { reproductionAtUnitTransmission } from '../reproductionNumber.ts';
+import { UNSETTLED_ROOT_HINT } from '../runRefusal.ts';
 import type { Phase, Scenario } from '../scenario.ts';
 import { bandParameters } from '../transmission.ts';
 
@@ -31,7 +33,7 @@ export interface MeasuresRatio {
 
 export type MeasuresRatioResult = { ok: true; value: MeasuresRatio } | { ok: false; problems: { field: string; rule: string; value?: string }[] };
 
-/** ρ for an explicit phase (null gives 1). Throws nothing; 0 / 0 (no transmission at all) gives NaN. */
+/** ρ for an explicit phase (null gives 1); 0 / 0 (no transmission at all) gives NaN. Throws PerronRootNotSettled when either R cannot be pinned down. */
 export function measuresRatioOfPhase(scenario: Scenario, phase: Phase | null): number {
   if (phase === null) return 1;
   const bands = bandParameters(scenario);
@@ -49,7 +51,13 @@ export function measuresRatioForOption(scenario: Scenario, optionName: string, d
   if (phase === null) {
     return { ok: true, value: { ratio: 1, option: option.name, day, phase: null, note: `Option "${option.name}" has no measures in force on day ${day}: nothing divided out (ratio 1).` } };
   }
-  const ratio = measuresRatioOfPhase(scenario, phase);
+  let ratio: number;
+  try {
+    ratio = measuresRatioOfPhase(scenario, phase);
+  } catch (err) {
+    if (!(err instanceof PerronRootNotSettled)) throw err;
+    return { ok: false, problems: [{ field: 'measuresOption', rule: `its measures on day ${day} leave R uncomputable at the initial susceptibles: ${err.message}; ${UNSETTLED_ROOT_HINT}`, value: optionName }] };
+  }
   if (!(Number.isFinite(ratio) && ratio > 0)) {
     return { ok: false, problems: [{ field: 'measuresOption', rule: `its measures on day ${day} stop all transmission (ratio ${ratio}), so R0 cannot be back-calculated`, value: optionName }] };
   }

@@ -10,11 +10,13 @@
  * while the pool is busy. A worker receives a map's context once, before its first task of that map.
  * `onProgress(done, total)` follows every result. Aborting `signal` drops the map's queued tasks
  * and rejects it with `PoolCancelled`; tasks already on a worker finish there and are ignored.
- * A failed task rejects its map with the task's message and drops the rest of that map.
+ * A failed task rejects its map with the task's message (a refused run as the same RunRefused,
+ * runRefusal.ts) and drops the rest of that map.
  */
 import type { ContextOf, JobName, PreparedOf, ResultOf, TaskOf } from './jobs.ts';
 import { JOBS, type Job } from './jobs.ts';
 import type { PoolEndpoint, PoolReply } from './protocol.ts';
+import { RunRefused } from '../runRefusal.ts';
 
 /** Tasks in flight per worker. */
 const PIPELINE = 2;
@@ -157,7 +159,7 @@ export class WorkerPool {
     if (entry !== undefined && !entry.map.settled) {
       const { map } = entry;
       if (reply.type === 'failed') {
-        this.settle(map, new Error(reply.message));
+        this.settle(map, reply.problem === undefined ? new Error(reply.message) : new RunRefused(reply.problem));
       } else {
         map.results[entry.index] = reply.result;
         map.done++;

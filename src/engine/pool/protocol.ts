@@ -7,13 +7,15 @@
  * pool; a worker keeps the prepared form of the newest few, so a second map over the same
  * context (or a task list spread over several maps) prepares it once per worker.
  */
+import type { Problem } from '../problems.ts';
 import type { JobName } from './jobs.ts';
 
 export type PoolRequest =
   | { type: 'context'; contextId: number; job: JobName; context: unknown }
   | { type: 'task'; taskId: number; contextId: number; job: JobName; task: unknown };
 
-export type PoolReply = { type: 'done'; taskId: number; result: unknown } | { type: 'failed'; taskId: number; message: string };
+/** A `failed` task carries its error's message and, for a refused run (runRefusal.ts), its problem, so the refusal arrives as one. */
+export type PoolReply = { type: 'done'; taskId: number; result: unknown } | { type: 'failed'; taskId: number; message: string; problem?: Problem };
 
 /** One worker as the pool sees it: post a message, hear replies, stop it. */
 export interface PoolEndpoint {

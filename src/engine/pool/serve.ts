@@ -4,7 +4,8 @@
  * worker_threads' parentPort or to a Web Worker's `self`.
  */
 import { JOBS, type Job, type JobName } from './jobs.ts';
-import type { PoolRequest, WorkerSide } from './protocol.ts';
+import { RunRefused } from '../runRefusal.ts';
+import type { PoolReply, PoolRequest, WorkerSide } from './protocol.ts';
 
 /** Prepared contexts kept per worker (the newest ones; a map needs only its own). */
 const KEPT_CONTEXTS = 4;
@@ -12,21 +13,21 @@ const KEPT_CONTEXTS = 4;
 type AnyJob = Job<unknown, unknown, unknown, unknown>;
 
 export function serveJobs(side: WorkerSide): void {
-  const prepared = new Map<number, { job: JobName; value: unknown } | { job: JobName; error: string }>();
+  const prepared = new Map<number, { job: JobName; value: unknown } | { job: JobName; error: unknown }>();
   side.listen((request: PoolRequest) => {
     if (request.type === 'context') {
       const job = JOBS[request.job] as AnyJob;
       try {
         prepared.set(request.contextId, { job: request.job, value: job.prepare(request.context) });
       } catch (err) {
-        prepared.set(request.contextId, { job: request.job, error: messageOf(err) });
+        prepared.set(request.contextId, { job: request.job, error: err });
       }
       while (prepared.size > KEPT_CONTEXTS) prepared.delete(prepared.keys().next().value as number);
       return;
     }
     const entry = prepared.get(request.contextId);
     if (entry === undefined || 'error' in entry) {
-      side.post({ type: 'failed', taskId: request.taskId, message: entry?.error ?? 'the worker lost the task context' }, []);
+      side.post(failure(request.taskId, entry === undefined ? new Error('the worker lost the task context') : entry.error), []);
       return;
     }
     const job = JOBS[request.job] as AnyJob;
@@ -34,11 +35,13 @@ export function serveJobs(side: WorkerSide): void {
       const result = job.run(entry.value, request.task);
       side.post({ type: 'done', taskId: request.taskId, result }, job.transferables(result));
     } catch (err) {
-      side.post({ type: 'failed', taskId: request.taskId, message: messageOf(err) }, []);
+      side.post(failure(request.taskId, err), []);
     }
   });
 }
 
-function messageOf(err: unknown): string {
-  return err instanceof Error ? err.message : String(err);
+/** The `failed` reply for an error: its message, and its problem when the run was refused. */
+function failure(taskId: number, err: unknown): PoolReply {
+  const message = err instanceof Error ? err.message : String(err);
+  return err instanceof RunRefused ? { type: 'failed', taskId, message, problem: err.problem } : { type: 'failed', taskId, message };
 }

@@ -12,6 +12,7 @@
 import { phaseAt } from '../phases.ts';
 import type { PreparedScenario } from '../prepare.ts';
 import { reproductionNumber } from '../reproductionNumber.ts';
+import { optionPath, rootOrRefusal } from '../runRefusal.ts';
 import type { PolicyOption } from '../scenario.ts';
 import { transmissionMatrixInto } from '../transmission.ts';
 import type { Campaign } from './schema.ts';
@@ -47,13 +48,14 @@ export function coverageNeededForRBelowOne(p: PreparedScenario, option: PolicyOp
   const population = p.bands.population;
   const m = transmissionMatrixInto(new Float64Array(n * n), p.scenario, p.bands, p.beta, phaseAt(option, 0));
   const effective = new Float64Array(n);
+  const at = optionPath(p.scenario.options, option.name);
   const rAfter = (total: number): number => {
     const doses = allocateDoses(c, population, total);
     for (let i = 0; i < n; i++) {
       const s = p.initialSusceptible[i];
       effective[i] = population[i] > 0 ? s * (1 - (c.efficacyAgainstInfection * doses[i]) / population[i]) : 0;
     }
-    return reproductionNumber(m, effective, p.periods.infectiousPeriodDays);
+    return rootOrRefusal(() => reproductionNumber(m, effective, p.periods.infectiousPeriodDays), at, option.name, "with the campaign's doses given on day 0 (coverage needed for R < 1)");
   };
   let ceiling = 0;
   for (let i = 0; i < n; i++) ceiling += (c.uptakeCeiling[i] ?? 0) * population[i];

@@ -21,6 +21,7 @@ import {
   prepareOrderDraws,
   prepareOrderSearch,
   runScenarioOnPool,
+  RunRefused,
   searchOrders,
   topOrdersUnderDraws,
   WorkerPool,
@@ -30,6 +31,7 @@ import {
   type OrdersInfo,
   type PoolEndpoint,
   type PoolReply,
+  type Problem,
   type Scenario,
   type ScenarioResults,
 } from '../../engine/index.ts';
@@ -42,7 +44,8 @@ export type OrderSearchStep = { stage: 'search'; fraction: number; evaluated: nu
 
 export interface EngineCallbacks {
   onResults(results: ScenarioResults, runId: number, computeMs: number): void;
-  onFailure(message: string, runId: number): void;
+  /** A run that failed; `problem` when the engine refused the scenario's numbers (RunRefused), not a fault. */
+  onFailure(message: string, runId: number, problem?: Problem): void;
   onOrders?(orders: OrdersInfo, requestId: number): void;
   onOrdersFailure?(message: string, requestId: number): void;
 }
@@ -86,7 +89,7 @@ export class EngineClient {
         if (runId === this.lastRunId) this.callbacks.onResults(results, runId, performance.now() - started);
       },
       (err: unknown) => {
-        if (!(err instanceof PoolCancelled) && runId === this.lastRunId) this.callbacks.onFailure(messageOf(err), runId);
+        if (!(err instanceof PoolCancelled) && runId === this.lastRunId) this.callbacks.onFailure(messageOf(err), runId, err instanceof RunRefused ? err.problem : undefined);
       },
     );
     return runId;

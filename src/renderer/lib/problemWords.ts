@@ -72,6 +72,12 @@ export function fieldLabel(path: string, scenario: Scenario): string {
   if (m) return own(CAPACITY_LABELS, m[1]) ?? capitalise(spelt(m[1]));
   m = /^(?:populationPersons|initialState\.(\w+)|severity\.(\w+)|disease\.(\w+)|healthcare\.(\w+))\[(\d+)\]$/.exec(path);
   if (m) return `${capitalise(spelt(m[1] ?? m[2] ?? m[3] ?? m[4] ?? 'populationPersons'))} ${band(scenario, m[5])}`;
+  m = /^options\[(\d+)\](?:\.phases\[(\d+)\](?:\.(\w+))?)?$/.exec(path);
+  if (m) {
+    const option = `“${scenario.options?.[Number(m[1])]?.name ?? `option ${Number(m[1]) + 1}`}”`;
+    if (m[2] === undefined) return `Option ${option}`;
+    return `Phase ${Number(m[2]) + 1} of ${option}${m[3] === undefined ? '' : `: ${spelt(m[3])}`}`;
+  }
   m = /^options\[(\d+)\]\.phases\[(\d+)\]\.(\w+)/.exec(path);
   if (m) return `Phase ${Number(m[2]) + 1} of “${scenario.options?.[Number(m[1])]?.name ?? `option ${Number(m[1]) + 1}`}”: ${spelt(m[3])}`;
   m = /^uncertainty\.parameters\[(\d+)\](?:\.distribution)?(?:\.(\w+))?/.exec(path);
@@ -98,6 +104,7 @@ function ruleInWords(rule: string): string {
 
 /** One line for the user: label, rule, offending value. */
 export function problemInWords(problem: Problem, scenario: Scenario): string {
-  const rule = ruleInWords(problem.rule);
+  // A refused run's rule names its option for the command line (runRefusal.ts); the label here already does.
+  const rule = ruleInWords(/^options\[\d+\]/.test(problem.path) ? problem.rule.replace(/^\(option "(?:[^"\\]|\\.)*"\) /, '') : problem.rule);
   return `${fieldLabel(problem.path, scenario)} ${rule}${problem.value === undefined ? '' : `, got ${problem.value}`}`;
 }

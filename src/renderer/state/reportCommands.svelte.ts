@@ -34,6 +34,10 @@ class ReportCommands {
         workspace.notice = { kind: 'error', text: `No report: the engine could not compute this scenario (${workspace.engineError}).` };
         return null;
       }
+      if (workspace.engineRefusal !== null) {
+        workspace.notice = { kind: 'error', text: `No report: this scenario cannot be computed: ${workspace.engineRefusal}` };
+        return null;
+      }
       if (performance.now() - started > FRESH_RESULTS_TIMEOUT_MS) {
         workspace.notice = { kind: 'error', text: 'No report: the results are still being computed. Try again in a moment.' };
         return null;

@@ -7,6 +7,7 @@ import { tick } from 'svelte';
 import { parseScenarioText, formatProblem, scenarioRevision, type OrderComparison, type Scenario, type ScenarioResults, type OrdersInfo, type UncertaintyResults } from '../../engine/index.ts';
 import { EngineClient, type OrderSearchOutcome } from '../lib/engineClient.ts';
 import { checkEdit, type EditResult } from '../lib/editCheck.ts';
+import { problemInWords } from '../lib/problemWords.ts';
 import { pushHistory, redoHistory, startHistory, undoHistory, type HistoryState } from '../lib/history.ts';
 import { documentFor, replaceScenario, type WorkingDocument } from '../lib/scenarioEdits.ts';
 import { clearAutosave, loadAutosave, storeAutosave, type AutosavedCopy } from '../lib/autosave.ts';
@@ -49,6 +50,8 @@ class Workspace {
   computeMs = $state<number | null>(null);
   redrawMs = $state<number | null>(null);
   engineError = $state<string | null>(null);
+  /** Why the engine refused to compute the present scenario (a problem of its numbers, in the app's words), or null. */
+  engineRefusal = $state<string | null>(null);
 
   view = $state<ViewName>('board');
   selectedOption = $state(0);
@@ -100,8 +103,9 @@ class Workspace {
     this.savedDocument = this.history.present;
     this.engine = new EngineClient({
       onResults: (results, _runId, computeMs) => void this.receive(results, computeMs),
-      onFailure: (message) => {
-        this.engineError = message;
+      onFailure: (message, _runId, problem) => {
+        if (problem === undefined) this.engineError = message;
+        else this.refuse(problemInWords(problem, this.running ?? this.scenario));
       },
       onOrders: (info) => {
         if (this.ordersRequest !== null) this.orders = { ...this.ordersRequest, info };
@@ -135,6 +139,7 @@ class Workspace {
 
   private recompute(): void {
     this.stale = true;
+    this.refuse(null);
     this.running = this.history.present.scenario;
     this.engine?.run(this.running);
   }
@@ -146,6 +151,7 @@ class Workspace {
     this.resultsScenario = this.running;
     this.stale = false;
     this.engineError = null;
+    this.refuse(null);
     this.computeMs = computeMs;
     // The deterministic board first, then the draws on the same pool.
     this.startDraws();
@@ -157,6 +163,14 @@ class Workspace {
         this.redrawMs = measure.duration;
       });
     }
+  }
+
+  /** Shows why the present scenario cannot be computed in the problems area (the notice), or takes that message away (null). */
+  private refuse(words: string | null): void {
+    const shown = this.engineRefusal;
+    this.engineRefusal = words;
+    if (words !== null) this.notice = { kind: 'error', text: `This scenario cannot be computed: ${words}` };
+    else if (shown !== null && this.notice?.text.endsWith(shown)) this.notice = null;
   }
 
   /** Starts the draws of the computed scenario when it has an uncertainty section (older draws are cancelled). */
