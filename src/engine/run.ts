@@ -5,7 +5,7 @@
  * one thread or many.
  */
 import { reciprocityCheck } from './contacts.ts';
-import type { Calibration } from './calibration.ts';
+import { calibrateTransmission, type Calibration } from './calibration.ts';
 import { mapPrepared, type MapOptions, type WorkerPool } from './pool/pool.ts';
 import { prepareScenario, type PreparedScenario } from './prepare.ts';
 import { compareWithReference, referenceIndexOf } from './reference.ts';
@@ -60,8 +60,10 @@ export function runScenario(s: Scenario, calibration?: Calibration, options: Map
 
 /** As `runScenario`, with the options spread over a worker pool; the same results, byte for byte. */
 export async function runScenarioOnPool(pool: WorkerPool, s: Scenario, calibration?: Calibration, options: MapOptions = {}): Promise<ScenarioResults> {
-  const runs = await pool.map('optionRuns', s, everyOption(s), options);
-  return assembleResults(s, prepareScenario(s, calibration), runs);
+  const runs = pool.map('optionRuns', s, everyOption(s), options);
+  // R0 and beta for the results, on this thread while the workers run (the calibration alone, not a whole preparation).
+  const c = calibration ?? calibrateTransmission(s);
+  return assembleResults(s, c, await runs);
 }
 
 /**
@@ -75,6 +77,7 @@ export function runScenarioSummary(s: Scenario, calibration?: Calibration, optio
 
 /** As `runScenarioSummary`, over a worker pool. */
 export async function runScenarioSummaryOnPool(pool: WorkerPool, s: Scenario, calibration?: Calibration, options: MapOptions = {}): Promise<ScenarioSummary> {
-  const runs = await pool.map('optionSummaries', s, everyOption(s), options);
-  return assembleResults(s, prepareScenario(s, calibration), runs);
+  const runs = pool.map('optionSummaries', s, everyOption(s), options);
+  const c = calibration ?? calibrateTransmission(s);
+  return assembleResults(s, c, await runs);
 }

@@ -9,6 +9,7 @@
  */
 import { prepareScenario, type PreparedScenario } from '../prepare.ts';
 import type { OptionResults, OptionSummary } from '../results.ts';
+import { scenarioRevision } from '../revision.ts';
 import type { PolicyOption, Scenario } from '../scenario.ts';
 import { simulateOption } from '../simulate.ts';
 import { prepareDraws, runDrawRange, type DrawRange, type DrawRun, type PreparedDraws } from '../uncertainty/drawOutcomes.ts';
@@ -19,6 +20,12 @@ import { orderValuesUnderDraw, prepareOrderDraws, type OrderDrawResult, type Ord
 
 export interface Job<Context, Prepared, Task, Result> {
   prepare(context: Context): Prepared;
+  /**
+   * A key of the context's content, when it has a cheap one: equal keys mean interchangeable
+   * prepared contexts, across jobs too, so a worker keeps the prepared context for later maps
+   * with the same key (pool.ts). Without it, a worker prepares the context anew for every map.
+   */
+  contextKey?(context: Context): string;
   run(prepared: Prepared, task: Task): Result;
   /** Buffers of the result to transfer across the worker boundary (each once). */
   transferables(result: Result): ArrayBuffer[];
@@ -33,6 +40,9 @@ export function optionBuffers(o: OptionSummary | OptionResults): ArrayBuffer[] {
   return [...new Set(arrays.map((a) => a.buffer as ArrayBuffer))];
 }
 
+/** The prepared scenario of a scenario's revision, shared by every job whose context is the scenario alone. */
+const scenarioKey = (s: Scenario): string => `scenario ${scenarioRevision(s)}`;
+
 function optionOf(prepared: PreparedScenario, k: number): PolicyOption {
   const option = prepared.scenario.options[k];
   if (option === undefined) throw new Error(`the scenario has no option ${k}`);
@@ -42,6 +52,7 @@ function optionOf(prepared: PreparedScenario, k: number): PolicyOption {
 /** Option k of a scenario: context = the validated scenario, task = the option's index. */
 const optionRuns: Job<Scenario, PreparedScenario, number, OptionResults> = {
   prepare: prepareScenario,
+  contextKey: scenarioKey,
   run: (prepared, k) => simulateOption(prepared, optionOf(prepared, k)),
   transferables: optionBuffers,
 };
@@ -49,6 +60,7 @@ const optionRuns: Job<Scenario, PreparedScenario, number, OptionResults> = {
 /** As `optionRuns` without the daily series (simulate.ts, `series: 'summary'`). */
 const optionSummaries: Job<Scenario, PreparedScenario, number, OptionSummary> = {
   prepare: prepareScenario,
+  contextKey: scenarioKey,
   run: (prepared, k) => simulateOption(prepared, optionOf(prepared, k), { series: 'summary' }),
   transferables: optionBuffers,
 };
@@ -56,6 +68,7 @@ const optionSummaries: Job<Scenario, PreparedScenario, number, OptionSummary> = 
 /** The app's vaccination order panel: context = the scenario, task = the option's index. */
 const ordersInfoJob: Job<Scenario, PreparedScenario, number, OrdersInfo> = {
   prepare: prepareScenario,
+  contextKey: scenarioKey,
   run: ordersInfo,
   transferables: () => [],
 };

@@ -6,8 +6,13 @@
  * src/renderer/lib/engineClient.ts).
  *
  * Scheduling: tasks wait in one queue shared by every map in progress and go to the first worker
- * with room; each worker holds at most PIPELINE tasks, so it never waits for the next message
- * while the pool is busy. A worker receives a map's context once, before its first task of that map.
+ * with room, in batches (protocol.ts): each worker holds at most PIPELINE batches, so it never
+ * waits for the next message while the pool is busy, and a batch takes a share of what is queued
+ * (at most MAX_BATCH tasks, down to one as the queue empties, so the workers finish together).
+ * A worker receives a map's context once, before its first task of that map; a context with a
+ * content key (jobs.ts `contextKey`) stays on the worker for later maps with the same key (at most
+ * KEPT_CONTEXTS such per worker, the least recently used dropped first), others are dropped when
+ * their map settles.
  * `onProgress(done, total)` follows every result. Aborting `signal` drops the map's queued tasks
  * and rejects it with `PoolCancelled`; tasks already on a worker finish there and are ignored.
  * A failed task rejects its map with the task's message (a refused run as the same RunRefused,
@@ -18,8 +23,14 @@ import { JOBS, type Job } from './jobs.ts';
 import type { PoolEndpoint, PoolReply } from './protocol.ts';
 import { RunRefused } from '../runRefusal.ts';
 
-/** Tasks in flight per worker. */
+/** Batches in flight per worker. */
 const PIPELINE = 2;
+
+/** Most tasks in one batch: enough to make the per-message cost small against a task of a millisecond. */
+const MAX_BATCH = 8;
+
+/** Contexts with a content key kept per worker. */
+const KEPT_CONTEXTS = 4;
 
 /** What the pool needs of an AbortSignal (the engine is compiled without DOM or Node types). */
 export interface CancelSignal {
@@ -45,6 +56,8 @@ export class PoolCancelled extends Error {
 
 interface MapState {
   contextId: number;
+  /** The context's content key, or null: then the workers drop it when the map settles. */
+  contextKey: string | null;
   job: JobName;
   context: unknown;
   results: unknown[];
@@ -66,14 +79,18 @@ interface Queued {
 
 interface Slot {
   endpoint: PoolEndpoint;
+  /** Contexts the worker holds, least recently used first. */
   contexts: Set<number>;
   inFlight: Map<number, Queued>;
+  batches: number;
 }
 
 export class WorkerPool {
   private readonly slots: Slot[] = [];
   private readonly queue: Queued[] = [];
   private nextContextId = 1;
+  /** Context ids by content key. */
+  private readonly keyed = new Map<string, number>();
   private nextTaskId = 1;
   private closed = false;
 
@@ -94,8 +111,15 @@ export class WorkerPool {
     if (this.closed) return Promise.reject(new Error('the worker pool is closed'));
     if (options.signal?.aborted) return Promise.reject(new PoolCancelled());
     return new Promise<ResultOf<N>[]>((resolve, reject) => {
+      const contextKey = (JOBS[job] as unknown as Job<ContextOf<N>, unknown, unknown, unknown>).contextKey?.(context) ?? null;
+      let contextId = contextKey === null ? undefined : this.keyed.get(contextKey);
+      if (contextId === undefined) {
+        contextId = this.nextContextId++;
+        if (contextKey !== null) this.keyed.set(contextKey, contextId);
+      }
       const map: MapState = {
-        contextId: this.nextContextId++,
+        contextId,
+        contextKey,
         job,
         context,
         results: new Array<unknown>(tasks.length),
@@ -128,7 +152,7 @@ export class WorkerPool {
   }
 
   private start(): Slot {
-    const slot: Slot = { endpoint: this.spawn(), contexts: new Set(), inFlight: new Map() };
+    const slot: Slot = { endpoint: this.spawn(), contexts: new Set(), inFlight: new Map(), batches: 0 };
     slot.endpoint.listen(
       (reply) => this.receive(slot, reply),
       (message) => this.crashed(slot, message),
@@ -138,30 +162,66 @@ export class WorkerPool {
 
   private dispatch(): void {
     for (const slot of this.slots) {
-      while (slot.inFlight.size < PIPELINE && this.queue.length > 0) {
-        const next = this.queue.shift() as Queued;
-        if (next.map.settled) continue;
-        const { map } = next;
-        if (!slot.contexts.has(map.contextId)) {
-          slot.endpoint.post({ type: 'context', contextId: map.contextId, job: map.job, context: map.context });
-          slot.contexts.add(map.contextId);
+      while (slot.batches < PIPELINE) {
+        while (this.queue.length > 0 && this.queue[0].map.settled) this.queue.shift();
+        if (this.queue.length === 0) return;
+        const { map } = this.queue[0];
+        const size = Math.max(1, Math.min(MAX_BATCH, Math.floor(this.queue.length / (2 * PIPELINE * this.slots.length))));
+        const tasks: { taskId: number; task: unknown }[] = [];
+        while (tasks.length < size && this.queue.length > 0 && this.queue[0].map === map) {
+          const next = this.queue.shift() as Queued;
+          const taskId = this.nextTaskId++;
+          slot.inFlight.set(taskId, next);
+          tasks.push({ taskId, task: next.task });
         }
-        const taskId = this.nextTaskId++;
-        slot.inFlight.set(taskId, next);
-        slot.endpoint.post({ type: 'task', taskId, contextId: map.contextId, job: map.job, task: next.task });
+        this.provide(slot, map);
+        slot.endpoint.post({ type: 'tasks', contextId: map.contextId, job: map.job, tasks });
+        slot.batches++;
       }
     }
   }
 
+  /** Sends `map`'s context to the worker unless it holds it; keeps at most KEPT_CONTEXTS keyed ones there. */
+  private provide(slot: Slot, map: MapState): void {
+    if (slot.contexts.delete(map.contextId)) {
+      slot.contexts.add(map.contextId); // most recently used last
+      return;
+    }
+    slot.endpoint.post({ type: 'context', contextId: map.contextId, job: map.job, context: map.context });
+    slot.contexts.add(map.contextId);
+    if (slot.contexts.size <= KEPT_CONTEXTS) return;
+    for (const id of slot.contexts) {
+      if (slot.contexts.size <= KEPT_CONTEXTS) break;
+      if (id === map.contextId || this.inUse(slot, id)) continue;
+      this.forget(slot, id);
+    }
+  }
+
+  /** True while a task of context `id` is queued or on `slot`. */
+  private inUse(slot: Slot, id: number): boolean {
+    for (const q of slot.inFlight.values()) if (q.map.contextId === id) return true;
+    return this.queue.some((q) => q.map.contextId === id);
+  }
+
+  private forget(slot: Slot, id: number): void {
+    slot.contexts.delete(id);
+    slot.endpoint.post({ type: 'forget', contextId: id });
+    if (this.slots.every((other) => !other.contexts.has(id))) {
+      for (const [key, kept] of this.keyed) if (kept === id) this.keyed.delete(key);
+    }
+  }
+
   private receive(slot: Slot, reply: PoolReply): void {
-    const entry = slot.inFlight.get(reply.taskId);
-    slot.inFlight.delete(reply.taskId);
-    if (entry !== undefined && !entry.map.settled) {
+    slot.batches--;
+    for (const task of reply.replies) {
+      const entry = slot.inFlight.get(task.taskId);
+      slot.inFlight.delete(task.taskId);
+      if (entry === undefined || entry.map.settled) continue;
       const { map } = entry;
-      if (reply.type === 'failed') {
-        this.settle(map, reply.problem === undefined ? new Error(reply.message) : new RunRefused(reply.problem));
+      if (task.type === 'failed') {
+        this.settle(map, task.problem === undefined ? new Error(task.message) : new RunRefused(task.problem));
       } else {
-        map.results[entry.index] = reply.result;
+        map.results[entry.index] = task.result;
         map.done++;
         map.options.onProgress?.(map.done, map.total);
         if (map.done === map.total) this.settle(map, null);
@@ -185,7 +245,7 @@ export class WorkerPool {
     map.settled = true;
     if (map.onAbort !== null) map.options.signal?.removeEventListener('abort', map.onAbort);
     for (let k = this.queue.length - 1; k >= 0; k--) if (this.queue[k].map === map) this.queue.splice(k, 1);
-    for (const slot of this.slots) slot.contexts.delete(map.contextId);
+    if (map.contextKey === null) for (const slot of this.slots) if (slot.contexts.has(map.contextId)) this.forget(slot, map.contextId);
     if (err === null) map.resolve(map.results);
     else map.reject(err);
   }

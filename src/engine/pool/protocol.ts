@@ -2,20 +2,26 @@
  * Messages between a worker pool and its workers (pool.ts, serve.ts). Plain data only, so they
  * cross any worker boundary (worker_threads in Node, Web Workers in a browser) by structured clone.
  *
- * A `map` sends each worker the job's context once (`context`), then tasks one at a time
- * (`task`); the worker answers each task with `done` or `failed`. Contexts are numbered by the
- * pool; a worker keeps the prepared form of the newest few, so a second map over the same
- * context (or a task list spread over several maps) prepares it once per worker.
+ * A `map` sends each worker the job's context once (`context`), then its tasks in batches of a few
+ * (`tasks`: fewer messages, each worker busy between them); the worker answers each batch with one
+ * `batch` reply holding every task's `done` or `failed`, the results' typed arrays transferred, not
+ * copied. Contexts are numbered by the pool, which also tells a worker when to drop one
+ * (`forget`): the context of a map with a content key (jobs.ts `contextKey`, e.g. the scenario's
+ * revision) stays on the workers for later maps with the same key, so repeated maps over one
+ * scenario neither send nor prepare it again.
  */
 import type { Problem } from '../problems.ts';
 import type { JobName } from './jobs.ts';
 
 export type PoolRequest =
   | { type: 'context'; contextId: number; job: JobName; context: unknown }
-  | { type: 'task'; taskId: number; contextId: number; job: JobName; task: unknown };
+  | { type: 'tasks'; contextId: number; job: JobName; tasks: { taskId: number; task: unknown }[] }
+  | { type: 'forget'; contextId: number };
 
-/** A `failed` task carries its error's message and, for a refused run (runRefusal.ts), its problem, so the refusal arrives as one. */
-export type PoolReply = { type: 'done'; taskId: number; result: unknown } | { type: 'failed'; taskId: number; message: string; problem?: Problem };
+/** The outcome of one task; a `failed` one carries its error's message and, for a refused run (runRefusal.ts), its problem, so the refusal arrives as one. */
+export type TaskReply = { type: 'done'; taskId: number; result: unknown } | { type: 'failed'; taskId: number; message: string; problem?: Problem };
+
+export type PoolReply = { type: 'batch'; replies: TaskReply[] };
 
 /** One worker as the pool sees it: post a message, hear replies, stop it. */
 export interface PoolEndpoint {

@@ -1,47 +1,53 @@
 /**
- * The worker's side of a pool: prepares contexts as they arrive and answers each task with its
- * result (or the error's message). Platform-free: the worker file wires `WorkerSide` to
- * worker_threads' parentPort or to a Web Worker's `self`.
+ * The worker's side of a pool: prepares contexts as they arrive, keeps them until the pool says
+ * to forget them, and answers each batch of tasks with one message of results (or error
+ * messages), transferring the results' typed arrays. Platform-free: the worker file wires
+ * `WorkerSide` to worker_threads' parentPort or to a Web Worker's `self`.
  */
 import { JOBS, type Job, type JobName } from './jobs.ts';
 import { RunRefused } from '../runRefusal.ts';
-import type { PoolReply, PoolRequest, WorkerSide } from './protocol.ts';
-
-/** Prepared contexts kept per worker (the newest ones; a map needs only its own). */
-const KEPT_CONTEXTS = 4;
+import type { PoolRequest, TaskReply, WorkerSide } from './protocol.ts';
 
 type AnyJob = Job<unknown, unknown, unknown, unknown>;
 
 export function serveJobs(side: WorkerSide): void {
-  const prepared = new Map<number, { job: JobName; value: unknown } | { job: JobName; error: unknown }>();
+  const prepared = new Map<number, { value: unknown } | { error: unknown }>();
   side.listen((request: PoolRequest) => {
+    if (request.type === 'forget') {
+      prepared.delete(request.contextId);
+      return;
+    }
+    const job = JOBS[request.job as JobName] as AnyJob;
     if (request.type === 'context') {
-      const job = JOBS[request.job] as AnyJob;
       try {
-        prepared.set(request.contextId, { job: request.job, value: job.prepare(request.context) });
+        prepared.set(request.contextId, { value: job.prepare(request.context) });
       } catch (err) {
-        prepared.set(request.contextId, { job: request.job, error: err });
+        prepared.set(request.contextId, { error: err });
       }
-      while (prepared.size > KEPT_CONTEXTS) prepared.delete(prepared.keys().next().value as number);
       return;
     }
     const entry = prepared.get(request.contextId);
-    if (entry === undefined || 'error' in entry) {
-      side.post(failure(request.taskId, entry === undefined ? new Error('the worker lost the task context') : entry.error), []);
-      return;
+    const replies: TaskReply[] = [];
+    const transfer: ArrayBuffer[] = [];
+    for (const { taskId, task } of request.tasks) {
+      if (entry === undefined || 'error' in entry) {
+        replies.push(failure(taskId, entry === undefined ? new Error('the worker lost the task context') : entry.error));
+        continue;
+      }
+      try {
+        const result = job.run(entry.value, task);
+        replies.push({ type: 'done', taskId, result });
+        transfer.push(...job.transferables(result));
+      } catch (err) {
+        replies.push(failure(taskId, err));
+      }
     }
-    const job = JOBS[request.job] as AnyJob;
-    try {
-      const result = job.run(entry.value, request.task);
-      side.post({ type: 'done', taskId: request.taskId, result }, job.transferables(result));
-    } catch (err) {
-      side.post(failure(request.taskId, err), []);
-    }
+    side.post({ type: 'batch', replies }, transfer);
   });
 }
 
 /** The `failed` reply for an error: its message, and its problem when the run was refused. */
-function failure(taskId: number, err: unknown): PoolReply {
+function failure(taskId: number, err: unknown): TaskReply {
   const message = err instanceof Error ? err.message : String(err);
   return err instanceof RunRefused ? { type: 'failed', taskId, message, problem: err.problem } : { type: 'failed', taskId, message };
 }
