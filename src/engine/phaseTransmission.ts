@@ -6,15 +6,17 @@
  * matrix, R at the day-0 susceptibles and the final size (simulate.ts): numbers that depend on
  * nothing but that matrix and the scenario.
  *
- * Keys are the phase objects of the validated scenario, which nothing changes once prepared;
- * the matrices handed out are shared and read-only.
+ * Kept per preparation, keyed by its band parameters (one object per `prepareScenario` call, which
+ * copies of a prepared scenario with other campaigns share: vaccination/orderEvaluation.ts), and
+ * then by the phase objects of the validated scenario, which nothing changes once prepared. The
+ * matrices handed out are shared and read-only.
  */
 import { finalSizeByBand } from './finalSize.ts';
 import { spectralRadius } from './ngm.ts';
 import type { PreparedScenario } from './prepare.ts';
 import { reproductionNumber } from './reproductionNumber.ts';
 import type { Phase } from './scenario.ts';
-import { transmissionMatrixInto } from './transmission.ts';
+import { type BandParameters, transmissionMatrixInto } from './transmission.ts';
 
 interface PhaseEntry {
   transmission: Float64Array;
@@ -27,14 +29,14 @@ interface MatrixEntry {
   finalSize: Float64Array | null;
 }
 
-const phasesOf = new WeakMap<PreparedScenario, Map<Phase | null, PhaseEntry>>();
-const matricesOf = new WeakMap<PreparedScenario, WeakMap<Float64Array, MatrixEntry>>();
+const phasesOf = new WeakMap<BandParameters, Map<Phase | null, PhaseEntry>>();
+const matricesOf = new WeakMap<BandParameters, WeakMap<Float64Array, MatrixEntry>>();
 
 function entry(p: PreparedScenario, phase: Phase | null): PhaseEntry {
-  let byPhase = phasesOf.get(p);
+  let byPhase = phasesOf.get(p.bands);
   if (byPhase === undefined) {
     byPhase = new Map();
-    phasesOf.set(p, byPhase);
+    phasesOf.set(p.bands, byPhase);
   }
   let e = byPhase.get(phase);
   if (e === undefined) {
@@ -46,10 +48,10 @@ function entry(p: PreparedScenario, phase: Phase | null): PhaseEntry {
 }
 
 function matrixEntry(p: PreparedScenario, m: Float64Array): MatrixEntry {
-  let byMatrix = matricesOf.get(p);
+  let byMatrix = matricesOf.get(p.bands);
   if (byMatrix === undefined) {
     byMatrix = new WeakMap();
-    matricesOf.set(p, byMatrix);
+    matricesOf.set(p.bands, byMatrix);
   }
   let e = byMatrix.get(m);
   if (e === undefined) {

@@ -33,6 +33,9 @@ export interface DailySeries {
   doses: Float64Array;
 }
 
+/** The daily counts of `DailySeries` without R(t): what a `noRt` run keeps (simulate.ts). */
+export type DailySeriesNoRt = Omit<DailySeries, 'rt'>;
+
 /**
  * Every number of one policy option over the horizon except the daily series: what a summary run
  * returns (`simulateOption(p, option, { series: 'summary' })`, simulate.ts). Each field equals,
@@ -90,6 +93,11 @@ export interface OptionSummary {
 /** Results of one policy option over the horizon: the summary and the daily series. */
 export interface OptionResults extends OptionSummary {
   series: DailySeries;
+}
+
+/** A `noRt` run (simulate.ts): the summary and the daily counts, without the daily R(t). */
+export interface OptionResultsNoRt extends OptionSummary {
+  series: DailySeriesNoRt;
 }
 
 /**

@@ -19,7 +19,7 @@ import { hasTriggers, measuresConstant, phaseAt } from './phases.ts';
 import type { PreparedScenario } from './prepare.ts';
 import { reproductionByDay } from './reproduction.ts';
 import { optionPath, rootOrRefusal } from './runRefusal.ts';
-import type { DailySeries, OptionResults, OptionSummary, VaccinationOutcomes } from './results.ts';
+import type { DailySeries, DailySeriesNoRt, OptionResults, OptionResultsNoRt, OptionSummary, VaccinationOutcomes } from './results.ts';
 import type { PolicyOption } from './scenario.ts';
 import { type Segment, segmentsOf } from './segments.ts';
 import { TriggeredMeasures } from './triggeredMeasures.ts';
@@ -94,16 +94,19 @@ function vaccinationOutcomes(campaign: PreparedCampaign, plan: readonly DosePiec
 /**
  * How much of an option run to keep: `full`, every outcome and the daily series (the views'
  * curves, the daily CSV); `summary`, every outcome without the daily series, for the many-run
- * loops that read only outcomes (uncertainty draws, order searches, the options table). A summary
- * run skips the daily R(t) (the R at the start, R by phase and every other outcome stay), the
- * daily deaths and doses and keeps no per-day arrays; its outcomes equal the full run's bit for bit
- * (test/engine/summaryRuns.test.ts).
+ * loops that read only outcomes (uncertainty draws, order searches, the options table); `noRt`,
+ * every outcome and the daily counts without the daily R(t) (its eigenvalue a day is most of what
+ * a full run costs beyond a summary), for readers of daily amounts such as the order search's
+ * bounds (vaccination/orderEvaluation.ts). A summary run skips the daily R(t) (the R at the start,
+ * R by phase and every other outcome stay), the daily deaths and doses and keeps no per-day
+ * arrays; the outcomes of all three equal the full run's bit for bit, and so do the series a
+ * `noRt` run keeps (test/engine/summaryRuns.test.ts).
  */
-export type SeriesDetail = 'full' | 'summary';
+export type SeriesDetail = 'full' | 'summary' | 'noRt';
 
 /**
  * `series`: what to keep (SeriesDetail; default `full`). `accuracy` overrides the integrator's
- * error tolerances (integrator.ts; the defaults are those every view uses), for checks against a
+ * error tolerances (dopri5.ts; the defaults are those every view uses), for checks against a
  * tighter solution.
  */
 export interface OptionRunSettings {
@@ -111,12 +114,13 @@ export interface OptionRunSettings {
   accuracy?: Accuracy;
 }
 
-/** Runs one option of a prepared scenario: every outcome and, unless `series: 'summary'`, the daily series. */
+/** Runs one option of a prepared scenario: every outcome and, unless `series: 'summary'`, the daily series (without R(t) for `noRt`). */
 export function simulateOption(p: PreparedScenario, option: PolicyOption, settings?: OptionRunSettings & { series?: 'full' }): OptionResults;
 export function simulateOption(p: PreparedScenario, option: PolicyOption, settings: OptionRunSettings & { series: 'summary' }): OptionSummary;
-export function simulateOption(p: PreparedScenario, option: PolicyOption, settings?: OptionRunSettings): OptionSummary | OptionResults;
-export function simulateOption(p: PreparedScenario, option: PolicyOption, settings: OptionRunSettings = {}): OptionSummary | OptionResults {
-  const full = settings.series !== 'summary';
+export function simulateOption(p: PreparedScenario, option: PolicyOption, settings: OptionRunSettings & { series: 'noRt' }): OptionResultsNoRt;
+export function simulateOption(p: PreparedScenario, option: PolicyOption, settings?: OptionRunSettings): OptionSummary | OptionResultsNoRt | OptionResults;
+export function simulateOption(p: PreparedScenario, option: PolicyOption, settings: OptionRunSettings = {}): OptionSummary | OptionResultsNoRt | OptionResults {
+  const detail = settings.series ?? 'full';
   const s = p.scenario;
   const n = p.bands.bands;
   const H = s.horizonDays;
@@ -189,19 +193,20 @@ export function simulateOption(p: PreparedScenario, option: PolicyOption, settin
     measureBurden: burden,
     comparison: null,
   };
-  if (!full) return summary;
+  if (detail === 'summary') return summary;
   // Daily infections, by band: the series, and the death series through the infection-to-death delay.
   const incidence = dailyIncidence(p, daily.cumulative);
   const protectedIncidence = campaign === null ? null : dailyDifferences(daily.protectedCumulative, n, H);
-  const series: DailySeries = {
+  const withoutRt: DailySeriesNoRt = {
     days: H,
     bands: n,
     susceptible: daily.susceptible,
     prevalence: daily.prevalence,
     incidence,
     deaths: convolve(weightedBandSum(weightedIncidence(incidence, protectedIncidence, deathFactor), n, p.infectionFatalityRatio), p.deathDelayWeights),
-    rt: reproductionByDay(p, option, segments, daily.effectiveSusceptible),
     doses: dailyDoses(plan, n, H),
   };
+  if (detail === 'noRt') return { ...summary, series: withoutRt };
+  const series: DailySeries = { ...withoutRt, rt: reproductionByDay(p, option, segments, daily.effectiveSusceptible) };
   return { ...summary, series };
 }

@@ -4,7 +4,9 @@ import { finalSizeByBand } from '../../src/engine/finalSize.ts';
 import { prepareScenario } from '../../src/engine/prepare.ts';
 import type { Scenario, ScenarioInput } from '../../src/engine/scenario.ts';
 import { segmentsOf } from '../../src/engine/segments.ts';
-import { evaluateOrder, type OrderEvaluation, type OrderSearchJob } from '../../src/engine/vaccination/orderEvaluation.ts';
+import { evaluateOrder, ORDER_OUTCOMES, outcomeBound, priorityOf, type OrderEvaluation, type OrderSearchJob } from '../../src/engine/vaccination/orderEvaluation.ts';
+import { prepareCampaign } from '../../src/engine/vaccination/prepareCampaign.ts';
+import { simulateOption } from '../../src/engine/simulate.ts';
 import { prepareOrderSearch } from '../../src/engine/vaccination/orderJob.ts';
 import { inThreadEvaluator, searchOrders } from '../../src/engine/vaccination/orderSearch.ts';
 import { demoScenario } from '../helpers/demo.ts';
@@ -207,5 +209,24 @@ describe('search requests', () => {
     const job = jobOf(demo, 'deaths', [[0, 1, 2], [3, 4, 5, 6, 7, 8, 9], [10, 11, 12, 13, 14, 15]]);
     expect(job.groups).toEqual([[3, 4, 5, 6, 7, 8, 9], [10, 11, 12, 13, 14, 15]]);
     expect(job.idleGroups).toEqual([[0, 1, 2]]);
+  });
+});
+
+describe('order evaluation runs', () => {
+  it('give the bounds and outcomes a full run gives, for every outcome (summary or no-R(t) runs instead of full ones)', () => {
+    const s = demoScenario();
+    const option = s.options.find((o) => o.vaccinationCampaign !== undefined)!.name;
+    for (const outcome of ORDER_OUTCOMES) {
+      const job = jobOf(s, outcome, undefined, option);
+      const permutation = job.groups.map((_, k) => job.groups.length - 1 - k);
+      const evaluation = evaluateOrder(job, permutation);
+      const p = job.prepared;
+      const campaign = prepareCampaign({ ...job.campaign.campaign, priority: priorityOf(job, permutation) }, p.bands.population, p.scenario.horizonDays);
+      const full = simulateOption({ ...p, campaigns: new Map([[campaign.campaign.name, campaign]]) }, job.option);
+      expect(evaluation.value, outcome).toBe(outcome === 'peakIcuOccupancy' ? full.healthcare!.icu.peakOccupancy : outcome === 'admissions' ? full.healthcare!.admissions : full[outcome]);
+      const bounds = evaluation.prefixDays.map((t, k) => (k === permutation.length ? evaluation.value : Math.min(evaluation.value, outcomeBound(job, full, Math.floor(t)))));
+      expect(evaluation.bounds, outcome).toStrictEqual(bounds);
+      expect(evaluation.bounds.slice(0, -1).some((b) => b > 0), outcome).toBe(true);
+    }
   });
 });

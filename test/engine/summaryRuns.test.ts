@@ -60,6 +60,19 @@ describe('summary runs', () => {
     expectSameOutcomes(withoutHospitals(demoScenario()));
   });
 
+  it('a run without R(t) gives the full run\'s outcomes and series, R(t) aside, bit for bit', () => {
+    const s = withTriggeredOption(demoScenario());
+    const p = prepareScenario(s);
+    for (const option of s.options) {
+      const { series: fullSeries, ...fullOutcomes } = simulateOption(p, option);
+      const { series, ...outcomes } = simulateOption(p, option, { series: 'noRt' });
+      expect(outcomes, option.name).toStrictEqual(fullOutcomes);
+      const { rt: _, ...withoutRt } = fullSeries;
+      expect(series, option.name).toStrictEqual(withoutRt);
+      expect('rt' in series).toBe(false);
+    }
+  });
+
   it('keep no daily series; the full run keeps them', () => {
     const s = demoScenario();
     const p = prepareScenario(s);

@@ -17,10 +17,15 @@
  *   deathBoundByBand); or the deaths of days < D_k, whichever is larger;
  * - years of life lost: the per-band death bound times remaining life expectancy;
  * - admissions: admissions of days < D_k; peak ICU occupancy: the largest occupancy of days < D_k.
+ *
+ * Cost: the hospital bounds read only the hospital series, which a summary run keeps, so an order
+ * searched for admissions or peak ICU occupancy costs a summary run; the others read daily
+ * infections, doses, susceptibles and deaths, so they take a run without the daily R(t)
+ * (simulate.ts `noRt`), never a full one.
  */
 import { simulateOption } from '../simulate.ts';
 import type { PreparedScenario } from '../prepare.ts';
-import type { OptionResults } from '../results.ts';
+import type { OptionResultsNoRt, OptionSummary } from '../results.ts';
 import type { PolicyOption } from '../scenario.ts';
 import { type PreparedCampaign, prepareCampaign } from './prepareCampaign.ts';
 
@@ -95,7 +100,7 @@ function sumDays(series: Float64Array, days: number): number {
  * Xp_i(d) <= X_i(d) V_i(d+1) / (S_i(d+1) + V_i(d+1)) (V grows and S shrinks during the day), and
  * deaths_i >= IFR_i sum_d (X_i(d) - (1 - f_D) Xp_i(d)).
  */
-function deathBoundByBand(job: OrderSearchJob, r: OptionResults, days: number): number[] {
+function deathBoundByBand(job: OrderSearchJob, r: OptionResultsNoRt, days: number): number[] {
   const n = r.series.bands;
   const ifr = job.prepared.infectionFatalityRatio;
   const f = job.campaign.deathRiskFactor;
@@ -114,17 +119,30 @@ function deathBoundByBand(job: OrderSearchJob, r: OptionResults, days: number): 
   return out;
 }
 
+/** True when the bounds of `outcome` read daily series beyond the hospital ones. */
+function boundsNeedDailySeries(outcome: OrderOutcome): boolean {
+  return outcome === 'infections' || outcome === 'deaths' || outcome === 'yearsOfLifeLost';
+}
+
+/** The run's daily series, which the bounds of infections, deaths and years of life lost read. */
+function dailySeriesOf(r: OptionSummary | OptionResultsNoRt): OptionResultsNoRt {
+  if (!('series' in r)) throw new Error('order bounds: this outcome needs a run with daily series');
+  return r;
+}
+
 /** Lower bound on the searched outcome from the days before `days`. */
-export function outcomeBound(job: OrderSearchJob, r: OptionResults, days: number): number {
+export function outcomeBound(job: OrderSearchJob, r: OptionSummary | OptionResultsNoRt, days: number): number {
   const sum = (xs: readonly number[]) => xs.reduce((a, b) => a + b, 0);
   switch (job.outcome) {
-    case 'infections':
-      return sumDays(r.series.incidence, days * r.series.bands);
+    case 'infections': {
+      const s = dailySeriesOf(r).series;
+      return sumDays(s.incidence, days * s.bands);
+    }
     case 'deaths':
-      return Math.max(sum(deathBoundByBand(job, r, days)), sumDays(r.series.deaths, days));
+      return Math.max(sum(deathBoundByBand(job, dailySeriesOf(r), days)), sumDays(dailySeriesOf(r).series.deaths, days));
     case 'yearsOfLifeLost': {
       const e = job.prepared.remainingLifeExpectancy;
-      return sum(deathBoundByBand(job, r, days).map((x, i) => x * e[i]));
+      return sum(deathBoundByBand(job, dailySeriesOf(r), days).map((x, i) => x * e[i]));
     }
     case 'admissions':
       return r.healthcare === null ? 0 : sumDays(r.healthcare.series.admissions, days);
@@ -144,7 +162,8 @@ export function outcomeValue(outcomes: OrderOutcomes, outcome: OrderOutcome): nu
 export function evaluateOrder(job: OrderSearchJob, permutation: readonly number[]): OrderEvaluation {
   const p = job.prepared;
   const campaign = prepareCampaign({ ...job.campaign.campaign, priority: priorityOf(job, permutation) }, p.bands.population, p.scenario.horizonDays);
-  const r = simulateOption({ ...p, campaigns: new Map([[campaign.campaign.name, campaign]]) }, job.option);
+  const withOrder = { ...p, campaigns: new Map([[campaign.campaign.name, campaign]]) };
+  const r = boundsNeedDailySeries(job.outcome) ? simulateOption(withOrder, job.option, { series: 'noRt' }) : simulateOption(withOrder, job.option, { series: 'summary' });
   const outcomes: OrderOutcomes = {
     deaths: r.deaths,
     infections: r.infections,
