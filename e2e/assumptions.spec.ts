@@ -2,7 +2,7 @@
  * The Assumptions view edited in place (web mode, Debian's chromium): a relative susceptibility
  * changes R at start to the engine's value for the edited scenario; ICU beds change the board's
  * ICU capacity; a negative bed number is refused with a message naming the field and changes
- * nothing; undo restores. A full-page screenshot goes to e2e-artifacts/view-assumptions-full.png.
+ * nothing; undo restores; a period field takes the file's own bounds. A full-page screenshot goes to e2e-artifacts/view-assumptions-full.png.
  */
 import { expect, test, type Page } from '@playwright/test';
 import { readFileSync } from 'node:fs';
@@ -87,6 +87,18 @@ test('relative susceptibility, ICU beds, a refused entry and undo', async ({ pag
   await open(page, 'Assumptions');
   await expect(page.getByTestId(`susceptibility-${band}`)).toHaveValue('1');
   await expect(page.getByTestId('icu-beds')).toHaveValue(String(icuBeds));
+
+  // The field takes the file's own bounds (limits.ts) and says a broken one in the file reader's words:
+  // 0.05 days is refused, 100 days (which the file accepts) is taken.
+  await type(page, 'infectious-period', '0.05');
+  await expect(page.getByRole('alert').filter({ hasText: 'Infectious period' })).toHaveText('Infectious period must be at least 0.1 days, got 0.05 days.');
+  await expect(page.getByTestId('undo')).toBeDisabled();
+  await page.getByTestId('infectious-period').press('Escape');
+  await type(page, 'infectious-period', '100');
+  await expect(page.getByTestId('undo')).toBeEnabled();
+  await expect(page.getByRole('alert').filter({ hasText: 'Infectious period' })).toHaveCount(0);
+  await page.getByTestId('undo').click();
+  await expect(page.getByTestId('infectious-period')).toHaveValue(String(scenario.disease.infectiousPeriodDays));
 
   expect(errors).toEqual([]);
 });

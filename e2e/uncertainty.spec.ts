@@ -48,7 +48,7 @@ test('uncertain inputs: add, edit, refuse, change kind, source, remove, undo', a
   await expect(row.getByRole('alert')).not.toContainText('uncertainty.parameters');
   await page.getByTestId('uncertain-0-high').press('Escape');
   await type(page, 'uncertainty-draws', '1');
-  await expect(panel.getByRole('alert')).toContainText('Draws must be >= 2');
+  await expect(panel.getByRole('alert')).toContainText('Draws must be at least 2, got 1.');
   await page.getByTestId('uncertainty-draws').press('Escape');
 
   // Undo goes back one accepted change at a time: high 3.2 -> 3, then no section.

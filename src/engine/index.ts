@@ -1,7 +1,7 @@
 /** The Mixwise engine: pure TypeScript, no platform imports. */
 export * from './scenario.ts';
 export * from './results.ts';
-export { validateScenario, parseScenarioText, ScenarioError, type ValidationResult } from './validation.ts';
+export { validateScenario, parseScenarioText, fieldRuleBroken, ScenarioError, type ValidationResult } from './validation.ts';
 export { formatProblem, formatPath, type Problem } from './problems.ts';
 export { calibrateTransmission, calibrationProblem, LARGEST_TRANSMISSION_RATE_PER_DAY, type Calibration } from './calibration.ts';
 export { reproductionNumber, reproductionAtUnitTransmission } from './reproductionNumber.ts';

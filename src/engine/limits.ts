@@ -47,6 +47,12 @@ export const MAX_CONTACT_MULTIPLIER = 100;
 export const MIN_PERIOD_DAYS = 0.1;
 export const MAX_PERIOD_DAYS = 365;
 
+/** Erlang stages of the latent or the infectious period: 20 already makes the period almost fixed (a coefficient of variation of 22%). */
+export const MAX_ERLANG_STAGES = 20;
+
+/** Days a scenario runs: ten years. */
+export const MAX_HORIZON_DAYS = 3650;
+
 /** Basic reproduction number. */
 export const MAX_R0 = 100;
 

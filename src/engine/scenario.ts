@@ -15,6 +15,8 @@ import {
   MAX_DELAY_MEAN_DAYS,
   MAX_DELAY_SHAPE,
   MAX_DOUBLING_TIME_DAYS,
+  MAX_ERLANG_STAGES,
+  MAX_HORIZON_DAYS,
   MAX_PERIOD_DAYS,
   MAX_TRIGGER_LEVEL_PERSONS,
   EARLIEST_START_DATE,
@@ -45,6 +47,12 @@ const wholeDay = z
   .int({ message: 'must be a whole number of days' })
   .min(0, { message: 'must be >= 0' })
   .max(MAX_DAY_NUMBER, { message: `must be at most ${MAX_DAY_NUMBER} (a day number)` });
+
+const erlangStages = z
+  .number({ message: 'must be a number' })
+  .int({ message: 'must be a whole number' })
+  .min(1, { message: 'must be at least 1' })
+  .max(MAX_ERLANG_STAGES, { message: `must be at most ${MAX_ERLANG_STAGES}` });
 
 /** One age band: a label for display and the lower age bound in years. */
 export const ageBandSchema = z.object({
@@ -78,8 +86,8 @@ export const diseaseSchema = z.object({
   /** Mean infectious period D, days. */
   infectiousPeriodDays: between(MIN_PERIOD_DAYS, MAX_PERIOD_DAYS, 'days'),
   /** Erlang stage counts: change timing and growth, not R0. */
-  latentStages: z.number().int().min(1).max(20).default(1),
-  infectiousStages: z.number().int().min(1).max(20).default(1),
+  latentStages: erlangStages.default(1),
+  infectiousStages: erlangStages.default(1),
   /** u_i, relative susceptibility by band (1 = reference). */
   relativeSusceptibility: z.array(between(0, MAX_RELATIVE_FACTOR, '')).optional(),
   /** h_j, relative infectiousness by band (1 = reference). */
@@ -221,7 +229,7 @@ export const scenarioSchema = z.object({
     .refine((text) => isoDateToEpochDay(text) === null || !(text < EARLIEST_START_DATE || text > LATEST_START_DATE), { message: `must be from ${EARLIEST_START_DATE} to ${LATEST_START_DATE}` })
     .meta({ format: 'date', description: `Calendar date of day 0, ISO 8601 YYYY-MM-DD, from ${EARLIEST_START_DATE} to ${LATEST_START_DATE}.` })
     .optional(),
-  horizonDays: z.number().int().min(1, { message: 'must be >= 1' }).max(3650, { message: 'must be <= 3650' }),
+  horizonDays: z.number({ message: 'must be a number' }).int({ message: 'must be a whole number of days' }).min(1, { message: 'must be >= 1' }).max(MAX_HORIZON_DAYS, { message: `must be <= ${MAX_HORIZON_DAYS}` }),
   /** Name of the option others are compared with; the first option if absent. */
   referenceOption: z.string().optional(),
   options: z.array(policyOptionSchema).min(1, { message: 'must list at least one policy option' }),

@@ -66,6 +66,17 @@ function ruleOf(issue: z.core.$ZodIssue, value: unknown): string {
   return msg.charAt(0).toLowerCase() + msg.slice(1);
 }
 
+/**
+ * The rule `value` breaks under `schema` (one field's part of the scenario schema), in the words
+ * `validateScenario` reports it at that field, or null when it passes: what the app's number
+ * fields check before an edit (src/renderer/lib/fieldRules.ts), so they refuse exactly what the
+ * file reader refuses, saying it the same way.
+ */
+export function fieldRuleBroken(schema: z.ZodType, value: unknown): string | null {
+  const parsed = schema.safeParse(value);
+  return parsed.success ? null : ruleOf(parsed.error.issues[0], value);
+}
+
 /** zod's issues as problems; unknown fields are left to strictInput.ts, which names each one. */
 function structuralProblems(input: unknown, issues: readonly z.core.$ZodIssue[]): Problem[] {
   return issues.filter((issue) => issue.code !== 'unrecognized_keys').map((issue) => {
