@@ -8,7 +8,9 @@
  *    scaled to the population), on the demo's options without vaccination; the ratio per option.
  *    Skipped, with a note, where python3 with scipy is missing (Debian: apt-get install python3-scipy).
  * 3. A batch of 1000 options (the demo's options with varied multipliers): throughput on this
- *    thread, on a pool of 1 worker and on one worker per core; and the peak resident memory of a
+ *    thread, on a pool of 1 worker and on one worker per core (wall time, and CPU time over all
+ *    threads and on this thread: the pool's own cost, which other processes on the machine do not
+ *    change); and the peak resident memory of a
  *    separate `mixwise run` of the same 1000 options (this process keeps several batches, so its own
  *    peak would overstate it), read by bench/peakMemory.mjs in the child.
  * 4. Uncertainty draws (bench/drawsBench.ts): 1,000 draws of the demo's options on one worker per
@@ -143,21 +145,46 @@ function batchScenario(count: number): Scenario {
 
 const batch = batchScenario(1000);
 console.log(`\n3. batch: ${batch.options.length} options, summary runs (as mixwise run)`);
+/** CPU milliseconds of the whole process, all threads. */
+function processCpuMs(): number {
+  const c = process.cpuUsage();
+  return (c.user + c.system) / 1000;
+}
+/** CPU milliseconds of this (the main) thread alone, from Linux's /proc (null elsewhere); 10 ms resolution. */
+function mainThreadCpuMs(): number | null {
+  try {
+    const fields = readFileSync(`/proc/self/task/${process.pid}/stat`, 'utf8').split(') ')[1].split(' ');
+    return (Number(fields[11]) + Number(fields[12])) * 10;
+  } catch {
+    return null;
+  }
+}
 const t0 = performance.now();
+const cpu0 = processCpuMs();
 runScenarioSummary(batch);
 const inline = performance.now() - t0;
-console.log(`   this thread:        ${inline.toFixed(0)} ms = ${(inline / 1000).toFixed(2)} ms per option`);
+const inlineCpu = (processCpuMs() - cpu0) / 1000;
+console.log(`   this thread:        ${inline.toFixed(0)} ms = ${(inline / 1000).toFixed(2)} ms per option (CPU ${inlineCpu.toFixed(2)} ms per option)`);
 for (const size of [1, availableParallelism()]) {
   const pool = nodeWorkerPool(size);
   // Start the workers and warm their JIT as this thread's is (it ran the demo many times above),
   // on another scenario, so the timed map still sends and prepares its own.
   await runScenarioSummaryOnPool(pool, batchScenario(size * 100));
   const t1 = performance.now();
+  const cpu1 = processCpuMs();
+  const main1 = mainThreadCpuMs();
   await runScenarioSummaryOnPool(pool, batch);
   const ms = performance.now() - t1;
+  const allCpu = (processCpuMs() - cpu1) / 1000;
+  const main2 = mainThreadCpuMs();
+  const mainCpu = main1 === null || main2 === null ? null : (main2 - main1) / 1000;
   pool.close();
   console.log(
     `   pool of ${String(size).padEnd(2)} worker${size === 1 ? ' ' : 's'}:  ${ms.toFixed(0)} ms = ${(ms / 1000).toFixed(2)} ms per option, ${((1000 * 1000) / ms).toFixed(0)} options/s, ${(inline / ms).toFixed(2)}x this thread`,
+  );
+  // CPU time does not depend on what else the machine runs: what the pool costs beyond the runs themselves.
+  console.log(
+    `      CPU per option: ${allCpu.toFixed(2)} ms all threads${mainCpu === null ? '' : ` (${mainCpu.toFixed(3)} ms on this thread)`}, ${(allCpu / inlineCpu).toFixed(2)}x this thread's run alone`,
   );
 }
 

@@ -4,7 +4,7 @@
  * against an independent quadrature.
  */
 import { describe, expect, it } from 'vitest';
-import { convolve } from '../../src/engine/distributions.ts';
+import { convolve, dailyDelayWeights } from '../../src/engine/distributions.ts';
 import { delayKernel, bedDayKernel, expectedTimeInBedBy } from '../../src/engine/healthcare/kernels.ts';
 
 const DAYS = 2000;
@@ -104,5 +104,22 @@ describe('admission kernel', () => {
     const w = delayKernel({ meanDays: 0, shape: 1 }, 30);
     expect(w[0]).toBe(1);
     expect(w.slice(1).every((x) => x === 0)).toBe(true);
+  });
+});
+
+describe('kept kernels', () => {
+  it('are computed once per delay and length, and equal a fresh computation', () => {
+    const delay = { meanDays: 9.25, shape: 3.5 };
+    const w = delayKernel(delay, 300);
+    expect(delayKernel({ ...delay }, 300)).toBe(w);
+    const fresh = dailyDelayWeights(delay.meanDays, delay.shape, 300);
+    expect(Array.from(w)).toStrictEqual(Array.from(fresh.subarray(0, w.length)));
+    expect(delayKernel(delay, 299)).not.toBe(w);
+    expect(delayKernel({ ...delay, shape: 3.5000001 }, 300)).not.toBe(w);
+    // A stay of the same mean and shape is another kernel.
+    const b = bedDayKernel(delay, 300);
+    expect(b).not.toBe(w);
+    expect(bedDayKernel(delay, 300)).toBe(b);
+    expect(b[0]).toBeCloseTo(expectedTimeInBedBy(0.5, delay), 15);
   });
 });

@@ -20,6 +20,10 @@
  * Tails: a kernel is cut where the mass still to come is below TAIL_TOLERANCE of its total (and at
  * the horizon), which keeps the convolutions short; the cut changes results by less than that
  * fraction.
+ *
+ * Kernels are kept by delay and length (the newest KEPT_KERNELS): the uncertainty draws prepare a
+ * scenario per draw, most with the same delays, and each kernel costs a few hundred incomplete
+ * gamma functions. The arrays handed out are shared: read them, never write to them.
  */
 import { dailyDelayWeights, gammaCdf } from '../distributions.ts';
 import type { Delay } from '../scenario.ts';
@@ -37,10 +41,27 @@ function trimmedLength(w: Float64Array, tolerance: number): number {
   return length;
 }
 
-/** Daily weights of a delay (infection to admission, infection to death) over at most `days` days, tail trimmed. */
+/** Kernels kept, by kind, delay and length. */
+const KEPT_KERNELS = 64;
+const kept = new Map<string, Float64Array>();
+
+/** The kernel under `key`, made by `make` when it is not kept. */
+function keptKernel(key: string, make: () => Float64Array): Float64Array {
+  let kernel = kept.get(key);
+  if (kernel === undefined) {
+    kernel = make();
+    kept.set(key, kernel);
+    if (kept.size > KEPT_KERNELS) kept.delete(kept.keys().next().value as string);
+  }
+  return kernel;
+}
+
+/** Daily weights of a delay (infection to admission, infection to death) over at most `days` days, tail trimmed; shared. */
 export function delayKernel(delay: Delay, days: number): Float64Array {
-  const w = dailyDelayWeights(delay.meanDays, delay.shape, days);
-  return w.slice(0, trimmedLength(w, TAIL_TOLERANCE));
+  return keptKernel(`delay ${delay.meanDays} ${delay.shape} ${days}`, () => {
+    const w = dailyDelayWeights(delay.meanDays, delay.shape, days);
+    return w.slice(0, trimmedLength(w, TAIL_TOLERANCE));
+  });
 }
 
 /** Lambda(x) = int_0^x P(T > u) du for a gamma stay T with the given mean (days) and shape. */
@@ -52,8 +73,12 @@ export function expectedTimeInBedBy(x: number, stay: Delay): number {
   return x * (1 - gammaCdf(x, mean, shape)) + mean * gammaCdf(x, (mean * (shape + 1)) / shape, shape + 1);
 }
 
-/** Bed-day kernel b_k (beds in use on day k per admission on day 0) over at most `days` days, tail trimmed. */
+/** Bed-day kernel b_k (beds in use on day k per admission on day 0) over at most `days` days, tail trimmed; shared. */
 export function bedDayKernel(stay: Delay, days: number): Float64Array {
+  return keptKernel(`stay ${stay.meanDays} ${stay.shape} ${days}`, () => bedDays(stay, days));
+}
+
+function bedDays(stay: Delay, days: number): Float64Array {
   const b = new Float64Array(days);
   let previous = 0;
   for (let k = 0; k < days; k++) {
