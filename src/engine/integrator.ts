@@ -11,8 +11,7 @@
  * worst error of the outcomes; test/engine/accuracy.test.ts). The order conditions (order 5 for the step, order 4 for the
  * continuous extension at every theta) are checked in test/engine/integrator.test.ts.
  *
- * Error norm: RMS of e_i / (atol + rtol * max(|y_i|, |y_new_i|, phi * peak_i)) with
- * e = h sum_j E_j k_j and peak_i the largest |y_i| of the run so far (Tolerances.peakFloor);
+ * Error norm: RMS of e_i / (atol + rtol * max(|y_i|, |y_new_i|)) with e = h sum_j E_j k_j;
  * step factor 0.9 * err^(-1/5), limited to [0.2, 5] (Hairer, Norsett & Wanner 1993, Solving
  * ODEs I, 2nd ed., section II.4). Works on Float64Arrays; no allocation per step. Units: the
  * caller's (days and persons in the engine).
@@ -33,28 +32,19 @@ export interface Tolerances {
    * no sum in double precision. Default 0 (no flush).
    */
   flushBelow?: number;
-  /**
-   * phi: a component's error weight never drops below this fraction of the largest size it has
-   * had in the run so far (IntegratorWorkspace.peaks). Without it, a compartment emptying after
-   * the epidemic (E and I fall by orders of magnitude) keeps asking for rtol relative to its
-   * ever smaller size, in steps no outcome notices. Weights relative to the largest value seen so
-   * far are from memory of RKSUITE (Brankin, Gladwell & Shampine 1992); the floor 0.01 is ours,
-   * tuned on test/engine/accuracy.test.ts (0.05 loses accuracy in the fast epidemic). Default 0.
-   */
-  peakFloor?: number;
 }
 
-/** A safety net: no realistic scenario needs more steps in one segment (the demo takes about 100). */
+/** A safety net: no realistic scenario needs more steps in one segment (the demo takes about 110). */
 const MAX_STEPS = 1_000_000;
 
 /**
- * The tolerances of every option run. rtol 5e-6 with the floor at 1% of each component's peak
- * keeps attack rates, deaths, the peak of the infected and peak bed occupancy within 1e-6
- * (relative) of an rtol 1e-10 solution on the demo and on fast- and slow-growth variants,
- * vaccination included, with a margin of about 3 (worst 3.6e-7; test/engine/accuracy.test.ts).
- * At rtol 8e-6 the demo's vaccination option misses by 1.6e-6. atol is in persons.
+ * The tolerances of every option run. rtol 5e-6 keeps attack rates, deaths, the peak of the
+ * infected and peak bed occupancy within 1e-6 (relative) of an rtol 1e-10 solution on the demo and
+ * on fast- and slow-growth variants, vaccination included, with a margin of about 3 (worst
+ * 3.6e-7; test/engine/accuracy.test.ts). At 8e-6 the demo's vaccination option misses by 1.6e-6.
+ * atol is in persons.
  */
-export const DEFAULT_TOLERANCES: Tolerances = { relative: 5e-6, absolute: 1e-6, maxStep: 10, flushBelow: 1e-100, peakFloor: 0.01 };
+export const DEFAULT_TOLERANCES: Tolerances = { relative: 5e-6, absolute: 1e-6, maxStep: 10, flushBelow: 1e-100 };
 
 /**
  * Largest x with |R(-x')| <= 1 for every x' in [0, x], R the stability polynomial of the pair's
@@ -133,8 +123,6 @@ export class IntegratorWorkspace {
   readonly k5: Float64Array; readonly k6: Float64Array; readonly k7: Float64Array;
   readonly stage: Float64Array; readonly next: Float64Array; readonly state: Float64Array;
   readonly weights = new Float64Array(7);
-  /** The largest |y_i| of the accepted states since this workspace was made (one option run), for Tolerances.peakFloor. */
-  readonly peaks: Float64Array;
   /** Accepted and rejected step counts of the last call. */
   steps = 0;
   rejected = 0;
@@ -143,7 +131,7 @@ export class IntegratorWorkspace {
   constructor(readonly size: number) {
     const f = () => new Float64Array(size);
     this.k1 = f(); this.k2 = f(); this.k3 = f(); this.k4 = f(); this.k5 = f(); this.k6 = f(); this.k7 = f();
-    this.stage = f(); this.next = f(); this.state = f(); this.peaks = f();
+    this.stage = f(); this.next = f(); this.state = f();
   }
 }
 
@@ -179,7 +167,7 @@ export function integrate(
 ): number {
   const n = y.length;
   const m = Math.min(n, active);
-  const { k2, k3, k4, k5, k6, stage, weights: w, peaks } = ws;
+  const { k2, k3, k4, k5, k6, stage, weights: w } = ws;
   // The current state, its derivative, the candidate state and its derivative: swapped on
   // acceptance (first same as last: k7 of a step is k1 of the next) instead of copied.
   let yNow = ws.state;
@@ -189,8 +177,6 @@ export function integrate(
   yNow.set(y);
   const { absolute, relative, maxStep } = tol;
   const flushBelow = tol.flushBelow ?? 0;
-  const phi = tol.peakFloor ?? 0;
-  for (let i = 0; i < n; i++) peaks[i] = Math.max(peaks[i], Math.abs(yNow[i]));
   const dense = denseComponents ?? Int32Array.from({ length: n }, (_, i) => i);
   ws.steps = 0;
   ws.rejected = 0;
@@ -221,7 +207,7 @@ export function integrate(
     for (let i = 0; i < n; i++) {
       const a = yNow[i];
       const b = yNext[i];
-      const scale = absolute + relative * Math.max(a < 0 ? -a : a, b < 0 ? -b : b, phi * peaks[i]);
+      const scale = absolute + relative * Math.max(a < 0 ? -a : a, b < 0 ? -b : b);
       const e = (h * (E1 * k1[i] + E2 * k2[i] + E3 * k3[i] + E4 * k4[i] + E5 * k5[i] + E6 * k6[i] + E7 * k7[i])) / scale;
       err += e * e;
     }
@@ -236,10 +222,7 @@ export function integrate(
     // Tiny components set to 0; the derivative there is then evaluated again (first same as last).
     let flushed = false;
     for (let i = 0; i < n; i++) {
-      const b = yNext[i];
-      const size = b < 0 ? -b : b;
-      if (size > peaks[i]) peaks[i] = size;
-      if (b !== 0 && size < flushBelow) {
+      if (yNext[i] !== 0 && Math.abs(yNext[i]) < flushBelow) {
         yNext[i] = 0;
         flushed = true;
       }

@@ -76,7 +76,7 @@ describe('engine numeric limits', () => {
 
   it('flushes compartments that decay into subnormal floats (they made long runs ten times slower)', () => {
     // y' = -y from 1 for 1000 days reaches e^-1000, far below the smallest normal double (tolerances
-    // tight enough to follow it all the way down: no floor on the error weights).
+    // tight enough to follow it all the way down).
     const y = Float64Array.from([1, 2]);
     const seen: number[] = [];
     const ws = new IntegratorWorkspace(2);
@@ -85,7 +85,7 @@ describe('engine numeric limits', () => {
       out[0] = -state[0];
       out[1] = -state[1];
       seen.push(state[0], state[1]);
-    }, y, 0, 1000, days, () => undefined, ws, { ...DEFAULT_TOLERANCES, absolute: 1e-300, relative: 1e-6, peakFloor: 0 });
+    }, y, 0, 1000, days, () => undefined, ws, { ...DEFAULT_TOLERANCES, absolute: 1e-300, relative: 1e-6 });
     expect(seen.some(isSubnormal)).toBe(false);
     expect(Array.from(y)).toEqual([0, 0]);
     const run = runScenario(oneBand({ r0: 30, latentStages: 20, infectiousStages: 20, horizon: 3650 })).options[0];
