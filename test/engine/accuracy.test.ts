@@ -49,6 +49,19 @@ function variant(r0: number, latentPeriodDays: number, infectiousPeriodDays: num
   return valid({ ...s, disease: { ...s.disease, transmission: { kind: 'r0', r0 }, latentPeriodDays, infectiousPeriodDays } });
 }
 
+/** The demo under strong measures (every setting at `multiplier`, half the cases isolated) from `from` to `to`, then released. */
+function suppressed(from: number, to: number, multiplier: number, horizonDays: number, vaccination: boolean): Scenario {
+  const s = demoScenario();
+  const settingMultipliers = Object.fromEntries(s.settings.map((setting) => [setting.name, multiplier]));
+  const campaign = s.options.find((o) => o.vaccinationCampaign !== undefined)?.vaccinationCampaign;
+  return valid({
+    ...s,
+    horizonDays,
+    referenceOption: undefined,
+    options: [{ name: 'suppressed, then released', ...(vaccination ? { vaccinationCampaign: campaign } : {}), phases: [{ fromDay: from, toDay: to, settingMultipliers, caseIsolation: 0.5 }] }],
+  });
+}
+
 describe('accuracy of the default tolerances', () => {
   it('the demo, every option: within 1e-6 of rtol 1e-10', { timeout: 120_000 }, () => {
     expect(worstDifference(demoScenario()).relative).toBeLessThan(AGREEMENT);
@@ -60,6 +73,19 @@ describe('accuracy of the default tolerances', () => {
 
   it('slow growth (R0 1.3, latent 4 days, infectious 7 days): within 1e-6', { timeout: 120_000 }, () => {
     expect(worstDifference(variant(1.3, 4, 7)).relative).toBeLessThan(AGREEMENT);
+  });
+
+  // After months of suppression the second wave grows from E and I far below their first peak, and
+  // its timing amplifies their relative error: no tolerance this loose keeps 1e-6 there (Tsitouras
+  // 5(4) at the defaults: 1.4e-4 and 1.8e-3; the former Dormand-Prince 5(4) at rtol 4e-6: 1.2e-2
+  // and 1.8e-3). These bounds catch an error control that relaxes small components (a floor at 1%
+  // of each component's peak size: 9.3e-3 and 0.71).
+  it('a second wave after 180 days of suppression: within 1e-3', { timeout: 120_000 }, () => {
+    expect(worstDifference(suppressed(20, 200, 0.1, 500, false)).relative).toBeLessThan(1e-3);
+  });
+
+  it('a second wave after 240 days of suppression, with vaccination: within 1e-2', { timeout: 120_000 }, () => {
+    expect(worstDifference(suppressed(60, 300, 0.15, 700, true)).relative).toBeLessThan(1e-2);
   });
 
   it('a looser tolerance is caught: rtol 1e-3 misses by more than 1e-6', { timeout: 120_000 }, () => {
