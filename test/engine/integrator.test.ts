@@ -112,6 +112,15 @@ describe('Tsitouras 5(4): coefficients and orders', () => {
 });
 
 describe('Tsitouras 5(4): adaptive runs', () => {
+  it('rejects a first step that is far too large and redoes it smaller', () => {
+    // y' = -y over one day in one step of 1 day: an estimated error about 100 times rtol 1e-5.
+    const y = Float64Array.of(1);
+    const ws = new IntegratorWorkspace(1);
+    integrate((_t, x, d) => { d[0] = -x[0]; }, y, 0, 1, [], () => undefined, ws, { relative: 1e-5, absolute: 1e-12, maxStep: 1 }, 1);
+    expect(ws.rejected).toBeGreaterThanOrEqual(1);
+    expect(Math.abs(y[0] - Math.exp(-1))).toBeLessThan(1e-5 * Math.exp(-1));
+  });
+
   it('solves y\' = -y and its dense output between steps matches exp(-t)', () => {
     const y = Float64Array.of(1);
     const times = [0.3, 1, 2.5, 4, 7.25, 10];
