@@ -76,10 +76,11 @@ const num = (x: number | null, digits: number): string => (x === null ? 'unbound
 
 function tableText(file: string, answer: CaseCountFit, scenarioTitle: string): string {
   const { fit, r0, measures } = answer;
-  const [lo, hi] = fit.growthRateInterval;
+  // An end the profile search gave up on says so rather than printing as unbounded.
+  const [lo, hi] = fit.growthRateInterval.map((end, k) => (fit.growthRateIntervalNotDetermined[k] === null ? num(end, 4) : 'not determined'));
   const lines = [
     `Growth-rate fit of ${file}: days ${fit.fromDay} to ${fit.toDay}${datesOf(answer)}, ${fit.daysUsed} days with counts, ${fit.casesInWindow} cases, ${fit.family === 'poisson' ? 'Poisson' : 'negative-binomial'} counts`,
-    `Growth rate r:      ${num(fit.growthRatePerDay, 4)} per day (95% interval ${num(lo, 4)} to ${num(hi, 4)}, profile likelihood)`,
+    `Growth rate r:      ${num(fit.growthRatePerDay, 4)} per day (95% interval ${lo} to ${hi}, profile likelihood)`,
   ];
   if (fit.doublingTimeDays !== null && fit.doublingTimeInterval !== null) {
     lines.push(`Doubling time:      ${num(fit.doublingTimeDays, 1)} days (${num(fit.doublingTimeInterval[0], 1)} to ${num(fit.doublingTimeInterval[1], 1)})`);
@@ -145,6 +146,7 @@ export function fitCommand(io: Output, words: readonly string[]): ExitCode {
     const json = {
       growthRatePerDay: fit.growthRatePerDay,
       growthRateInterval: fit.growthRateInterval,
+      growthRateIntervalNotDetermined: fit.growthRateIntervalNotDetermined,
       doublingTimeDays: fit.doublingTimeDays,
       r0: r0.r0,
       r0Interval: r0.r0Interval,
@@ -168,7 +170,7 @@ export function fitCommand(io: Output, words: readonly string[]): ExitCode {
       notes: notesOf(answer),
       caution: CAUTION,
     };
-    // JSON has no infinity: an unbounded interval end is written as null.
+    // JSON has no infinity: an unbounded interval end is written as null (growthRateIntervalNotDetermined says why, when it was not found).
     io.out(`${JSON.stringify(json, null, 2)}\n`);
   } else io.out(tableText(args.casesFile, answer, scenario.title));
   return EXIT_CODES.ok;

@@ -4,14 +4,15 @@
  * Poisson or negative-binomial (NB2) counts, a 95% profile-likelihood interval for r, the Wald
  * standard error, the Pearson dispersion statistic, doubling/halving times and the fitted curve.
  * Formulas and sources are in the modules used: logLinkGlm (IRLS), negativeBinomialFit,
- * profileInterval, growthDesign, timeScales.
+ * growthProfile and profileInterval, growthDesign, timeScales; work budgets in fitBudget.
  */
 import type { DailyCounts } from './caseSeries.ts';
-import { countFamily } from './countLikelihoods.ts';
-import { designRow, growthDesign, withGrowthRateFixed, weekdayClass } from './growthDesign.ts';
+import { countFamily, countTable } from './countLikelihoods.ts';
+import { EvaluationBudget, FIT_EVALUATIONS } from './fitBudget.ts';
+import { designRow, growthDesign, weekdayClass } from './growthDesign.ts';
+import { growthRateProfileInterval } from './growthProfile.ts';
 import { fitLogLinkGlm, type GlmData } from './logLinkGlm.ts';
 import { fitNegativeBinomial, type NegativeBinomialResult } from './negativeBinomialFit.ts';
-import { profileLikelihoodInterval } from './profileInterval.ts';
 import { timeScales, type GrowthStatus } from './timeScales.ts';
 
 export type CountModel = 'poisson' | 'negativeBinomial';
@@ -48,8 +49,10 @@ export interface GrowthFit {
   growthRatePerDay: number;
   /** Wald standard error of r from the inverse expected information, per day. */
   growthRateStandardError: number;
-  /** 95% profile-likelihood interval for r, per day (an end may be ±Infinity if not reached within ±20/day). */
+  /** 95% profile-likelihood interval for r, per day (an end may be ±Infinity if not reached within ±20/day, or not determined). */
   growthRateInterval: [number, number];
+  /** Per end of that interval, null when found (or unbounded), else why it was not determined (that end is then ±Infinity). */
+  growthRateIntervalNotDetermined: [string | null, string | null];
   status: GrowthStatus;
   doublingTimeDays: number | null;
   doublingTimeInterval: [number, number | null] | null;
@@ -151,24 +154,26 @@ export function fitGrowth(counts: DailyCounts, options: FitGrowthOptions = {}): 
 
   const design = growthDesign(days, fromDay, dayOfWeek);
   const data: GlmData = { x: design.x, y, offset: days.map(() => 0) };
-  const fitModel = (d: GlmData): NegativeBinomialResult => {
-    if (family === 'negativeBinomial') return fitNegativeBinomial(d);
-    const res = fitLogLinkGlm(d, countFamily(0));
-    return res.ok ? { ok: true, fit: res.fit, alpha: 0 } : res;
-  };
-  const poisson = fitLogLinkGlm(data, countFamily(0));
+  const table = countTable(y);
+  const budget = new EvaluationBudget(FIT_EVALUATIONS);
+  const poisson = fitLogLinkGlm(data, countFamily(0, table), { budget });
   if (!poisson.ok) return { ok: false, problems: [{ field: 'window', rule: `cannot be fitted: ${poisson.reason}` }] };
-  const main: NegativeBinomialResult = family === 'poisson' ? { ok: true, fit: poisson.fit, alpha: 0 } : fitNegativeBinomial(data);
+  const main: NegativeBinomialResult = family === 'poisson' ? { ok: true, fit: poisson.fit, alpha: 0 } : fitNegativeBinomial(data, { table, budget });
   if (!main.ok) return { ok: false, problems: [{ field: 'window', rule: `cannot be fitted: ${main.reason}` }] };
   const { fit, alpha } = main;
   const r = fit.coefficients[1];
   const se = Math.sqrt(fit.covariance[1][1]);
-  const profile = (value: number): number => {
-    const fixed = withGrowthRateFixed(design, value);
-    const res = fitModel({ x: fixed.x, y, offset: fixed.offset });
-    return res.ok ? res.fit.logLikelihood : -Infinity;
-  };
-  const interval = profileLikelihoodInterval(r, fit.logLikelihood, se, profile);
+  const profiled = growthRateProfileInterval({
+    design,
+    y,
+    table,
+    negativeBinomial: family === 'negativeBinomial',
+    coefficients: fit.coefficients,
+    alpha,
+    logLikelihood: fit.logLikelihood,
+    standardError: se,
+  });
+  const { interval, notDetermined } = profiled;
 
   const p = design.x[0].length;
   const pearsonSum = y.reduce((s, yi, i) => s + (yi - poisson.fit.mu[i]) ** 2 / poisson.fit.mu[i], 0);
@@ -199,7 +204,9 @@ export function fitGrowth(counts: DailyCounts, options: FitGrowthOptions = {}): 
       `Pearson dispersion of the Poisson fit: ${pearsonRatio.toFixed(2)} (about 1 for Poisson counts; above ${OVERDISPERSION_THRESHOLD}, common practice, means overdispersion${over && family === 'poisson' ? ': prefer the negative-binomial fit' : ''}).`,
     );
   }
-  if (!Number.isFinite(interval[0]) || !Number.isFinite(interval[1])) notes.push('The interval for r is unbounded on one side: the window holds too little information.');
+  for (const reason of notDetermined) if (reason !== null) notes.push(`The ${reason}; that end is left open.`);
+  const unbounded = interval.some((end, k) => !Number.isFinite(end) && notDetermined[k] === null);
+  if (unbounded) notes.push('The interval for r is unbounded on one side: the window holds too little information.');
   if (scales.status === 'not growing') notes.push('r is 0 within the solver tolerance: not growing, no doubling or halving time.');
 
   return {
@@ -214,6 +221,7 @@ export function fitGrowth(counts: DailyCounts, options: FitGrowthOptions = {}): 
       growthRatePerDay: r,
       growthRateStandardError: se,
       growthRateInterval: interval,
+      growthRateIntervalNotDetermined: notDetermined,
       status: scales.status,
       doublingTimeDays: scales.doublingTimeDays,
       doublingTimeInterval: scales.doublingTimeInterval,

@@ -36,10 +36,13 @@ export function growthDesign(days: readonly number[], fromDay: number, dayOfWeek
   return { x: days.map((d) => designRow(d, centreDay, dayOfWeek, fromDay)), centreDay, dayOfWeek };
 }
 
-/** The design without the growth-rate column, with r (t - t̄) moved into the offset: for profiling r. */
-export function withGrowthRateFixed(design: GrowthDesign, r: number): { x: number[][]; offset: number[] } {
+/**
+ * For profiling r: the design without the growth-rate column (the same at every r, so made once)
+ * and, per r, the offset r (t - t̄) that takes its place.
+ */
+export function growthRateFixedDesign(design: GrowthDesign): { x: number[][]; offsetAt(r: number): number[] } {
   return {
     x: design.x.map((row) => [row[0], ...row.slice(2)]),
-    offset: design.x.map((row) => r * row[1]),
+    offsetAt: (r) => design.x.map((row) => r * row[1]),
   };
 }

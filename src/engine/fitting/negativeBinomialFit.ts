@@ -3,71 +3,127 @@
  * likelihood jointly with the coefficients. Alternates (Cameron & Trivedi 2013, Regression
  * Analysis of Count Data, 2nd ed., sec. 3.3; the same scheme as Venables & Ripley 2002, Modern
  * Applied Statistics with S, 4th ed., sec. 7.4):
- *   1. b given α: IRLS with weights mu / (1 + α mu) (`fitLogLinkGlm`);
+ *   1. b given α: IRLS with weights mu / (1 + α mu) (`fitLogLinkGlm`), started from the previous b;
  *   2. α given the means: one-dimensional maximisation of the NB2 log-likelihood over ln α
- *      (grid bracket then golden section), or α = 0 when the Poisson limit is at least as likely;
- * until the log-likelihood changes by less than 1e-10. b and α are orthogonal in the expected
- * information (Lawless 1987, Can J Stat 15:209), so (Xᵀ W X)^{-1} remains the covariance of b.
+ *      (Brent's method, brentMaximum.ts, on a bracket found either by a grid over α in
+ *      [1e-8, 1e3] or, given a previous α, by stepping out from it), or α = 0 when the Poisson
+ *      limit is at least as likely;
+ * until the log-likelihood changes by less than 1e-10 (relative). b and α are orthogonal in the
+ * expected information (Lawless 1987, Can J Stat 15:209), so (Xᵀ W X)^{-1} remains the covariance
+ * of b, and a refit near a known solution (a profile point next to the last) settles in two or
+ * three rounds when started from that solution's b and α.
  * Why ML rather than the moment estimate: the profile-likelihood interval for r needs the full
  * likelihood maximised at every r, and ML makes the interval and the point estimate consistent.
  */
-import { countFamily } from './countLikelihoods.ts';
+import { brentMaximum } from './brentMaximum.ts';
+import { countFamily, countTable, type CountTable } from './countLikelihoods.ts';
+import type { EvaluationBudget } from './fitBudget.ts';
 import { fitLogLinkGlm, type GlmData, type GlmFit } from './logLinkGlm.ts';
 
-export type NegativeBinomialResult = { ok: true; fit: GlmFit; alpha: number } | { ok: false; reason: string };
+/** `budget`: true when the fit stopped because its work budget ran out (not a property of the data). */
+export type NegativeBinomialResult = { ok: true; fit: GlmFit; alpha: number } | { ok: false; reason: string; budget?: true };
+
+/** A warm start (coefficients and α of a nearby solution), the counts' table and a work budget; all optional. */
+export interface NegativeBinomialStart {
+  coefficients?: readonly number[];
+  alpha?: number;
+  table?: CountTable;
+  budget?: EvaluationBudget;
+}
 
 const LN_ALPHA_MIN = Math.log(1e-8);
 const LN_ALPHA_MAX = Math.log(1e3);
-const GOLDEN = (Math.sqrt(5) - 1) / 2;
+const GRID_STEPS = 44;
+/** First half-width of the bracket around a previous ln α (ln α moves little between profile points). */
+const WARM_STEP = 0.1;
+const MAX_ROUNDS = 200;
 
-/** The α >= 0 maximising the NB2 log-likelihood of y at fixed means mu. */
-export function maximumLikelihoodAlpha(y: readonly number[], mu: readonly number[]): number {
-  const ll = (lnAlpha: number): number => countFamily(Math.exp(lnAlpha)).logLikelihood(y, mu);
-  const steps = 44;
-  const h = (LN_ALPHA_MAX - LN_ALPHA_MIN) / steps;
+/** Bracket [lo, hi] of ln α holding a maximum of `ll`, from a grid over the whole range. */
+function gridBracket(ll: (lnAlpha: number) => number): [number, number] {
+  const h = (LN_ALPHA_MAX - LN_ALPHA_MIN) / GRID_STEPS;
   let best = 0;
   let bestLl = -Infinity;
-  for (let k = 0; k <= steps; k++) {
+  for (let k = 0; k <= GRID_STEPS; k++) {
     const v = ll(LN_ALPHA_MIN + k * h);
     if (v > bestLl) [best, bestLl] = [k, v];
   }
-  let lo = LN_ALPHA_MIN + Math.max(0, best - 1) * h;
-  let hi = LN_ALPHA_MIN + Math.min(steps, best + 1) * h;
-  let c = hi - GOLDEN * (hi - lo);
-  let d = lo + GOLDEN * (hi - lo);
-  let fc = ll(c);
-  let fd = ll(d);
-  // Each step keeps 0.618 of the bracket: 100 steps narrow it by 1e-21, far below 1e-9 of its width.
-  for (let step = 0; step < 100 && hi - lo > 1e-9; step++) {
-    if (fc >= fd) {
-      [hi, d, fd] = [d, c, fc];
-      c = hi - GOLDEN * (hi - lo);
-      fc = ll(c);
-    } else {
-      [lo, c, fc] = [c, d, fd];
-      d = lo + GOLDEN * (hi - lo);
-      fd = ll(d);
-    }
-  }
-  const lnAlpha = 0.5 * (lo + hi);
-  const poissonLl = countFamily(0).logLikelihood(y, mu);
-  return poissonLl >= ll(lnAlpha) ? 0 : Math.exp(lnAlpha);
+  return [LN_ALPHA_MIN + Math.max(0, best - 1) * h, LN_ALPHA_MIN + Math.min(GRID_STEPS, best + 1) * h];
 }
 
-/** Joint ML fit of b and α. */
-export function fitNegativeBinomial(data: GlmData): NegativeBinomialResult {
-  let alpha = 0;
+/** Bracket [lo, hi] of ln α holding a maximum of `ll`, stepping out (doubling) uphill from `start`. */
+function warmBracket(ll: (lnAlpha: number) => number, start: number): [number, number] {
+  let step = WARM_STEP;
+  let lo = Math.max(LN_ALPHA_MIN, start - step);
+  let hi = Math.min(LN_ALPHA_MAX, start + step);
+  let mid = start;
+  let [fLo, fMid, fHi] = [ll(lo), ll(start), ll(hi)];
+  // Each pass doubles the step: the range of ln α (27.6 wide) is crossed within 9 passes.
+  while (!(fMid >= fLo && fMid >= fHi)) {
+    step *= 2;
+    if (fHi > fMid) {
+      if (hi >= LN_ALPHA_MAX) return [mid, hi];
+      [lo, fLo, mid, fMid] = [mid, fMid, hi, fHi];
+      hi = Math.min(LN_ALPHA_MAX, mid + step);
+      fHi = ll(hi);
+    } else {
+      if (lo <= LN_ALPHA_MIN) return [lo, mid];
+      [hi, fHi, mid, fMid] = [mid, fMid, lo, fLo];
+      lo = Math.max(LN_ALPHA_MIN, mid - step);
+      fLo = ll(lo);
+    }
+  }
+  return [lo, hi];
+}
+
+/** Thrown inside the α search when the budget runs out; caught by `maximumLikelihoodAlpha`. */
+class BudgetSpent extends Error {}
+
+/**
+ * The α >= 0 maximising the NB2 log-likelihood of y at fixed means mu, with that log-likelihood;
+ * `start` (α > 0 of a nearby fit) skips the grid. Null when the budget runs out.
+ */
+export function maximumLikelihoodAlpha(
+  y: readonly number[],
+  mu: readonly number[],
+  options: { start?: number; table?: CountTable; budget?: EvaluationBudget } = {},
+): { alpha: number; logLikelihood: number } | null {
+  const { table, budget } = options;
+  const ll = (lnAlpha: number): number => {
+    if (budget?.exhausted) throw new BudgetSpent();
+    return countFamily(Math.exp(lnAlpha), table).logLikelihood(y, mu);
+  };
+  try {
+    const start = options.start !== undefined && options.start > 0 ? Math.log(options.start) : null;
+    const [lo, hi] = start !== null && start > LN_ALPHA_MIN && start < LN_ALPHA_MAX ? warmBracket(ll, start) : gridBracket(ll);
+    const best = brentMaximum(ll, lo, hi, 1e-9, 100);
+    const poissonLl = countFamily(0, table).logLikelihood(y, mu);
+    return poissonLl >= best.value ? { alpha: 0, logLikelihood: poissonLl } : { alpha: Math.exp(best.x), logLikelihood: best.value };
+  } catch (error) {
+    if (error instanceof BudgetSpent) return null;
+    throw error;
+  }
+}
+
+/** Joint ML fit of b and α, from `start` when given. */
+export function fitNegativeBinomial(data: GlmData, start: NegativeBinomialStart = {}): NegativeBinomialResult {
+  const table = start.table ?? countTable(data.y);
+  const { budget } = start;
+  let alpha = start.alpha ?? 0;
+  let coefficients = start.coefficients;
   let previous = -Infinity;
-  for (let round = 0; round < 200; round++) {
-    const glm = fitLogLinkGlm(data, countFamily(alpha));
+  for (let round = 0; round < MAX_ROUNDS; round++) {
+    const glm = fitLogLinkGlm(data, countFamily(alpha, table), { coefficients, budget });
     if (!glm.ok) return glm;
-    alpha = maximumLikelihoodAlpha(data.y, glm.fit.mu);
-    const ll = countFamily(alpha).logLikelihood(data.y, glm.fit.mu);
+    coefficients = glm.fit.coefficients;
+    const found = maximumLikelihoodAlpha(data.y, glm.fit.mu, { start: alpha, table, budget });
+    if (found === null) return { ok: false, reason: (budget as EvaluationBudget).reason, budget: true };
+    alpha = found.alpha;
+    const ll = found.logLikelihood;
     if (Math.abs(ll - previous) <= 1e-10 * (Math.abs(ll) + 0.1)) {
-      const final = fitLogLinkGlm(data, countFamily(alpha));
+      const final = fitLogLinkGlm(data, countFamily(alpha, table), { coefficients, budget });
       return final.ok ? { ok: true, fit: final.fit, alpha } : final;
     }
     previous = ll;
   }
-  return { ok: false, reason: 'the negative-binomial fit did not converge in 200 rounds' };
+  return { ok: false, reason: `the negative-binomial fit did not converge in ${MAX_ROUNDS} rounds` };
 }
