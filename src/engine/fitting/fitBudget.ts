@@ -3,13 +3,13 @@
  * evaluations (`likelihoodEvaluationsSoFar`, each one pass over the counts) and profile refits, so
  * that the bound is the same on every machine. Measured on seeded series of 2 to 10,000 days
  * (test/engine/fitting/fitWork.test.ts, and 400 random series of 2 to 400 days): the
- * negative-binomial fit itself takes 110 to 250 evaluations; a warm-started profile refit about
+ * negative-binomial fit itself takes 90 to 250 evaluations; a warm-started profile refit 30 to
  * 50, up to a few hundred far out in the tail of a short series, where b and α are far from
  * orthogonal and the alternation creeps; each end of the interval 6 refits; the worst whole fit
- * 3,900. The caps are well above that (common practice: far above what a fit that settles needs,
+ * 3,400. The caps are well above that (common practice: far above what a fit that settles needs,
  * far below a run that looks hung; no source). Together they bound a fit at 4,000 + 2 × 5,000
- * evaluations; at 10,000 days, where the usual 730 took 0.35 s (0.5 ms each, with the IRLS
- * steps between them, on a shared 2-core machine), that is about 7 s at most.
+ * evaluations; at 10,000 days, where the usual 500 took 0.35 s (0.7 ms each, with the IRLS
+ * steps between them, on a shared 2-core machine), that is about 10 s at most.
  */
 import { likelihoodEvaluationsSoFar } from './countLikelihoods.ts';
 

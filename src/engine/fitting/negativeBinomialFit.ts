@@ -4,10 +4,11 @@
  * Analysis of Count Data, 2nd ed., sec. 3.3; the same scheme as Venables & Ripley 2002, Modern
  * Applied Statistics with S, 4th ed., sec. 7.4):
  *   1. b given α: IRLS with weights mu / (1 + α mu) (`fitLogLinkGlm`), started from the previous b;
- *   2. α given the means: one-dimensional maximisation of the NB2 log-likelihood over ln α
- *      (Brent's method, brentMaximum.ts, on a bracket found either by a grid over α in
- *      [1e-8, 1e3] or, given a previous α, by stepping out from it), or α = 0 when the Poisson
- *      limit is at least as likely;
+ *   2. α given the means: the maximum of the NB2 log-likelihood over ln α, bracketed either by a
+ *      grid over α in [1e-8, 1e3] or, given a previous α, by stepping out from it; inside the
+ *      bracket the root of the score d ln L / d ln α (countLikelihoods.ts) by Brent's method
+ *      (brentRoot.ts), or Brent's maximum search (brentMaximum.ts) when the maximum is at an end
+ *      of the range; α = 0 when the Poisson limit is at least as likely;
  * until the log-likelihood changes by less than 1e-10 (relative). b and α are orthogonal in the
  * expected information (Lawless 1987, Can J Stat 15:209), so (Xᵀ W X)^{-1} remains the covariance
  * of b, and a refit near a known solution (a profile point next to the last) settles in two or
@@ -16,7 +17,8 @@
  * likelihood maximised at every r, and ML makes the interval and the point estimate consistent.
  */
 import { brentMaximum } from './brentMaximum.ts';
-import { countFamily, countTable, type CountTable } from './countLikelihoods.ts';
+import { brentRoot } from './brentRoot.ts';
+import { alphaScore, countFamily, countTable, type CountTable } from './countLikelihoods.ts';
 import type { EvaluationBudget } from './fitBudget.ts';
 import { fitLogLinkGlm, type GlmData, type GlmFit } from './logLinkGlm.ts';
 
@@ -87,17 +89,27 @@ export function maximumLikelihoodAlpha(
   mu: readonly number[],
   options: { start?: number; table?: CountTable; budget?: EvaluationBudget } = {},
 ): { alpha: number; logLikelihood: number } | null {
-  const { table, budget } = options;
+  const { budget } = options;
+  const table = options.table !== undefined && options.table.y === y ? options.table : countTable(y);
   const ll = (lnAlpha: number): number => {
     if (budget?.exhausted) throw new BudgetSpent();
     return countFamily(Math.exp(lnAlpha), table).logLikelihood(y, mu);
   };
+  const score = (lnAlpha: number): number => {
+    if (budget?.exhausted) throw new BudgetSpent();
+    return alphaScore(Math.exp(lnAlpha), table, mu);
+  };
   try {
     const start = options.start !== undefined && options.start > 0 ? Math.log(options.start) : null;
     const [lo, hi] = start !== null && start > LN_ALPHA_MIN && start < LN_ALPHA_MAX ? warmBracket(ll, start) : gridBracket(ll);
-    const best = brentMaximum(ll, lo, hi, 1e-9, 100);
+    const [sLo, sHi] = [score(lo), score(hi)];
+    // A maximum inside the bracket: the score falls through zero there. Else (the maximum at an
+    // end of the range, or a score that is not a number) search ln L itself.
+    const root = sLo > 0 && sHi < 0 ? brentRoot(score, lo, sLo, hi, sHi, 1e-12, 100) : null;
+    const lnAlpha = root !== null ? root.x : brentMaximum(ll, lo, hi, 1e-9, 100).x;
+    const value = ll(lnAlpha);
     const poissonLl = countFamily(0, table).logLikelihood(y, mu);
-    return poissonLl >= best.value ? { alpha: 0, logLikelihood: poissonLl } : { alpha: Math.exp(best.x), logLikelihood: best.value };
+    return poissonLl >= value ? { alpha: 0, logLikelihood: poissonLl } : { alpha: Math.exp(lnAlpha), logLikelihood: value };
   } catch (error) {
     if (error instanceof BudgetSpent) return null;
     throw error;

@@ -1,7 +1,8 @@
 import { inv } from 'mathjs';
 import { describe, expect, it } from 'vitest';
 import { choleskyFactor, choleskyInverse } from '../../../src/engine/fitting/cholesky.ts';
-import { logFactorial, logRisingFactorial } from '../../../src/engine/fitting/countLikelihoods.ts';
+import { alphaScore, countFamily, countTable, digamma, logFactorial, logRisingFactorial } from '../../../src/engine/fitting/countLikelihoods.ts';
+import { maximumLikelihoodAlpha } from '../../../src/engine/fitting/negativeBinomialFit.ts';
 import { logGamma } from '../../../src/engine/distributions.ts';
 
 describe('fitting numerics', () => {
@@ -24,6 +25,28 @@ describe('fitting numerics', () => {
       }
     }
     expect(logFactorial(0)).toBe(0);
+  });
+
+  it('digamma matches ψ(1) = -γ, ψ(1/2) = -γ - 2 ln 2 and ψ(x + 1) = ψ(x) + 1/x', () => {
+    const eulerGamma = 0.5772156649015329; // Abramowitz & Stegun 1964, 6.1.3
+    expect(digamma(1)).toBeCloseTo(-eulerGamma, 14);
+    expect(digamma(0.5)).toBeCloseTo(-eulerGamma - 2 * Math.LN2, 14); // A&S 6.3.3
+    for (const x of [0.01, 0.7, 3, 9.5, 12, 1e3, 1e8]) expect(digamma(x + 1) - digamma(x)).toBeCloseTo(1 / x, 12);
+  });
+
+  it('the NB2 score in ln α is the derivative of ln L, and vanishes at the α the fit picks', () => {
+    const y = [0, 3, 7, 2, 0, 15, 4, 90, 1, 33, 5, 0, 120, 8];
+    const mu = [2, 4, 5, 3, 2, 9, 6, 40, 3, 20, 6, 2, 60, 9];
+    const table = countTable(y);
+    const ll = (lnAlpha: number) => countFamily(Math.exp(lnAlpha), table).logLikelihood(y, mu);
+    for (const lnAlpha of [-6, -1, 0.3, 2]) {
+      const h = 1e-5;
+      const numeric = (ll(lnAlpha + h) - ll(lnAlpha - h)) / (2 * h);
+      expect(alphaScore(Math.exp(lnAlpha), table, mu)).toBeCloseTo(numeric, 6);
+    }
+    const found = maximumLikelihoodAlpha(y, mu, { table });
+    expect(found?.alpha).toBeGreaterThan(0);
+    expect(Math.abs(alphaScore(found?.alpha as number, table, mu))).toBeLessThan(1e-10);
   });
 
   it('Cholesky inverse agrees with mathjs inv', () => {
