@@ -150,7 +150,8 @@ function digammaRise(theta: number, v: number): number {
 }
 
 /**
- * d ln L / d ln α of NB2 at fixed means (Lawless 1987, Can J Stat 15:209, eq. 2.4, written in θ = 1/α):
+ * d ln L / d ln α of NB2 at fixed means, by differentiating ln L above in θ = 1/α (the dispersion
+ * score as in Lawless 1987, Can J Stat 15:209; the form here derived, not copied):
  *
  *   d ln L / d ln α = -θ sum_i [ ψ(y_i + θ) - ψ(θ) - ln(1 + mu_i/θ) + (mu_i - y_i) / (θ + mu_i) ].
  *
