@@ -13,6 +13,7 @@ import { formatProblem, validateScenario } from '../../src/engine/index.ts';
 import { oneBand } from '../helpers/scenarios.ts';
 import { dominantByMathjs } from '../helpers/byHand.ts';
 import { seededRandom } from '../helpers/random.ts';
+import { PERIODIC_ODD_CONTACTS, PERIODIC_ODD_POPULATION } from '../helpers/unsettledRoots.ts';
 
 const rel = (a: number, b: number): number => Math.abs(a - b) / Math.abs(b);
 
@@ -148,15 +149,8 @@ describe('largest eigenvalue of a non-negative matrix, with bounded work', () =>
   it('turns a root it cannot pin down during calibration into a refusal naming the settings (it was a crash)', () => {
     // Found by a seeded search: contacts only between two halves of the bands (a periodic K, so
     // power iteration never settles) spread over 300 orders of magnitude.
-    const c = [
-      [0, 0, 0, 0, 5.200153618278532e-110, 0],
-      [0, 0, 0, 0, 6.914290743330413e-307, 2.7935444930385406e-102],
-      [0, 0, 0, 5.556834333647057e-53, 0, 1.9075001887270956e-142],
-      [7.707005304652407e-138, 1.9123612842943637e-68, 1.273995898004837e-25, 0, 0, 0],
-      [4.249506383436402e-225, 1.8317924817336967e-229, 0, 0, 0, 0],
-      [1.130141368518444e-47, 9.908536844769235e-194, 4.365502222546034e-248, 0, 0, 0],
-    ];
-    const population = [1660068115, 351365797, 35, 56556, 73684134, 61759];
+    const c = PERIODIC_ODD_CONTACTS.map((row) => [...row]);
+    const population = [...PERIODIC_ODD_POPULATION];
     const s = {
       ...oneBand({ r0: 2, horizon: 10 }),
       ageBands: population.map((_, i) => ({ label: `band ${i}`, lowerAgeYears: 10 * i })),

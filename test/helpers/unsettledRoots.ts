@@ -32,20 +32,27 @@ function scenarioOf(odd: number[][], population: number[], ordinary: number[][],
 }
 
 /**
+ * Contacts only between two halves of six bands (a periodic matrix) spread over 300 orders of
+ * magnitude, with their populations: alone, their R0 cannot be pinned down.
+ */
+export const PERIODIC_ODD_CONTACTS: readonly number[][] = [
+  [0, 0, 0, 0, 5.200153618278532e-110, 0],
+  [0, 0, 0, 0, 6.914290743330413e-307, 2.7935444930385406e-102],
+  [0, 0, 0, 5.556834333647057e-53, 0, 1.9075001887270956e-142],
+  [7.707005304652407e-138, 1.9123612842943637e-68, 1.273995898004837e-25, 0, 0, 0],
+  [4.249506383436402e-225, 1.8317924817336967e-229, 0, 0, 0, 0],
+  [1.130141368518444e-47, 9.908536844769235e-194, 4.365502222546034e-248, 0, 0, 0],
+];
+export const PERIODIC_ODD_POPULATION: readonly number[] = [1660068115, 351365797, 35, 56556, 73684134, 61759];
+
+/**
  * R0 calibrates (the ordinary setting, proportionate mixing, dominates), but option 1's phase
  * shuts the ordinary setting and leaves the odd contacts alone: R under that phase cannot be
  * pinned down, for every susceptible count. `validateScenario` refuses it at options[1].phases[0].
  */
 export function phaseLeavingOddContacts(): ScenarioInput {
-  const odd = [
-    [0, 0, 0, 0, 5.200153618278532e-110, 0],
-    [0, 0, 0, 0, 6.914290743330413e-307, 2.7935444930385406e-102],
-    [0, 0, 0, 5.556834333647057e-53, 0, 1.9075001887270956e-142],
-    [7.707005304652407e-138, 1.9123612842943637e-68, 1.273995898004837e-25, 0, 0, 0],
-    [4.249506383436402e-225, 1.8317924817336967e-229, 0, 0, 0, 0],
-    [1.130141368518444e-47, 9.908536844769235e-194, 4.365502222546034e-248, 0, 0, 0],
-  ];
-  const population = [1660068115, 351365797, 35, 56556, 73684134, 61759];
+  const odd = PERIODIC_ODD_CONTACTS.map((row) => [...row]);
+  const population = [...PERIODIC_ODD_POPULATION];
   const total = population.reduce((a, b) => a + b, 0);
   const ordinary = population.map(() => population.map((Nj) => (10 * Nj) / total));
   return scenarioOf(odd, population, ordinary, {
