@@ -106,7 +106,7 @@ export type SeriesDetail = 'full' | 'summary' | 'noRt';
 
 /**
  * `series`: what to keep (SeriesDetail; default `full`). `accuracy` overrides the integrator's
- * error tolerances (dopri5.ts; the defaults are those every view uses), for checks against a
+ * error tolerances (integrator.ts; the defaults are those every view uses), for checks against a
  * tighter solution.
  */
 export interface OptionRunSettings {
