@@ -57,6 +57,8 @@ export function reproductionByDay(p: PreparedScenario, option: PolicyOption, seg
   const x2 = new Float64Array(n);
   const x3 = new Float64Array(n);
   const x4 = new Float64Array(n);
+  // The option's path for a refusal: looked up once per run, not once per day (a batch may hold thousands of options).
+  const at = optionPath(p.scenario.options, option.name);
   let seg = 0;
   let measuresSince = 0;
   for (let d = 0; d <= H; d++) {
@@ -76,7 +78,7 @@ export function reproductionByDay(p: PreparedScenario, option: PolicyOption, seg
       else if (d > 0) vector.set(x1);
       const transmission = segments[seg].transmission;
       const tolerance = d === 0 ? START_TOLERANCE : REPRODUCTION_TOLERANCE;
-      rt[d] = rootOrRefusal(() => spectralRadius(transmission, n, vector, scratch, tolerance, scale, product), optionPath(p.scenario.options, option.name), option.name, `on day ${d}`);
+      rt[d] = rootOrRefusal(() => spectralRadius(transmission, n, vector, scratch, tolerance, scale, product), at, option.name, `on day ${d}`);
     } else {
       vector.set(x1);
     }
