@@ -159,7 +159,6 @@ export function simulateOption(p: PreparedScenario, option: PolicyOption, settin
   const infections = sum(infectionsByBand);
   const yllByBand = yearsOfLifeLostByBand(deathsByBand, p.remainingLifeExpectancy);
 
-
   let finalSize: OptionResults['finalSize'] = null;
   if (campaign === null && measuresConstant(option, H)) {
     const s0 = Array.from(population, (N, i) => (N > 0 ? 1 - (s.initialState.priorImmunityFraction?.[i] ?? 0) : 0));
