@@ -79,6 +79,56 @@ function fraction(x: number): number {
   return Math.min(1, Math.max(0, x));
 }
 
+/**
+ * The day (0..H) with the most people infected (E + I summed over bands) and that number; the
+ * first such day on a tie. Four days are summed together: each day's sum still runs over the
+ * bands in ascending order (the same bits as day by day), and the four sums are independent, so
+ * their additions overlap instead of waiting on one another.
+ */
+function peakOfPrevalence(prevalence: Float64Array, n: number, H: number): { day: number; persons: number } {
+  let day = 0;
+  let persons = -1;
+  let d = 0;
+  for (; d + 3 <= H; d += 4) {
+    const row = d * n;
+    let p0 = 0;
+    let p1 = 0;
+    let p2 = 0;
+    let p3 = 0;
+    for (let i = 0; i < n; i++) {
+      p0 += prevalence[row + i];
+      p1 += prevalence[row + n + i];
+      p2 += prevalence[row + 2 * n + i];
+      p3 += prevalence[row + 3 * n + i];
+    }
+    if (p0 > persons) {
+      persons = p0;
+      day = d;
+    }
+    if (p1 > persons) {
+      persons = p1;
+      day = d + 1;
+    }
+    if (p2 > persons) {
+      persons = p2;
+      day = d + 2;
+    }
+    if (p3 > persons) {
+      persons = p3;
+      day = d + 3;
+    }
+  }
+  for (; d <= H; d++) {
+    let total = 0;
+    for (let i = 0; i < n; i++) total += prevalence[d * n + i];
+    if (total > persons) {
+      persons = total;
+      day = d;
+    }
+  }
+  return { day, persons };
+}
+
 /** Doses given within the horizon and the share that reached people no longer susceptible. */
 function vaccinationOutcomes(campaign: PreparedCampaign, plan: readonly DosePiece[], n: number, H: number, toNonSusceptible: Float64Array): VaccinationOutcomes {
   const dosesByBand = Array.from(dosesByBandUntil(plan, n, H));
@@ -140,30 +190,35 @@ export function simulateOption(p: PreparedScenario, option: PolicyOption, settin
   const rStart = rootOrRefusal(() => rAtDayZero(p, segments[0].transmission), optionPath(s.options, option.name), option.name, 'on day 0');
   const growthRatePerDay = growthRateFromR(rStart, p.periods);
 
-  let peakDay = 0;
-  let peakInfectedPersons = -1;
-  for (let d = 0; d <= H; d++) {
-    let infected = 0;
-    for (let i = 0; i < n; i++) infected += daily.prevalence[d * n + i];
-    if (infected > peakInfectedPersons) {
-      peakInfectedPersons = infected;
-      peakDay = d;
-    }
-  }
+  const { day: peakDay, persons: peakInfectedPersons } = peakOfPrevalence(daily.prevalence, n, H);
 
-  const infectionsByBand = Array.from({ length: n }, (_, i) => p.seeds[i] + daily.cumulative[H * n + i]);
-  const attackRateByBand = infectionsByBand.map((x, i) => (population[i] > 0 ? fraction(x / population[i]) : 0));
-  const protectedByBand = Array.from({ length: n }, (_, i) => daily.protectedCumulative[H * n + i]);
   const deathFactor = campaign?.deathRiskFactor ?? 1;
-  const deathsByBand = infectionsByBand.map((x, i) => (x - (1 - deathFactor) * protectedByBand[i]) * p.infectionFatalityRatio[i]);
+  const last = H * n;
+  const infectionsByBand: number[] = [];
+  const attackRateByBand: number[] = [];
+  const deathsByBand: number[] = [];
+  for (let i = 0; i < n; i++) {
+    const x = p.seeds[i] + daily.cumulative[last + i];
+    infectionsByBand.push(x);
+    attackRateByBand.push(population[i] > 0 ? fraction(x / population[i]) : 0);
+    deathsByBand.push((x - (1 - deathFactor) * daily.protectedCumulative[last + i]) * p.infectionFatalityRatio[i]);
+  }
   const infections = sum(infectionsByBand);
   const yllByBand = yearsOfLifeLostByBand(deathsByBand, p.remainingLifeExpectancy);
 
   let finalSize: OptionResults['finalSize'] = null;
   if (campaign === null && measuresConstant(option, H)) {
-    const s0 = Array.from(population, (N, i) => (N > 0 ? 1 - (s.initialState.priorImmunityFraction?.[i] ?? 0) : 0));
-    const z = Array.from(finalSizeUnder(p, segments[0].transmission, s0));
-    finalSize = { attackRateByBand: z.map(fraction), attackRate: fraction(sum(z.map((x, i) => x * population[i])) / totalPopulation) };
+    const prior = s.initialState.priorImmunityFraction;
+    const s0 = new Float64Array(n);
+    for (let i = 0; i < n; i++) s0[i] = population[i] > 0 ? 1 - (prior?.[i] ?? 0) : 0;
+    const z = finalSizeUnder(p, segments[0].transmission, s0);
+    const attackRateByBand: number[] = [];
+    let infected = 0;
+    for (let i = 0; i < n; i++) {
+      attackRateByBand.push(fraction(z[i]));
+      infected += z[i] * population[i];
+    }
+    finalSize = { attackRateByBand, attackRate: fraction(infected / totalPopulation) };
   }
 
   const summary: OptionSummary = {

@@ -8,7 +8,7 @@
  */
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { weightedBandSum } from '../../src/engine/bandTotals.ts';
+import { totalOverBands, weightedBandSum } from '../../src/engine/bandTotals.ts';
 import { convolve } from '../../src/engine/distributions.ts';
 import { healthcareDemand, healthcareDemandOfRun } from '../../src/engine/healthcare/demand.ts';
 import { measureBurden } from '../../src/engine/measureBurden.ts';
@@ -94,6 +94,16 @@ describe('post-processing of an option run', () => {
     for (const option of demo.options.filter((o) => o.vaccinationCampaign === undefined)) {
       const run = simulateOption(p, option);
       expect(run.healthcare, option.name).toStrictEqual(healthcareDemand(p.healthcare!, run.series.incidence));
+    }
+  });
+
+  it('the peak is the first day of the largest E + I total, each day summed over the bands in order, bit for bit', () => {
+    for (const option of demo.options) {
+      const run = simulateOption(p, option);
+      const totals = totalOverBands(run.series.prevalence, n);
+      let day = 0;
+      for (let d = 1; d < totals.length; d++) if (totals[d] > totals[day]) day = d;
+      expect([run.peakDay, run.peakInfectedPersons], option.name).toStrictEqual([day, totals[day]]);
     }
   });
 

@@ -19,8 +19,8 @@
  * Cost: bands with the same delays are summed before convolving (prepareHealthcare.ts), so with
  * one set of delays an option costs five convolutions of the horizon with short (tail-trimmed)
  * kernels, in the register-blocked `convolveInto` (distributions.ts), plus one pass over the
- * daily infections by band that forms both group sums of every group and each band's admissions
- * within the horizon. The group sums and convolution results live in scratch arrays kept per
+ * daily infections, band by band, that forms both group sums of every group and each band's
+ * admissions within the horizon. The group sums and convolution results live in scratch arrays kept per
  * prepared scenario (one option runs at a time on a thread); only the four returned series are
  * allocated per run.
  *
@@ -37,16 +37,16 @@ interface Scratch {
   /** Per delay group: sum_{i in group} IHR_i (1 - c_i) x_i(d) and sum_{i in group} IHR_i c_i x_i(d), by day. */
   wardOnlyInfections: Float64Array[];
   icuInfections: Float64Array[];
-  /** Per band: sum_a x_i(a) admittedBy_g(H - 1 - a), infections weighted by their chance of admission within the horizon. */
+  /** Per band: sum_a x_i(a) admittedBy_g(days - 1 - a), infections weighted by their chance of admission within the horizon. */
   admittedWeight: Float64Array;
   /** Group of each band (index into `groups`). */
   groupOfBand: Int32Array;
-  /** One day's sums by group, and each group's admittedBy at that day's lag. */
-  wardOnlySum: Float64Array;
-  icuSum: Float64Array;
-  admittedByLag: Float64Array;
-  /** One day's infections by band. */
-  day: Float64Array;
+  /** Per group, by day a: admittedBy_g(lagDays - 1 - a), the last entry beyond the kernel, 0 for an empty kernel. */
+  admittedByDay: Float64Array[];
+  /** The horizon `admittedByDay` was written for. */
+  lagDays: number;
+  /** One band's infections by day. */
+  column: Float64Array;
   wardOnlyAdmissions: Float64Array;
   icuAdmissions: Float64Array;
   convolved: Float64Array;
@@ -54,7 +54,10 @@ interface Scratch {
 
 const scratchOf = new WeakMap<PreparedHealthcare, Scratch>();
 
-/** The scratch of `h`, with room for `days` days (the horizon, unless a caller passes a longer series). */
+/**
+ * The scratch of `h` for a series of `days` days (the horizon, unless a caller passes a longer or
+ * shorter series), its group sums zeroed for `addBand`.
+ */
 function scratch(h: PreparedHealthcare, days: number): Scratch {
   let s = scratchOf.get(h);
   if (s === undefined || s.convolved.length < days) {
@@ -65,49 +68,55 @@ function scratch(h: PreparedHealthcare, days: number): Scratch {
       icuInfections: h.groups.map(() => new Float64Array(days)),
       admittedWeight: new Float64Array(h.bands),
       groupOfBand,
-      wardOnlySum: new Float64Array(h.groups.length),
-      icuSum: new Float64Array(h.groups.length),
-      admittedByLag: new Float64Array(h.groups.length),
-      day: new Float64Array(h.bands),
+      admittedByDay: h.groups.map(() => new Float64Array(days)),
+      lagDays: -1,
+      column: new Float64Array(days),
       wardOnlyAdmissions: new Float64Array(days),
       icuAdmissions: new Float64Array(days),
       convolved: new Float64Array(days),
     };
     scratchOf.set(h, s);
   }
+  if (s.lagDays !== days) {
+    h.groups.forEach(({ admittedBy }, k) => {
+      const byDay = s.admittedByDay[k];
+      for (let a = 0; a < days; a++) {
+        const lag = days - 1 - a;
+        byDay[a] = admittedBy.length === 0 ? 0 : lag < admittedBy.length ? admittedBy[lag] : admittedBy[admittedBy.length - 1];
+      }
+    });
+    s.lagDays = days;
+  }
+  for (let k = 0; k < h.groups.length; k++) {
+    s.wardOnlyInfections[k].fill(0, 0, days);
+    s.icuInfections[k].fill(0, 0, days);
+  }
   return s;
 }
 
 /**
- * Adds day d's infections by band (`x`, persons) to the group sums and to each band's admissions
- * within a horizon of `days` days. One pass over the bands in ascending order, so each group's sum
- * runs over its bands in ascending order, and each band's total over days in ascending order: the
- * same order whether the infections come as a whole array (`healthcareDemand`) or day by day from
- * the integrator's totals (`healthcareDemandOfRun`).
+ * Adds band i's daily infections (`x`, days 0..days-1, persons) to its group's sums and sets the
+ * band's admissions weight within the horizon. Called for the bands in ascending order: each
+ * day's group sum then runs over the group's bands in ascending order, starting from 0, and each
+ * band's weight over the days in ascending order, whatever the caller (`healthcareDemand` from a
+ * daily array, `healthcareDemandOfRun` from the integrator's totals). Band by band rather than
+ * day by day, so that no running sum is loaded back right after being stored.
  */
-function addDay(h: PreparedHealthcare, s: Scratch, x: Float64Array, d: number, days: number): void {
-  const lag = days - 1 - d;
-  const groups = h.groups.length;
-  const { wardOnlySum, icuSum, admittedByLag, groupOfBand, admittedWeight } = s;
-  for (let k = 0; k < groups; k++) {
-    const admittedBy = h.groups[k].admittedBy;
-    wardOnlySum[k] = 0;
-    icuSum[k] = 0;
-    admittedByLag[k] = admittedBy.length === 0 ? 0 : lag < admittedBy.length ? admittedBy[lag] : admittedBy[admittedBy.length - 1];
+function addBand(h: PreparedHealthcare, s: Scratch, i: number, x: Float64Array, days: number): void {
+  const k = s.groupOfBand[i];
+  const wardOnly = s.wardOnlyInfections[k];
+  const icu = s.icuInfections[k];
+  const admittedBy = s.admittedByDay[k];
+  const wardOnlyRatio = h.wardOnlyRatio[i];
+  const icuRatio = h.icuRatio[i];
+  let weight = 0;
+  for (let a = 0; a < days; a++) {
+    const v = x[a];
+    wardOnly[a] += v * wardOnlyRatio;
+    icu[a] += v * icuRatio;
+    weight += v * admittedBy[a];
   }
-  const wardOnlyRatio = h.wardOnlyRatio;
-  const icuRatio = h.icuRatio;
-  for (let i = 0; i < h.bands; i++) {
-    const k = groupOfBand[i];
-    const v = x[i];
-    wardOnlySum[k] += v * wardOnlyRatio[i];
-    icuSum[k] += v * icuRatio[i];
-    admittedWeight[i] += v * admittedByLag[k];
-  }
-  for (let k = 0; k < groups; k++) {
-    s.wardOnlyInfections[k][d] = wardOnlySum[k];
-    s.icuInfections[k][d] = icuSum[k];
-  }
+  s.admittedWeight[i] = weight;
 }
 
 /** target += x, element by element. */
@@ -115,7 +124,7 @@ function addInto(target: Float64Array, x: Float64Array): void {
   for (let d = 0; d < target.length; d++) target[d] += x[d];
 }
 
-/** The convolutions and totals, once `addDay` has seen days 0..days-1. */
+/** The convolutions and totals, once `addBand` has seen every band. */
 function demandOfGroups(h: PreparedHealthcare, s: Scratch, days: number): HealthcareOutcomes {
   const n = h.bands;
   const admissions = new Float64Array(days);
@@ -164,8 +173,11 @@ export function healthcareDemand(h: PreparedHealthcare, incidence: Float64Array)
   const n = h.bands;
   const days = incidence.length / n;
   const s = scratch(h, days);
-  s.admittedWeight.fill(0);
-  for (let d = 0; d < days; d++) addDay(h, s, incidence.subarray(d * n, (d + 1) * n), d, days);
+  const x = s.column;
+  for (let i = 0; i < n; i++) {
+    for (let d = 0; d < days; d++) x[d] = incidence[d * n + i];
+    addBand(h, s, i, x, days);
+  }
   return demandOfGroups(h, s, days);
 }
 
@@ -181,17 +193,25 @@ export function healthcareDemandOfRun(h: PreparedHealthcare, cumulative: Float64
   const n = h.bands;
   const days = h.days;
   const s = scratch(h, days);
-  const x = s.day;
-  s.admittedWeight.fill(0);
-  for (let d = 0; d < days; d++) {
-    const row = d * n;
-    for (let i = 0; i < n; i++) {
-      let v = Math.max(0, cumulative[row + n + i] - cumulative[row + i]);
-      if (d === 0) v += seeds[i];
-      if (protectedCumulative !== null) v = Math.max(0, v - (1 - factor) * Math.max(0, protectedCumulative[row + n + i] - protectedCumulative[row + i]));
-      x[i] = v;
+  const x = s.column;
+  const unprotected = 1 - factor;
+  for (let i = 0; i < n; i++) {
+    let before = cumulative[i];
+    for (let d = 0; d < days; d++) {
+      const after = cumulative[(d + 1) * n + i];
+      x[d] = Math.max(0, after - before);
+      before = after;
     }
-    addDay(h, s, x, d, days);
+    if (days > 0) x[0] += seeds[i];
+    if (protectedCumulative !== null) {
+      let protectedBefore = protectedCumulative[i];
+      for (let d = 0; d < days; d++) {
+        const protectedAfter = protectedCumulative[(d + 1) * n + i];
+        x[d] = Math.max(0, x[d] - unprotected * Math.max(0, protectedAfter - protectedBefore));
+        protectedBefore = protectedAfter;
+      }
+    }
+    addBand(h, s, i, x, days);
   }
   return demandOfGroups(h, s, days);
 }
