@@ -65,10 +65,10 @@ export const MUTANTS: Mutant[] = [
     what: 'force of infection with M transposed',
   },
   { id: 'rhs-recovery-first', file: S, find: 'dydt[oR + i] = aI * y[lastI + i];', replace: 'dydt[oR + i] = aI * y[oI + i];', what: 'recovery from the first infectious stage' },
-  { id: 'rhs-counter-unvaccinated', file: S, find: 'dydt[oX + i] = flow;', replace: 'dydt[oX + i] = lambda * susceptible;', what: 'infection counter misses W and P infections' },
   { id: 'rhs-protected-risk', file: S, find: 'const protectedFlow = risk * lambda * p;', replace: 'const protectedFlow = lambda * p;', what: 'protected people at full risk' },
   { id: 'rhs-dose-share', file: S, find: 'Math.min(1, susceptible / u)', replace: '1', what: 'every dose lands on a susceptible' },
-  { id: 'rhs-aon-immune', file: S, find: 'dydt[oV + i] = leaky ? 0 : efficacy * protecting;', replace: 'dydt[oV + i] = 0;', what: 'all-or-nothing successes vanish' },
+  { id: 'rhs-aon-immune', file: S, find: 'dydt[oV + i] = efficacy * protecting;', replace: 'dydt[oV + i] = 0;', what: 'all-or-nothing successes vanish' },
+  { id: 'rhs-unvaccinated-frozen', file: S, find: 'const u = atStart[i] - rates[i] * sinceStart;', replace: 'const u = atStart[i];', what: 'the unvaccinated do not fall within a segment' },
   { id: 'rhs-leaky-risk', file: S, find: "v.protection === 'leaky' ? 1 - v.efficacyAgainstInfection : 1", replace: "v.protection === 'leaky' ? v.efficacyAgainstInfection : 1", what: 'leaky risk e instead of 1 - e' },
   { id: 'rhs-no-clip', file: S, find: 'infectious[j] = sum > 0 ? sum : 0;', replace: 'infectious[j] = sum;', what: 'negative infectious dips not clipped' },
   { id: 'rhs-latent-chain-rate', file: S, find: 'dydt[at] = aE * (y[at - n] - y[at]);', replace: 'dydt[at] = aI * (y[at - n] - y[at]);', what: 'later latent stages at the infectious rate' },
@@ -85,7 +85,9 @@ export const MUTANTS: Mutant[] = [
   // Daily record
   { id: 'io-no-stable-cap', file: I, find: 'return Math.min(DEFAULT_TOLERANCES.maxStep, (0.75 * REAL_STABILITY_BOUNDARY) / Math.max(...rates));', replace: 'return DEFAULT_TOLERANCES.maxStep;', what: 'no stability cap on the step' },
   { id: 'io-prevalence-e-only', file: I, find: 'for (let k = 0; k < infectedBlocks; k++)', replace: 'for (let k = 0; k < L.latentStages; k++)', what: 'prevalence counts E only' },
-  { id: 'io-eff-susceptible', file: I, find: 'const eff = s + y[oW + i] + risk * y[oP + i];', replace: 'const eff = s + y[oW + i] + y[oP + i];', what: 'R(t) counts protected people at full risk' },
+  { id: 'io-infections-protected', file: I, find: 'x -= w + pr + (oV >= 0 ? y[oV + i] : 0);', replace: 'x -= w + (oV >= 0 ? y[oV + i] : 0);', what: 'infections derived as if the protected had been infected' },
+  { id: 'io-infections-immune', file: I, find: 'x -= w + pr + (oV >= 0 ? y[oV + i] : 0);', replace: 'x -= w + pr;', what: 'infections derived as if the vaccine-immune had been infected' },
+  { id: 'io-eff-susceptible', file: I, find: 'const eff = s + w + risk * pr;', replace: 'const eff = s + w + pr;', what: 'R(t) counts protected people at full risk' },
   // The integrator skips an output time that falls exactly on a step's end; each segment's last step ends on its last day.
   { id: 'io-last-day', file: D, find: 'if (out < outputs && outputTimes[out] <= tNew) {', replace: 'if (out < outputs && outputTimes[out] < tNew) {', what: 'last day of each segment not recorded' },
   // Next-generation matrix

@@ -1,6 +1,6 @@
 /**
- * Day 0 of a scenario: S = N (1 - immune) - seeds (floored at 0), R = N immune, the seeds in the
- * first latent or infectious stage; with vaccination blocks, everyone unvaccinated (U = N).
+ * Day 0 of a scenario: S = N (1 - immune) - seeds (floored at 0), R = N immune (where the layout
+ * has R), the seeds in the first latent or infectious stage; nobody vaccinated yet.
  */
 import type { Scenario } from './scenario.ts';
 import type { StateLayout } from './seir.ts';
@@ -25,9 +25,8 @@ export function initialStateOf(s: Scenario, layout: StateLayout): Float64Array {
   const init = s.initialState;
   y.set(initialSusceptibleOf(s), layout.susceptible);
   for (let i = 0; i < layout.bands; i++) {
-    y[layout.recovered + i] = immuneOnDayZero(s, i);
+    if (layout.recovered >= 0) y[layout.recovered + i] = immuneOnDayZero(s, i);
     y[(init.infectedCompartment === 'latent' ? layout.latent : layout.infectious) + i] = init.infectedPersons[i];
-    if (layout.unvaccinated >= 0) y[layout.unvaccinated + i] = s.populationPersons[i];
   }
   return y;
 }

@@ -9,6 +9,7 @@ import type { Segment } from './segments.ts';
 import type { Phase } from './scenario.ts';
 import type { TriggeredMeasures } from './triggeredMeasures.ts';
 import type { PreparedCampaign } from './vaccination/prepareCampaign.ts';
+import { Unvaccinated } from './vaccination/unvaccinated.ts';
 
 /**
  * Daily state on days 0..H by band (band-major rows), negative rounding noise clipped to 0.
@@ -44,10 +45,11 @@ function largestStableStep(p: PreparedScenario, campaign: PreparedCampaign | nul
 /** Error tolerances that override the integrator's defaults (relative; absolute, persons). */
 export type Accuracy = Partial<Pick<Tolerances, 'relative' | 'absolute'>>;
 
-/** The state components the daily record and the triggers read: S, E and I stages, and X, W, P, Xp with vaccination. */
+/** The state components the daily record and the triggers read: S, E and I stages, and W, P, Xp, V with vaccination. */
 function denseComponentsOf(L: StateLayout): Int32Array {
   const blocks = [L.susceptible, ...Array.from({ length: L.latentStages + L.infectiousStages }, (_, k) => L.latent + k * L.bands)];
-  if (L.waiting >= 0) blocks.push(L.cumulative, L.waiting, L.protectedSusceptible, L.protectedInfections);
+  if (L.waiting >= 0) blocks.push(L.waiting, L.protectedSusceptible, L.protectedInfections);
+  if (L.vaccineImmune >= 0) blocks.push(L.vaccineImmune);
   return Int32Array.from(blocks.flatMap((b) => Array.from({ length: L.bands }, (_, i) => b + i)));
 }
 
@@ -66,9 +68,8 @@ export function integrateOption(
 ): DailyState {
   const n = p.bands.bands;
   const H = p.scenario.horizonDays;
-  const L = campaign === null ? p.layout : stateLayout(n, p.periods.latentStages, p.periods.infectiousStages, true);
-  // Without vaccination only S, E, I are integrated; X = S(0) - S (seir.ts, `counters`).
-  const counters = campaign !== null;
+  const L = campaign === null ? p.layout : stateLayout(n, p.periods.latentStages, p.periods.infectiousStages, campaign.vaccine.protection);
+  // X is not integrated: X = S(0) - S, and with vaccination X = (S + W + P + V)(0) - (S + W + P + V) (seir.ts).
   const s0 = p.initialSusceptible;
   const risk = campaign === null ? 1 : protectedRisk(campaign.vaccine);
   const rows = (H + 1) * n;
@@ -83,7 +84,7 @@ export function integrateOption(
     dosesToNonSusceptible: new Float64Array(n),
   };
   const { susceptible, effectiveSusceptible, prevalence, cumulative, protectedCumulative } = daily;
-  const { susceptible: oS, latent: oE, cumulative: oX, waiting: oW, protectedSusceptible: oP, protectedInfections: oXp } = L;
+  const { susceptible: oS, latent: oE, waiting: oW, protectedSusceptible: oP, vaccineImmune: oV, protectedInfections: oXp } = L;
   const infectedBlocks = L.latentStages + L.infectiousStages;
   const record = (day: number, y: Float64Array): void => {
     const base = day * n;
@@ -93,21 +94,24 @@ export function integrateOption(
       for (let k = 0; k < infectedBlocks; k++) infected += y[oE + k * n + i];
       susceptible[base + i] = s > 0 ? s : 0;
       prevalence[base + i] = infected > 0 ? infected : 0;
-      const x = counters ? y[oX + i] : s0[i] - s;
-      cumulative[base + i] = x > 0 ? x : 0;
+      let x = s0[i] - s;
       if (oW >= 0) {
-        const eff = s + y[oW + i] + risk * y[oP + i];
+        const w = y[oW + i];
+        const pr = y[oP + i];
+        x -= w + pr + (oV >= 0 ? y[oV + i] : 0);
+        const eff = s + w + risk * pr;
         effectiveSusceptible[base + i] = eff > 0 ? eff : 0;
         const xp = y[oXp + i];
         protectedCumulative[base + i] = xp > 0 ? xp : 0;
       }
+      cumulative[base + i] = x > 0 ? x : 0;
     }
   };
   const y = campaign === null ? p.initialState.slice(0, L.active) : initialStateOf(p.scenario, L);
   record(0, y);
   const transmission = new Float64Array(n * n);
-  const doseRates = new Float64Array(n);
-  const rhs = seirRightHandSide(L, p.periods.latentPeriodDays, p.periods.infectiousPeriodDays, transmission, campaign?.vaccine ?? null, doseRates, counters);
+  const doses = campaign === null ? null : new Unvaccinated(p.scenario.populationPersons);
+  const rhs = seirRightHandSide(L, p.periods.latentPeriodDays, p.periods.infectiousPeriodDays, transmission, campaign?.vaccine ?? null, doses, false);
   const ws = new IntegratorWorkspace(y.length);
   const tolerances = { ...DEFAULT_TOLERANCES, ...accuracy, maxStep: largestStableStep(p, campaign) };
   const days = new Float64Array(H);
@@ -118,7 +122,7 @@ export function integrateOption(
     const sink = (t: number, state: Float64Array): void => record(Math.round(t), state);
     for (const seg of segments) {
       transmission.set(seg.transmission);
-      doseRates.set(seg.doseRates);
+      doses?.enter(seg.fromDay, seg.doseRates);
       step = integrate(rhs, y, seg.fromDay, seg.toDay, days, sink, ws, tolerances, Math.min(tolerances.maxStep, Math.max(step, 0.05)), dense, L.active);
     }
   } else {
@@ -130,7 +134,7 @@ export function integrateOption(
       return d < H && measures.atDay(d, state, daily);
     };
     for (const seg of segments) {
-      doseRates.set(seg.doseRates);
+      doses?.enter(seg.fromDay, seg.doseRates);
       let from = seg.fromDay;
       while (from < seg.toDay) {
         transmission.set(measures.transmissionWith(fixedPhaseAt(from)));
