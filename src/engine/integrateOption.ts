@@ -137,9 +137,10 @@ export function integrateOption(
       doses?.enter(seg.fromDay, seg.doseRates);
       let from = seg.fromDay;
       while (from < seg.toDay) {
-        transmission.set(measures.transmissionWith(fixedPhaseAt(from)));
+        const inForce = measures.transmissionWith(fixedPhaseAt(from));
+        transmission.set(inForce);
         const measuresChange = (from === seg.fromDay && seg.measuresChange) || switched;
-        realized.push({ fromDay: from, toDay: seg.toDay, transmission: transmission.slice(), doseRates: seg.doseRates, measuresChange });
+        realized.push({ fromDay: from, toDay: seg.toDay, transmission: inForce, doseRates: seg.doseRates, measuresChange });
         step = integrate(rhs, y, from, seg.toDay, days, sink, ws, tolerances, Math.min(tolerances.maxStep, Math.max(step, 0.05)), dense, L.active);
         switched = ws.stoppedAt !== null;
         from = ws.stoppedAt ?? seg.toDay;

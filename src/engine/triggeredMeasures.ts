@@ -1,13 +1,15 @@
 /**
  * Runs an option's triggers during integration: reads the monitored quantities from the state on
- * each whole day, keeps the hospital model up to date day by day, applies the trigger rule
- * (triggers.ts) and gives the transmission matrix for the measures then in force.
+ * each whole day, keeps the hospital model up to date day by day (when a trigger reads it),
+ * applies the trigger rule (triggers.ts) and gives the transmission matrix for the measures then
+ * in force.
  */
-import { OnlineHospitalDemand } from './healthcare/online.ts';
+import { type HospitalQuantity, OnlineHospitalDemand } from './healthcare/online.ts';
+import { phaseTransmission } from './phaseTransmission.ts';
 import type { PreparedScenario } from './prepare.ts';
-import type { Phase, PolicyOption, TriggerQuantity } from './scenario.ts';
+import { HOSPITAL_TRIGGER_QUANTITIES, type Phase, type PolicyOption, type TriggerQuantity } from './scenario.ts';
+import { type BandParameters, transmissionMatrixOfPhasesInto } from './transmission.ts';
 import { TriggerController } from './triggers.ts';
-import { transmissionMatrixOfPhasesInto } from './transmission.ts';
 
 /** Cumulative infections by band at day d (persons), as recorded by the integration. */
 export interface CumulativeRecord {
@@ -15,14 +17,48 @@ export interface CumulativeRecord {
   protectedCumulative: Float64Array;
 }
 
+function isHospitalQuantity(q: TriggerQuantity): q is HospitalQuantity {
+  return HOSPITAL_TRIGGER_QUANTITIES.includes(q);
+}
+
+/**
+ * M under several phases at once, per prepared scenario (keyed like phaseTransmission.ts, by its
+ * band parameters), then by the option's phase list and the indices of the phases in force: the
+ * few combinations a trigger produces are built once, not on every switch of every run.
+ */
+const combinationsOf = new WeakMap<BandParameters, WeakMap<readonly Phase[], Map<string, Float64Array>>>();
+
+function combinedTransmission(p: PreparedScenario, phases: readonly Phase[], inForce: readonly number[]): Float64Array {
+  let byOption = combinationsOf.get(p.bands);
+  if (byOption === undefined) {
+    byOption = new WeakMap();
+    combinationsOf.set(p.bands, byOption);
+  }
+  let byKey = byOption.get(phases);
+  if (byKey === undefined) {
+    byKey = new Map();
+    byOption.set(phases, byKey);
+  }
+  const key = inForce.join(',');
+  let m = byKey.get(key);
+  if (m === undefined) {
+    const n = p.bands.bands;
+    m = transmissionMatrixOfPhasesInto(new Float64Array(n * n), p.scenario, p.bands, p.beta, inForce.map((k) => phases[k]));
+    byKey.set(key, m);
+  }
+  return m;
+}
+
 export class TriggeredMeasures {
   readonly controller: TriggerController;
+  /** The hospital model, when a trigger reads it. */
   private readonly hospital: OnlineHospitalDemand | null;
-  private readonly dayInfections: Float64Array;
   /** Day's infections weighted by protected people's relative risk of admission. */
   private readonly weighted: Float64Array;
-  private readonly totalPopulation: number;
+  private readonly per100k: number;
+  private readonly phases: readonly Phase[];
   private state: Float64Array | null = null;
+  private record: CumulativeRecord | null = null;
   private day = 0;
 
   constructor(
@@ -31,48 +67,54 @@ export class TriggeredMeasures {
     private readonly admissionRiskFactor: number,
   ) {
     this.controller = new TriggerController(option);
-    this.hospital = p.healthcare === null ? null : new OnlineHospitalDemand(p.healthcare);
-    this.dayInfections = new Float64Array(p.bands.bands);
+    this.phases = option.phases;
+    const hospitalReads = option.phases.flatMap((phase) => (phase.trigger !== undefined && isHospitalQuantity(phase.trigger.quantity) ? [phase.trigger.quantity] : []));
+    this.hospital = p.healthcare === null || hospitalReads.length === 0 ? null : new OnlineHospitalDemand(p.healthcare, hospitalReads);
     this.weighted = new Float64Array(p.bands.bands);
     let total = 0;
     for (const x of p.bands.population) total += x;
-    this.totalPopulation = total;
-  }
-
-  /** M (per day) under the fixed phase `fixed` and the triggered phases in force now. */
-  transmissionWith(fixed: Phase | null): Float64Array {
-    const n = this.p.bands.bands;
-    const phases = fixed === null ? this.controller.phasesInForce() : [fixed, ...this.controller.phasesInForce()];
-    return transmissionMatrixOfPhasesInto(new Float64Array(n * n), this.p.scenario, this.p.bands, this.p.beta, phases);
+    this.per100k = 1e5 / total;
   }
 
   /**
-   * At whole day d, once day d is recorded: completes day d-1 (infections, hospital demand), then
-   * applies the trigger rule. True when the triggered measures change at time d.
+   * M (per day) under the fixed phase `fixed` and the triggered phases in force now; shared by
+   * every run (phaseTransmission.ts for a single phase), do not write to it.
+   */
+  transmissionWith(fixed: Phase | null): Float64Array {
+    const triggered = this.controller.indicesInForce();
+    if (triggered.length === 0) return phaseTransmission(this.p, fixed);
+    if (fixed === null && triggered.length === 1) return phaseTransmission(this.p, this.phases[triggered[0]]);
+    return combinedTransmission(this.p, this.phases, fixed === null ? triggered : [this.phases.indexOf(fixed), ...triggered]);
+  }
+
+  /**
+   * At whole day d, once day d is recorded: completes day d-1 (hospital demand, when a trigger
+   * reads it), then applies the trigger rule. True when the triggered measures change at time d.
    */
   atDay(d: number, y: Float64Array, record: CumulativeRecord): boolean {
-    if (d > 0) this.completeDay(d - 1, record);
+    if (d > 0 && this.hospital !== null) this.completeDay(d - 1, record);
     this.state = y;
+    this.record = record;
     this.day = d;
     return this.controller.decide(d, this.read);
   }
 
-  /** New infections of day a (a = d-1) by band: the reported daily series (seeds on day 0). */
+  /** New infections of day a (a = d-1) by band, weighted by the risk of admission, into the hospital model. */
   private completeDay(a: number, record: CumulativeRecord): void {
     const n = this.p.bands.bands;
-    const x = this.dayInfections;
+    const { cumulative, protectedCumulative } = record;
+    const seeds = this.p.seeds;
+    const cut = 1 - this.admissionRiskFactor;
     for (let i = 0; i < n; i++) {
-      const inc = Math.max(0, record.cumulative[(a + 1) * n + i] - record.cumulative[a * n + i]) + (a === 0 ? this.p.seeds[i] : 0);
-      const prot = Math.max(0, record.protectedCumulative[(a + 1) * n + i] - record.protectedCumulative[a * n + i]);
-      x[i] = inc;
-      this.weighted[i] = Math.max(0, inc - (1 - this.admissionRiskFactor) * prot);
+      const inc = Math.max(0, cumulative[(a + 1) * n + i] - cumulative[a * n + i]) + (a === 0 ? seeds[i] : 0);
+      const prot = Math.max(0, protectedCumulative[(a + 1) * n + i] - protectedCumulative[a * n + i]);
+      this.weighted[i] = Math.max(0, inc - cut * prot);
     }
-    this.hospital?.addDay(this.weighted);
+    (this.hospital as OnlineHospitalDemand).addDay(this.weighted);
   }
 
   private readonly read = (quantity: TriggerQuantity): number => {
     const d = this.day;
-    const per100k = 1e5 / this.totalPopulation;
     switch (quantity) {
       case 'infectiousPer100k': {
         // The infectious stages sit at the same offsets with or without vaccination blocks (seir.ts).
@@ -80,20 +122,19 @@ export class TriggeredMeasures {
         const y = this.state as Float64Array;
         let infectious = 0;
         for (let k = L.infectious; k < L.infectious + L.infectiousStages * L.bands; k++) infectious += Math.max(0, y[k]);
-        return infectious * per100k;
+        return infectious * this.per100k;
       }
       case 'dailyInfectionsPer100k': {
+        // New infections of day d-1 (the reported daily series, seeds on day 0).
         if (d === 0) return 0;
+        const n = this.p.bands.bands;
+        const cumulative = (this.record as CumulativeRecord).cumulative;
         let total = 0;
-        for (const x of this.dayInfections) total += x;
-        return total * per100k;
+        for (let i = 0; i < n; i++) total += Math.max(0, cumulative[d * n + i] - cumulative[(d - 1) * n + i]) + (d === 1 ? this.p.seeds[i] : 0);
+        return total * this.per100k;
       }
-      case 'dailyAdmissions':
-        return d === 0 || this.hospital === null ? 0 : this.hospital.admissions[d - 1];
-      case 'wardOccupancy':
-        return d === 0 || this.hospital === null ? 0 : this.hospital.wardOccupancy[d - 1];
-      case 'icuOccupancy':
-        return d === 0 || this.hospital === null ? 0 : this.hospital.icuOccupancy[d - 1];
+      default:
+        return d === 0 || this.hospital === null ? 0 : this.hospital.valueOn(quantity, d - 1);
     }
   };
 }

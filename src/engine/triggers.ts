@@ -53,9 +53,9 @@ export class TriggerController {
     );
   }
 
-  /** The triggered phases in force now. */
-  phasesInForce(): Phase[] {
-    return this.triggered.filter((t) => t.inForce).map((t) => t.phase);
+  /** Indices (in the option's `phases`) of the triggered phases in force now, ascending. */
+  indicesInForce(): number[] {
+    return this.triggered.filter((t) => t.inForce).map((t) => t.index);
   }
 
   /**
@@ -76,8 +76,9 @@ export class TriggerController {
         t.pending = null;
       } else if (t.pending === null) {
         const { onAbove, offBelow, minimumDaysOn, lagDays } = t.trigger;
-        const value = read(t.trigger.quantity);
-        const switchTo = !t.inForce ? (value > onAbove ? true : null) : d - t.onSince >= minimumDaysOn && value < offBelow ? false : null;
+        // The quantity is read only where it can decide (not while minimumDaysOn holds the measures).
+        const { quantity } = t.trigger;
+        const switchTo = !t.inForce ? (read(quantity) > onAbove ? true : null) : d - t.onSince >= minimumDaysOn && read(quantity) < offBelow ? false : null;
         if (switchTo !== null) {
           if (lagDays === 0) {
             t.inForce = switchTo;
