@@ -8,6 +8,7 @@
  * Lanczos 1964, SIAM J Numer Anal B 1:86; coefficients as commonly tabulated, from memory,
  * checked against Gamma(n) = (n-1)! in test/engine/distributions.test.ts).
  */
+import { pairedConvolution } from './pairedConvolution.ts';
 
 const LANCZOS = [
   0.99999999999980993, 676.5203681218851, -1259.1392167224028, 771.32342877765313, -176.61502916214059,
@@ -103,11 +104,32 @@ export function convolve(series: Float64Array, weights: Float64Array): Float64Ar
  * x[a] and each weight is loaded once for four products and the four accumulators are
  * independent, so the floating-point adds overlap (about three times the day-by-day loop's
  * speed); every day keeps its own sum in its own order, so the result equals the day-by-day loop
- * bit for bit (test/engine/postprocessing.test.ts).
+ * bit for bit (test/engine/postprocessing.test.ts). Where WebAssembly's two-double lanes are
+ * available (pairedConvolution.ts), a series of finite values goes through them instead, with the
+ * same sums in the same order, at about twice the speed again.
  */
 export function convolveInto(out: Float64Array, series: Float64Array, weights: Float64Array): Float64Array {
   const days = series.length;
   const K = usedLength(weights);
+  const lanes = days >= LANE_MINIMUM_DAYS && K >= 4 && allFinite(series) ? pairedConvolution() : null;
+  if (lanes !== null) {
+    lanes(out, series, weights, K);
+    return out;
+  }
+  return scalarConvolveInto(out, series, weights, K);
+}
+
+/** Series shorter than this are convolved by the scalar loop (the lanes' copying is not worth it). */
+const LANE_MINIMUM_DAYS = 16;
+
+function allFinite(series: Float64Array): boolean {
+  for (let d = 0; d < series.length; d++) if (!Number.isFinite(series[d])) return false;
+  return true;
+}
+
+/** `convolveInto` without the lanes, over the first K weights: the reference the lanes must equal. */
+export function scalarConvolveInto(out: Float64Array, series: Float64Array, weights: Float64Array, K = usedLength(weights)): Float64Array {
+  const days = series.length;
   let d = 0;
   if (K >= 4) {
     for (; d + 3 < days; d += 4) {

@@ -9,7 +9,8 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { totalOverBands, weightedBandSum } from '../../src/engine/bandTotals.ts';
-import { convolve } from '../../src/engine/distributions.ts';
+import { convolve, scalarConvolveInto } from '../../src/engine/distributions.ts';
+import { pairedConvolution } from '../../src/engine/pairedConvolution.ts';
 import { healthcareDemand, healthcareDemandOfRun } from '../../src/engine/healthcare/demand.ts';
 import { measureBurden } from '../../src/engine/measureBurden.ts';
 import { prepareScenario } from '../../src/engine/prepare.ts';
@@ -107,19 +108,26 @@ describe('post-processing of an option run', () => {
     }
   });
 
-  it('the blocked convolution equals the day-by-day sum bit for bit, for every kernel and series length', () => {
+  it('the blocked convolution and the two-lane one equal the day-by-day sum bit for bit, for every kernel and series length', () => {
+    expect(pairedConvolution(), 'WebAssembly lanes in Node').not.toBeNull();
     const byDay = (series: Float64Array, w: Float64Array): Float64Array =>
       series.map((_, d) => {
         let acc = 0;
         for (let a = Math.max(0, d - w.length + 1); a <= d; a++) acc += series[a] * w[d - a];
         return acc;
       });
-    for (const days of [0, 1, 3, 4, 5, 7, 8, 9, 40]) {
-      for (const length of [0, 1, 2, 3, 4, 5, 6, 11, 39, 40, 41, 60]) {
+    for (const days of [0, 1, 3, 4, 5, 7, 8, 9, 15, 16, 17, 23, 24, 40, 365]) {
+      for (const length of [0, 1, 2, 3, 4, 5, 6, 7, 8, 9, 11, 39, 40, 41, 60, 129, 400]) {
         const series = Float64Array.from({ length: days }, (_, d) => Math.exp(Math.sin(d * 1.3)) * 10 ** ((d % 7) - 3));
         const w = Float64Array.from({ length }, (_, k) => Math.exp(-k / 4) / 3 + 1e-9 * k);
-        expect(Array.from(convolve(series, w)), `${days} days, kernel ${length}`).toStrictEqual(Array.from(byDay(series, w)));
+        const wanted = Array.from(byDay(series, w));
+        expect(Array.from(convolve(series, w)), `${days} days, kernel ${length}`).toStrictEqual(wanted);
+        expect(Array.from(scalarConvolveInto(new Float64Array(days), series, w)), `scalar, ${days} days, kernel ${length}`).toStrictEqual(wanted);
       }
     }
+    // A series that is not finite everywhere keeps the days its infinity does not reach finite.
+    const series = Float64Array.from({ length: 100 }, (_, d) => (d === 60 ? Infinity : 1 + d));
+    const w = Float64Array.from({ length: 10 }, (_, k) => 0.1 * (k + 1));
+    expect(Array.from(convolve(series, w))).toStrictEqual(Array.from(byDay(series, w)));
   });
 });
