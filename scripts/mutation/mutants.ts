@@ -87,6 +87,8 @@ export const MUTANTS: Mutant[] = [
   { id: 'io-prevalence-e-only', file: I, find: 'for (let k = 0; k < infectedBlocks; k++)', replace: 'for (let k = 0; k < L.latentStages; k++)', what: 'prevalence counts E only' },
   { id: 'io-infections-protected', file: I, find: 'x -= w + pr + (oV >= 0 ? y[oV + i] : 0);', replace: 'x -= w + (oV >= 0 ? y[oV + i] : 0);', what: 'infections derived as if the protected had been infected' },
   { id: 'io-infections-immune', file: I, find: 'x -= w + pr + (oV >= 0 ? y[oV + i] : 0);', replace: 'x -= w + pr;', what: 'infections derived as if the vaccine-immune had been infected' },
+  { id: 'io-protected-units', file: I, find: 'const xp = y[oXp + i] * unit[i];', replace: 'const xp = y[oXp + i];', what: 'protected infections read in the state\'s units, not persons' },
+  { id: 'rhs-quadratures-in-persons', file: S, find: '(persons > 0 ? persons / 100 : 1)', replace: '(persons > 0 ? 1 : 1)', what: 'Xp and Q in persons: the first step of each dose segment rejected' },
   { id: 'io-eff-susceptible', file: I, find: 'const eff = s + w + risk * pr;', replace: 'const eff = s + w + pr;', what: 'R(t) counts protected people at full risk' },
   // The integrator skips an output time that falls exactly on a step's end; each segment's last step ends on its last day.
   { id: 'io-last-day', file: D, find: 'if (out < outputs && outputTimes[out] <= tNew) {', replace: 'if (out < outputs && outputTimes[out] < tNew) {', what: 'last day of each segment not recorded' },

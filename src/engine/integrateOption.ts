@@ -4,7 +4,7 @@
 import { DEFAULT_TOLERANCES, integrate, IntegratorWorkspace, REAL_STABILITY_BOUNDARY, type Tolerances } from './integrator.ts';
 import { initialStateOf } from './initialState.ts';
 import type { PreparedScenario } from './prepare.ts';
-import { protectedRisk, seirRightHandSide, type StateLayout, stateLayout } from './seir.ts';
+import { protectedRisk, quadratureUnits, seirRightHandSide, type StateLayout, stateLayout } from './seir.ts';
 import type { Segment } from './segments.ts';
 import type { Phase } from './scenario.ts';
 import type { TriggeredMeasures } from './triggeredMeasures.ts';
@@ -72,6 +72,8 @@ export function integrateOption(
   // X is not integrated: X = S(0) - S, and with vaccination X = (S + W + P + V)(0) - (S + W + P + V) (seir.ts).
   const s0 = p.initialSusceptible;
   const risk = campaign === null ? 1 : protectedRisk(campaign.vaccine);
+  // Xp and Q are held in units of 1% of the band (seir.ts).
+  const unit = quadratureUnits(p.scenario.populationPersons);
   const rows = (H + 1) * n;
   const susceptibleRows = new Float64Array(rows);
   const daily: DailyState = {
@@ -101,7 +103,7 @@ export function integrateOption(
         x -= w + pr + (oV >= 0 ? y[oV + i] : 0);
         const eff = s + w + risk * pr;
         effectiveSusceptible[base + i] = eff > 0 ? eff : 0;
-        const xp = y[oXp + i];
+        const xp = y[oXp + i] * unit[i];
         protectedCumulative[base + i] = xp > 0 ? xp : 0;
       }
       cumulative[base + i] = x > 0 ? x : 0;
@@ -148,6 +150,6 @@ export function integrateOption(
       }
     }
   }
-  if (L.dosesToNonSusceptible >= 0) for (let i = 0; i < n; i++) daily.dosesToNonSusceptible[i] = Math.max(0, y[L.dosesToNonSusceptible + i]);
+  if (L.dosesToNonSusceptible >= 0) for (let i = 0; i < n; i++) daily.dosesToNonSusceptible[i] = Math.max(0, y[L.dosesToNonSusceptible + i] * unit[i]);
   return daily;
 }

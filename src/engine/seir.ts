@@ -33,7 +33,8 @@
  *   R_i = N_i - (S + W + P + V + E + I)_i,   X_i = (S + W + P + V)_i(0) - (S + W + P + V)_i(t),
  * and V is integrated only for all-or-nothing protection. U is piecewise linear in t
  * (vaccination/unvaccinated.ts) and read at the stage time. The integrated state is then
- * S, E.., I.., W, P (read by the right-hand side) and Xp, Q, V (quadratures, only written).
+ * S, E.., I.., W, P (read by the right-hand side) and Xp, Q, V (quadratures, only written). Xp and
+ * Q are held in units of 1% of the band's population (`quadratureUnits`), the rest in persons.
  * Infection flows use max(0, .) of S, W, P and I: the integrator's error control lets an empty
  * compartment dip below zero by about its absolute tolerance, and with R > 1 such a dip would
  * otherwise seed an exponentially growing "negative epidemic". Stage exits use the values as
@@ -117,6 +118,20 @@ export function stateLayout(bands: number, latentStages: number, infectiousStage
   };
 }
 
+/**
+ * Persons per unit of the quadratures Xp and Q in each band: 1% of the band's population (1 person
+ * in an empty band). The integrator's absolute tolerance (1e-6 in the state's units) then stands
+ * for 1e-8 of the band on them rather than 1e-6 persons. They are read only next to quantities of
+ * the band's size (infections of the protected against all infections, for deaths and admissions;
+ * doses to non-susceptibles against all doses), whose errors are controlled relative to the band
+ * (S is near N_i for most of a run). Counted in persons, Xp and Q of a band that has just started
+ * receiving doses are below 1e-3 for a day, and their error estimate rejected the first step of
+ * most dose-plan segments (16 of the demo campaign's 140 steps).
+ */
+export function quadratureUnits(population: ArrayLike<number>): Float64Array {
+  return Float64Array.from(population, (persons) => (persons > 0 ? persons / 100 : 1));
+}
+
 /** Vaccine properties the right-hand side needs. */
 export interface VaccineEffect {
   efficacyAgainstInfection: number;
@@ -170,6 +185,7 @@ export function seirRightHandSide(
   const { susceptible: oS, latent: oE, infectious: oI, recovered: oR, cumulative: oX, latentStages: kE, infectiousStages: kI } = L;
   const { waiting: oW, protectedSusceptible: oP, vaccineImmune: oV, protectedInfections: oXp, dosesToNonSusceptible: oQ } = L;
   const { rates, atStart } = unvaccinated;
+  const perUnit = quadratureUnits(unvaccinated.population).map((unit) => 1 / unit);
   return (t: number, y: Float64Array, dydt: Float64Array): void => {
     for (let j = 0; j < n; j++) {
       let sum = 0;
@@ -199,8 +215,8 @@ export function seirRightHandSide(
           dydt[oP + i] = (1 - efficacy) * protecting - protectedFlow;
           dydt[oV + i] = efficacy * protecting;
         }
-        dydt[oXp + i] = protectedFlow;
-        dydt[oQ + i] = v - toWaiting;
+        dydt[oXp + i] = perUnit[i] * protectedFlow;
+        dydt[oQ + i] = perUnit[i] * (v - toWaiting);
         flow += lambda * w + protectedFlow;
       } else {
         dydt[oS + i] = -flow;

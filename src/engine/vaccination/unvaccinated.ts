@@ -14,8 +14,11 @@ export class Unvaccinated {
   readonly atStart: Float64Array;
   /** t0, the current segment's start, days. */
   fromDay = 0;
+  /** N_i, persons: everyone is unvaccinated on day 0. */
+  readonly population: Float64Array;
 
   constructor(population: ArrayLike<number>) {
+    this.population = Float64Array.from(population);
     this.atStart = Float64Array.from(population);
     this.rates = new Float64Array(population.length);
   }
