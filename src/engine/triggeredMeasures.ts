@@ -105,11 +105,13 @@ export class TriggeredMeasures {
     const { cumulative, protectedCumulative } = record;
     const seeds = this.p.seeds;
     const cut = 1 - this.admissionRiskFactor;
-    for (let i = 0; i < n; i++) {
-      const inc = Math.max(0, cumulative[(a + 1) * n + i] - cumulative[a * n + i]) + (a === 0 ? seeds[i] : 0);
-      const prot = Math.max(0, protectedCumulative[(a + 1) * n + i] - protectedCumulative[a * n + i]);
-      this.weighted[i] = Math.max(0, inc - cut * prot);
-    }
+    const x = this.weighted;
+    const now = (a + 1) * n;
+    const before = a * n;
+    for (let i = 0; i < n; i++) x[i] = Math.max(0, cumulative[now + i] - cumulative[before + i]);
+    if (a === 0) for (let i = 0; i < n; i++) x[i] += seeds[i];
+    // inc - 0 x prot is inc (>= 0): nothing to weigh without a protection that cuts admissions.
+    if (cut !== 0) for (let i = 0; i < n; i++) x[i] = Math.max(0, x[i] - cut * Math.max(0, protectedCumulative[now + i] - protectedCumulative[before + i]));
     (this.hospital as OnlineHospitalDemand).addDay(this.weighted);
   }
 

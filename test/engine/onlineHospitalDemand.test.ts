@@ -2,11 +2,12 @@
  * The hospital demand a trigger reads (healthcare/online.ts, formed only for the quantities and
  * days read) equals the demand the finished run reports (healthcare/demand.ts), whichever days are
  * read: bit for bit with one delay group, within 1e-12 relative with three (the groups' sums are
- * added in another grouping there).
+ * added in another grouping there). And the one-pass pair of sums equals two `convolvedAt` calls
+ * bit for bit, for every pair of kernel lengths, empty kernels included.
  */
 import { describe, expect, it } from 'vitest';
 import { healthcareDemand } from '../../src/engine/healthcare/demand.ts';
-import { type HospitalQuantity, OnlineHospitalDemand } from '../../src/engine/healthcare/online.ts';
+import { convolvedAt, convolvedTwiceAt, type HospitalQuantity, OnlineHospitalDemand } from '../../src/engine/healthcare/online.ts';
 import { prepareScenario } from '../../src/engine/prepare.ts';
 import { demoScenario } from '../helpers/demo.ts';
 import { syntheticInfections, withDelaysByBand } from './fixtures/postprocessingCases.ts';
@@ -56,5 +57,27 @@ describe('hospital demand read by triggers', () => {
     const online = new OnlineHospitalDemand(prepareScenario(demo).healthcare!, ['icuOccupancy']);
     online.addDay(x.subarray(0, n));
     expect(() => online.valueOn('icuOccupancy', 1)).toThrow('hospital demand of day 1 asked before its infections were added');
+  });
+});
+
+describe('admissions and occupancy of a day in one pass', () => {
+  it('equal the two sums taken one after the other, bit for bit', () => {
+    const days = 30;
+    const x = Float64Array.from({ length: days }, (_, d) => Math.exp(Math.sin(d * 1.7)) * 10 ** ((d % 5) - 2));
+    const kernel = (length: number, scale: number) => Float64Array.from({ length }, (_, k) => Math.exp(-k / scale) / 3 + 1e-9 * k);
+    for (const lengthW of [0, 1, 2, 3, 7, 12, 40]) {
+      for (const lengthV of [0, 1, 2, 5, 12, 13, 40]) {
+        const w = kernel(lengthW, 4);
+        const v = kernel(lengthV, 6);
+        const apart = new Float64Array(days);
+        const together = new Float64Array(days);
+        for (let e = 0; e < days; e++) {
+          apart[e] = convolvedAt(x, w, e);
+          const occupancy = convolvedTwiceAt(x, w, together, v, e);
+          expect(together[e], `lengths ${lengthW}, ${lengthV}, day ${e}`).toBe(apart[e]);
+          expect(occupancy, `lengths ${lengthW}, ${lengthV}, day ${e}`).toBe(convolvedAt(apart, v, e));
+        }
+      }
+    }
   });
 });

@@ -11,7 +11,8 @@
  * admissions feed later occupancy), then forms that day's occupancy alone (one sum over the
  * bed-day kernel; occupancy of a day nobody reads is never needed). An ICU trigger thus costs two
  * kernel sums a day (ICU admissions, ICU occupancy) instead of the five of the full demand; the
- * ward-only series are formed only for admissions and ward occupancy.
+ * ward-only series are formed only for admissions and ward occupancy. On a day read right after
+ * the one before, the day's admissions and occupancy are summed in one pass (`convolvedTwiceAt`).
  */
 import type { TriggerQuantity } from '../scenario.ts';
 import type { PreparedHealthcare } from './prepareHealthcare.ts';
@@ -20,15 +21,41 @@ import type { PreparedHealthcare } from './prepareHealthcare.ts';
 export type HospitalQuantity = Extract<TriggerQuantity, 'dailyAdmissions' | 'wardOccupancy' | 'icuOccupancy'>;
 
 /** sum_{a <= d} x(a) w(d - a): day d of the causal convolution of x with w. */
-function convolvedAt(x: Float64Array, w: Float64Array, d: number): number {
+export function convolvedAt(x: Float64Array, w: Float64Array, d: number): number {
   let acc = 0;
   const start = Math.max(0, d - w.length + 1);
   for (let a = start; a <= d; a++) acc += x[a] * w[d - a];
   return acc;
 }
 
+/**
+ * Day e of y = x * w, stored in y[e], and returns day e of y * v: one pass, two sums. Each adds its
+ * terms in the order `convolvedAt` does (a ascending, one accumulator: the same bits), but the two
+ * chains of adds are independent, so they overlap instead of each waiting on its own previous add.
+ * y's days before e must be formed; y[e] enters the second sum last, once the first has made it.
+ */
+export function convolvedTwiceAt(x: Float64Array, w: Float64Array, y: Float64Array, v: Float64Array, e: number): number {
+  const fromW = Math.max(0, e - w.length + 1);
+  const fromV = Math.max(0, e - v.length + 1);
+  let sumW = 0;
+  let sumV = 0;
+  let a = Math.min(fromW, fromV);
+  for (; a < fromW && a < e; a++) sumV += y[a] * v[e - a];
+  for (; a < fromV && a < e; a++) sumW += x[a] * w[e - a];
+  for (; a < e; a++) {
+    sumW += x[a] * w[e - a];
+    sumV += y[a] * v[e - a];
+  }
+  if (fromW <= e) sumW += x[e] * w[0];
+  y[e] = sumW;
+  if (fromV <= e) sumV += y[e] * v[0];
+  return sumV;
+}
+
 /** One delay group's daily series (persons); null where no trigger needs them. */
 interface GroupSeries {
+  /** The group's bands, ascending. */
+  bands: Int32Array;
   /** sum_{i in group} IHR_i (1 - c_i) x_i(d) and sum_{i in group} IHR_i c_i x_i(d). */
   wardOnlyInfections: Float64Array | null;
   icuInfections: Float64Array;
@@ -42,7 +69,6 @@ export class OnlineHospitalDemand {
   /** Days whose admissions are formed (days 0..admitted-1). */
   private admitted = 0;
   private readonly series: GroupSeries[];
-  private readonly groupOfBand: Int32Array;
 
   /** `reads`: the quantities the triggers will ask for. */
   constructor(
@@ -51,31 +77,33 @@ export class OnlineHospitalDemand {
   ) {
     const wardOnly = reads.some((q) => q !== 'icuOccupancy');
     const days = h.days;
-    this.series = h.groups.map(() => ({
+    this.series = h.groups.map((g) => ({
+      bands: Int32Array.from(g.bands),
       wardOnlyInfections: wardOnly ? new Float64Array(days) : null,
       icuInfections: new Float64Array(days),
       wardOnlyAdmissions: wardOnly ? new Float64Array(days) : null,
       icuAdmissions: new Float64Array(days),
     }));
-    this.groupOfBand = new Int32Array(h.bands);
-    h.groups.forEach((g, k) => {
-      for (const i of g.bands) this.groupOfBand[i] = k;
-    });
   }
 
   /**
    * Adds the next day's infections by band (persons, already weighted by the risk of admission of
-   * protected people). Each group sums its bands in ascending order, as demand.ts does.
+   * protected people). Each group sums its bands in ascending order, as demand.ts does, in a
+   * local sum (not in the stored day, whose every add would wait on the store before it).
    */
   addDay(infectionsByBand: Float64Array): void {
     const d = this.infected;
     if (d >= this.h.days) return;
     const { wardOnlyRatio, icuRatio } = this.h;
-    for (let i = 0; i < this.h.bands; i++) {
-      const g = this.series[this.groupOfBand[i]];
-      const x = infectionsByBand[i];
-      if (g.wardOnlyInfections !== null) g.wardOnlyInfections[d] += x * wardOnlyRatio[i];
-      g.icuInfections[d] += x * icuRatio[i];
+    for (const g of this.series) {
+      const { bands, wardOnlyInfections } = g;
+      let icu = 0;
+      for (let b = 0; b < bands.length; b++) icu += infectionsByBand[bands[b]] * icuRatio[bands[b]];
+      g.icuInfections[d] = icu;
+      if (wardOnlyInfections === null) continue;
+      let wardOnly = 0;
+      for (let b = 0; b < bands.length; b++) wardOnly += infectionsByBand[bands[b]] * wardOnlyRatio[bands[b]];
+      wardOnlyInfections[d] = wardOnly;
     }
     this.infected = d + 1;
   }
@@ -86,16 +114,28 @@ export class OnlineHospitalDemand {
    */
   valueOn(quantity: HospitalQuantity, e: number): number {
     if (e >= this.infected) throw new Error(`hospital demand of day ${e} asked before its infections were added`);
-    this.admitUpTo(e);
+    // Occupancy read on the first day whose admissions are not formed yet: both in one pass.
+    const fused = quantity !== 'dailyAdmissions' && this.admitted === e;
+    this.admitUpTo(fused ? e - 1 : e);
     const { groups } = this.h;
     let total = 0;
     for (let k = 0; k < groups.length; k++) {
       const g = groups[k];
       const s = this.series[k];
-      if (quantity === 'icuOccupancy') total += convolvedAt(s.icuAdmissions, g.icuBedDays, e);
-      else if (quantity === 'dailyAdmissions') total += (s.wardOnlyAdmissions as Float64Array)[e] + s.icuAdmissions[e];
-      else total += convolvedAt(s.wardOnlyAdmissions as Float64Array, g.wardBedDays, e) + convolvedAt(s.icuAdmissions, g.icuPatientWardBedDays, e);
+      const wardOnlyInfections = s.wardOnlyInfections as Float64Array;
+      const wardOnlyAdmissions = s.wardOnlyAdmissions as Float64Array;
+      if (quantity === 'dailyAdmissions') {
+        total += wardOnlyAdmissions[e] + s.icuAdmissions[e];
+      } else if (quantity === 'icuOccupancy') {
+        if (fused && s.wardOnlyAdmissions !== null) wardOnlyAdmissions[e] = convolvedAt(wardOnlyInfections, g.admission, e);
+        total += fused ? convolvedTwiceAt(s.icuInfections, g.admission, s.icuAdmissions, g.icuBedDays, e) : convolvedAt(s.icuAdmissions, g.icuBedDays, e);
+      } else {
+        total += fused
+          ? convolvedTwiceAt(wardOnlyInfections, g.admission, wardOnlyAdmissions, g.wardBedDays, e) + convolvedTwiceAt(s.icuInfections, g.admission, s.icuAdmissions, g.icuPatientWardBedDays, e)
+          : convolvedAt(wardOnlyAdmissions, g.wardBedDays, e) + convolvedAt(s.icuAdmissions, g.icuPatientWardBedDays, e);
+      }
     }
+    if (fused) this.admitted = e + 1;
     return total;
   }
 
