@@ -111,21 +111,13 @@ export function convolve(series: Float64Array, weights: Float64Array): Float64Ar
 export function convolveInto(out: Float64Array, series: Float64Array, weights: Float64Array): Float64Array {
   const days = series.length;
   const K = usedLength(weights);
-  const lanes = days >= LANE_MINIMUM_DAYS && K >= 4 && allFinite(series) ? pairedConvolution() : null;
-  if (lanes !== null) {
-    lanes(out, series, weights, K);
-    return out;
-  }
+  const lanes = days >= LANE_MINIMUM_DAYS && K >= 4 ? pairedConvolution() : null;
+  if (lanes !== null && lanes(out, series, weights, K)) return out;
   return scalarConvolveInto(out, series, weights, K);
 }
 
 /** Series shorter than this are convolved by the scalar loop (the lanes' copying is not worth it). */
 const LANE_MINIMUM_DAYS = 16;
-
-function allFinite(series: Float64Array): boolean {
-  for (let d = 0; d < series.length; d++) if (!Number.isFinite(series[d])) return false;
-  return true;
-}
 
 /** `convolveInto` without the lanes, over the first K weights: the reference the lanes must equal. */
 export function scalarConvolveInto(out: Float64Array, series: Float64Array, weights: Float64Array, K = usedLength(weights)): Float64Array {

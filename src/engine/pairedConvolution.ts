@@ -124,8 +124,11 @@ const MODULE = new Uint8Array([
 /** Zeros laid before and after the weights, and after the series: one block of days. */
 const PAD = 8;
 
-/** `convolveInto` on the lanes: out[d] = sum_{a <= d} series[a] weights[d - a], d < series.length, weights[0..used). */
-export type PairedConvolution = (out: Float64Array, series: Float64Array, weights: Float64Array, used: number) => void;
+/**
+ * `convolveInto` on the lanes: out[d] = sum_{a <= d} series[a] weights[d - a], d < series.length,
+ * weights[0..used); false, and `out` untouched, when the series is not finite throughout.
+ */
+export type PairedConvolution = (out: Float64Array, series: Float64Array, weights: Float64Array, used: number) => boolean;
 
 /**
  * The part of the WebAssembly JavaScript interface used here, declared here: the engine's
@@ -159,19 +162,25 @@ function instantiate(): PairedConvolution | null {
     const w = PAD;
     const x = w + used + PAD;
     const o = x + blocks + PAD;
-    const needed = (o + blocks) * 8;
-    if (needed > memory.buffer.byteLength) {
-      memory.grow(Math.ceil((needed - memory.buffer.byteLength) / 65536));
+    if (o + blocks > heap.length) {
+      memory.grow(Math.ceil(((o + blocks) * 8 - heap.byteLength) / 65536));
       heap = new Float64Array(memory.buffer);
     }
     // Element by element rather than through subarray views: no object per call.
+    let finite = 0;
+    for (let d = 0; d < days; d++) {
+      const v = series[d];
+      heap[x + d] = v;
+      finite += v - v; // 0 for a finite v, NaN otherwise
+    }
+    if (finite !== 0) return false;
     heap.fill(0, 0, w);
     for (let k = 0; k < used; k++) heap[w + k] = weights[k];
     heap.fill(0, w + used, x);
-    heap.set(series, x);
     heap.fill(0, x + days, o);
     convolve(o * 8, x * 8, w * 8, days, used);
     for (let d = 0; d < days; d++) out[d] = heap[o + d];
+    return true;
   };
 }
 

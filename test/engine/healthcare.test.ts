@@ -239,6 +239,13 @@ describe('capacity counts', () => {
     expect([noSurge.daysOverCapacity, noSurge.firstDayOverCapacity, noSurge.daysOverSurgeCapacity]).toEqual([0, null, null]);
   });
 
+  it('date a peak held over several days by its first day, and give an empty series a peak of 0 on day 0', () => {
+    const plateau = bedDemand(Float64Array.from([1, 4, 7, 7, 7, 2]), 10, null);
+    expect([plateau.peakOccupancy, plateau.peakDay]).toEqual([7, 2]);
+    const empty = bedDemand(new Float64Array(0), 10, 12);
+    expect([empty.peakOccupancy, empty.peakDay, empty.daysOverCapacity, empty.daysOverSurgeCapacity]).toEqual([0, 0, 0, 0]);
+  });
+
   it('agree with the daily series of a run', () => {
     const { results } = run(threeBand({ infectionHospitalisationRatio: IHR, icuShareOfAdmissions: ICU_SHARE, capacity: CAPACITY }));
     const h = results.options[0].healthcare!;

@@ -5,37 +5,47 @@
  */
 import type { BedDemand } from '../results.ts';
 
-/** Days with occupancy > beds, and sum over days of max(0, occupancy - beds) (patient-days). */
-function excess(occupancy: Float64Array, beds: number): { days: number; patientDays: number; firstDay: number | null } {
+/**
+ * Peak, its day (the first day it is reached) and the excess over usual and surge capacity: days
+ * with occupancy > beds, and the sum over days of max(0, occupancy - beds) (patient-days, summed
+ * in day order). One pass over the days for all of them.
+ */
+export function bedDemand(occupancy: Float64Array, beds: number, surgeBeds: number | null): BedDemand {
+  const surgeLevel = surgeBeds ?? Infinity;
+  let peakDay = 0;
+  let peak = occupancy.length > 0 ? occupancy[0] : 0;
   let days = 0;
   let patientDays = 0;
   let firstDay: number | null = null;
+  let surgeDays = 0;
+  let surgePatientDays = 0;
   for (let d = 0; d < occupancy.length; d++) {
-    const over = occupancy[d] - beds;
+    const x = occupancy[d];
+    if (x > peak) {
+      peak = x;
+      peakDay = d;
+    }
+    const over = x - beds;
     if (over > 0) {
       days++;
       patientDays += over;
       if (firstDay === null) firstDay = d;
     }
+    const overSurge = x - surgeLevel;
+    if (overSurge > 0) {
+      surgeDays++;
+      surgePatientDays += overSurge;
+    }
   }
-  return { days, patientDays, firstDay };
-}
-
-/** Peak, its day (the first day it is reached) and the excess over usual and surge capacity. */
-export function bedDemand(occupancy: Float64Array, beds: number, surgeBeds: number | null): BedDemand {
-  let peakDay = 0;
-  for (let d = 1; d < occupancy.length; d++) if (occupancy[d] > occupancy[peakDay]) peakDay = d;
-  const usual = excess(occupancy, beds);
-  const surge = surgeBeds === null ? null : excess(occupancy, surgeBeds);
   return {
     capacityBeds: beds,
     surgeCapacityBeds: surgeBeds,
-    peakOccupancy: occupancy.length > 0 ? occupancy[peakDay] : 0,
+    peakOccupancy: peak,
     peakDay,
-    daysOverCapacity: usual.days,
-    patientDaysOverCapacity: usual.patientDays,
-    firstDayOverCapacity: usual.firstDay,
-    daysOverSurgeCapacity: surge?.days ?? null,
-    patientDaysOverSurgeCapacity: surge?.patientDays ?? null,
+    daysOverCapacity: days,
+    patientDaysOverCapacity: patientDays,
+    firstDayOverCapacity: firstDay,
+    daysOverSurgeCapacity: surgeBeds === null ? null : surgeDays,
+    patientDaysOverSurgeCapacity: surgeBeds === null ? null : surgePatientDays,
   };
 }

@@ -45,8 +45,10 @@ interface Scratch {
   admittedByDay: Float64Array[];
   /** The horizon `admittedByDay` was written for. */
   lagDays: number;
-  /** One band's infections by day. */
-  column: Float64Array;
+  /** Runs of at most RUN consecutive bands of one group, as (first band, count) pairs, in band order. */
+  runs: Int32Array;
+  /** A run's daily infections by band (band-major rows, as `healthcareDemand`'s input), read from the integrator's totals. */
+  incidence: Float64Array;
   wardOnlyAdmissions: Float64Array;
   icuAdmissions: Float64Array;
   convolved: Float64Array;
@@ -54,9 +56,24 @@ interface Scratch {
 
 const scratchOf = new WeakMap<PreparedHealthcare, Scratch>();
 
+/** Bands summed together in one pass over the days. */
+const RUN = 4;
+
+/** The bands cut into runs of at most RUN consecutive bands with the same group: (first, count) pairs. */
+function bandRuns(groupOfBand: Int32Array): Int32Array {
+  const runs: number[] = [];
+  for (let i = 0; i < groupOfBand.length; ) {
+    let count = 1;
+    while (count < RUN && i + count < groupOfBand.length && groupOfBand[i + count] === groupOfBand[i]) count++;
+    runs.push(i, count);
+    i += count;
+  }
+  return Int32Array.from(runs);
+}
+
 /**
  * The scratch of `h` for a series of `days` days (the horizon, unless a caller passes a longer or
- * shorter series), its group sums zeroed for `addBand`.
+ * shorter series), its group sums zeroed for `addBands`.
  */
 function scratch(h: PreparedHealthcare, days: number): Scratch {
   let s = scratchOf.get(h);
@@ -70,7 +87,8 @@ function scratch(h: PreparedHealthcare, days: number): Scratch {
       groupOfBand,
       admittedByDay: h.groups.map(() => new Float64Array(days)),
       lagDays: -1,
-      column: new Float64Array(days),
+      runs: bandRuns(groupOfBand),
+      incidence: new Float64Array(days * h.bands),
       wardOnlyAdmissions: new Float64Array(days),
       icuAdmissions: new Float64Array(days),
       convolved: new Float64Array(days),
@@ -95,28 +113,74 @@ function scratch(h: PreparedHealthcare, days: number): Scratch {
 }
 
 /**
- * Adds band i's daily infections (`x`, days 0..days-1, persons) to its group's sums and sets the
- * band's admissions weight within the horizon. Called for the bands in ascending order: each
- * day's group sum then runs over the group's bands in ascending order, starting from 0, and each
- * band's weight over the days in ascending order, whatever the caller (`healthcareDemand` from a
- * daily array, `healthcareDemandOfRun` from the integrator's totals). Band by band rather than
- * day by day, so that no running sum is loaded back right after being stored.
+ * Adds the daily infections of bands first..first+count-1 (`x`, band-major rows of n bands,
+ * persons) to their group's sums and sets each band's admissions weight within the horizon.
+ * Called for the runs in band order: each day's group sum then runs over the group's bands in
+ * ascending order, starting from 0, and each band's weight over the days in ascending order,
+ * whatever the caller (`healthcareDemand` from a daily array, `healthcareDemandOfRun` from the
+ * integrator's totals). By runs of bands rather than day by day, so that no running sum is loaded
+ * back right after being stored; four bands at a time, so that four weights add up side by side.
  */
-function addBand(h: PreparedHealthcare, s: Scratch, i: number, x: Float64Array, days: number): void {
-  const k = s.groupOfBand[i];
+function addBands(h: PreparedHealthcare, s: Scratch, first: number, count: number, x: Float64Array, days: number): void {
+  const n = h.bands;
+  const k = s.groupOfBand[first];
   const wardOnly = s.wardOnlyInfections[k];
   const icu = s.icuInfections[k];
   const admittedBy = s.admittedByDay[k];
-  const wardOnlyRatio = h.wardOnlyRatio[i];
-  const icuRatio = h.icuRatio[i];
-  let weight = 0;
-  for (let a = 0; a < days; a++) {
-    const v = x[a];
-    wardOnly[a] += v * wardOnlyRatio;
-    icu[a] += v * icuRatio;
-    weight += v * admittedBy[a];
+  if (count === RUN) {
+    const [r0, r1, r2, r3] = [h.wardOnlyRatio[first], h.wardOnlyRatio[first + 1], h.wardOnlyRatio[first + 2], h.wardOnlyRatio[first + 3]];
+    const [c0, c1, c2, c3] = [h.icuRatio[first], h.icuRatio[first + 1], h.icuRatio[first + 2], h.icuRatio[first + 3]];
+    let w0 = 0;
+    let w1 = 0;
+    let w2 = 0;
+    let w3 = 0;
+    for (let a = 0; a < days; a++) {
+      const row = a * n + first;
+      const v0 = x[row];
+      const v1 = x[row + 1];
+      const v2 = x[row + 2];
+      const v3 = x[row + 3];
+      let sum = wardOnly[a];
+      sum += v0 * r0;
+      sum += v1 * r1;
+      sum += v2 * r2;
+      sum += v3 * r3;
+      wardOnly[a] = sum;
+      sum = icu[a];
+      sum += v0 * c0;
+      sum += v1 * c1;
+      sum += v2 * c2;
+      sum += v3 * c3;
+      icu[a] = sum;
+      const lag = admittedBy[a];
+      w0 += v0 * lag;
+      w1 += v1 * lag;
+      w2 += v2 * lag;
+      w3 += v3 * lag;
+    }
+    s.admittedWeight[first] = w0;
+    s.admittedWeight[first + 1] = w1;
+    s.admittedWeight[first + 2] = w2;
+    s.admittedWeight[first + 3] = w3;
+    return;
   }
-  s.admittedWeight[i] = weight;
+  for (let j = 0; j < count; j++) {
+    const wardOnlyRatio = h.wardOnlyRatio[first + j];
+    const icuRatio = h.icuRatio[first + j];
+    let weight = 0;
+    for (let a = 0; a < days; a++) {
+      const v = x[a * n + first + j];
+      wardOnly[a] += v * wardOnlyRatio;
+      icu[a] += v * icuRatio;
+      weight += v * admittedBy[a];
+    }
+    s.admittedWeight[first + j] = weight;
+  }
+}
+
+/** Math.max(0, x) for every x (-0 gives +0, NaN stays NaN), written out: the call's general case costs more here. */
+function positivePart(x: number): number {
+  return x > 0 ? x : x === x ? 0 : x;
 }
 
 /** target += x, element by element. */
@@ -124,7 +188,7 @@ function addInto(target: Float64Array, x: Float64Array): void {
   for (let d = 0; d < target.length; d++) target[d] += x[d];
 }
 
-/** The convolutions and totals, once `addBand` has seen every band. */
+/** The convolutions and totals, once `addBands` has seen every band. */
 function demandOfGroups(h: PreparedHealthcare, s: Scratch, days: number): HealthcareOutcomes {
   const n = h.bands;
   const admissions = new Float64Array(days);
@@ -173,11 +237,7 @@ export function healthcareDemand(h: PreparedHealthcare, incidence: Float64Array)
   const n = h.bands;
   const days = incidence.length / n;
   const s = scratch(h, days);
-  const x = s.column;
-  for (let i = 0; i < n; i++) {
-    for (let d = 0; d < days; d++) x[d] = incidence[d * n + i];
-    addBand(h, s, i, x, days);
-  }
+  for (let r = 0; r < s.runs.length; r += 2) addBands(h, s, s.runs[r], s.runs[r + 1], incidence, days);
   return demandOfGroups(h, s, days);
 }
 
@@ -193,25 +253,14 @@ export function healthcareDemandOfRun(h: PreparedHealthcare, cumulative: Float64
   const n = h.bands;
   const days = h.days;
   const s = scratch(h, days);
-  const x = s.column;
-  const unprotected = 1 - factor;
-  for (let i = 0; i < n; i++) {
-    let before = cumulative[i];
-    for (let d = 0; d < days; d++) {
-      const after = cumulative[(d + 1) * n + i];
-      x[d] = Math.max(0, after - before);
-      before = after;
-    }
-    if (days > 0) x[0] += seeds[i];
-    if (protectedCumulative !== null) {
-      let protectedBefore = protectedCumulative[i];
-      for (let d = 0; d < days; d++) {
-        const protectedAfter = protectedCumulative[(d + 1) * n + i];
-        x[d] = Math.max(0, x[d] - unprotected * Math.max(0, protectedAfter - protectedBefore));
-        protectedBefore = protectedAfter;
-      }
-    }
-    addBand(h, s, i, x, days);
+  const x = s.incidence;
+  const cells = days * n;
+  for (let k = 0; k < cells; k++) x[k] = positivePart(cumulative[k + n] - cumulative[k]);
+  if (days > 0) for (let i = 0; i < n; i++) x[i] += seeds[i];
+  if (protectedCumulative !== null) {
+    const unprotected = 1 - factor;
+    for (let k = 0; k < cells; k++) x[k] = positivePart(x[k] - unprotected * positivePart(protectedCumulative[k + n] - protectedCumulative[k]));
   }
+  for (let r = 0; r < s.runs.length; r += 2) addBands(h, s, s.runs[r], s.runs[r + 1], x, days);
   return demandOfGroups(h, s, days);
 }
