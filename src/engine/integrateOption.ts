@@ -3,6 +3,7 @@
  */
 import { DEFAULT_TOLERANCES, integrate, IntegratorWorkspace, REAL_STABILITY_BOUNDARY, type Tolerances } from './integrator.ts';
 import { initialStateOf } from './initialState.ts';
+import { kernelAvailable, KernelRun } from './optionKernel.ts';
 import type { PreparedScenario } from './prepare.ts';
 import { protectedRisk, quadratureUnits, seirRightHandSide, type StateLayout, stateLayout } from './seir.ts';
 import type { Segment } from './segments.ts';
@@ -54,6 +55,14 @@ function denseComponentsOf(L: StateLayout): Int32Array {
 }
 
 /**
+ * Which code integrates an option without vaccination: the WebAssembly kernel (optionKernel.ts,
+ * the same steps in the same arithmetic, about 4 times faster) or the TypeScript integrator
+ * (integrator.ts with seir.ts), where WebAssembly cannot compile the kernel. Options with
+ * vaccination always take the TypeScript path.
+ */
+export type Integration = 'kernel' | 'typescript';
+
+/**
  * Integrates an option over its segments. With `triggered`, the measures also change on the days
  * its triggers decide (checked at every whole day): the integration stops there, the transmission
  * matrix is rebuilt for the measures then in force, and it restarts. `realized` receives the
@@ -65,6 +74,7 @@ export function integrateOption(
   campaign: PreparedCampaign | null,
   triggered: { measures: TriggeredMeasures; fixedPhaseAt: (t: number) => Phase | null; realized: Segment[] } | null = null,
   accuracy: Accuracy = {},
+  integration: Integration = kernelAvailable() ? 'kernel' : 'typescript',
 ): DailyState {
   const n = p.bands.bands;
   const H = p.scenario.horizonDays;
@@ -110,31 +120,54 @@ export function integrateOption(
     }
   };
   const y = campaign === null ? p.initialState.slice(0, L.active) : initialStateOf(p.scenario, L);
-  record(0, y);
   const transmission = new Float64Array(n * n);
   const doses = campaign === null ? null : new Unvaccinated(p.scenario.populationPersons);
-  const rhs = seirRightHandSide(L, p.periods.latentPeriodDays, p.periods.infectiousPeriodDays, transmission, campaign?.vaccine ?? null, doses, false);
-  const ws = new IntegratorWorkspace(y.length);
   const tolerances = { ...DEFAULT_TOLERANCES, ...accuracy, maxStep: largestStableStep(p, campaign) };
-  const days = new Float64Array(H);
-  for (let d = 0; d < H; d++) days[d] = d + 1;
-  const dense = denseComponentsOf(L);
   let step = 0.25;
+  const firstStep = (): number => Math.min(tolerances.maxStep, Math.max(step, 0.05));
+  /**
+   * Integrates from `from` to `to` with `transmission` and `doses` as they are now, recording
+   * each whole day; `watch` sees each day's state and stops there by returning true. Returns the
+   * day it stopped at, or null when it reached `to`.
+   */
+  let advance: (from: number, to: number, watch: ((day: number, state: Float64Array) => boolean) | null) => number | null;
+  let finish = (): void => {};
+  if (campaign === null && integration === 'kernel') {
+    const { latentStages, infectiousStages, latentPeriodDays, infectiousPeriodDays } = p.periods;
+    const run = new KernelRun(n, latentStages, infectiousStages, latentPeriodDays, infectiousPeriodDays, H, y, s0, tolerances);
+    run.copyDay(0, daily);
+    advance = (from, to, watch) => {
+      step = run.integrate(from, to, firstStep(), transmission, watch, daily);
+      return run.stoppedAt;
+    };
+    finish = () => run.copyAll(daily);
+  } else {
+    record(0, y);
+    const rhs = seirRightHandSide(L, p.periods.latentPeriodDays, p.periods.infectiousPeriodDays, transmission, campaign?.vaccine ?? null, doses, false);
+    const ws = new IntegratorWorkspace(y.length);
+    const days = new Float64Array(H);
+    for (let d = 0; d < H; d++) days[d] = d + 1;
+    const dense = denseComponentsOf(L);
+    advance = (from, to, watch) => {
+      const sink = (t: number, state: Float64Array): boolean => {
+        const d = Math.round(t);
+        record(d, state);
+        return watch !== null && watch(d, state);
+      };
+      step = integrate(rhs, y, from, to, days, sink, ws, tolerances, firstStep(), dense, L.active);
+      return ws.stoppedAt;
+    };
+  }
   if (triggered === null) {
-    const sink = (t: number, state: Float64Array): void => record(Math.round(t), state);
     for (const seg of segments) {
       transmission.set(seg.transmission);
       doses?.enter(seg.fromDay, seg.doseRates);
-      step = integrate(rhs, y, seg.fromDay, seg.toDay, days, sink, ws, tolerances, Math.min(tolerances.maxStep, Math.max(step, 0.05)), dense, L.active);
+      advance(seg.fromDay, seg.toDay, null);
     }
   } else {
     const { measures, fixedPhaseAt, realized } = triggered;
     let switched = measures.atDay(0, y, daily);
-    const sink = (t: number, state: Float64Array): boolean => {
-      const d = Math.round(t);
-      record(d, state);
-      return d < H && measures.atDay(d, state, daily);
-    };
+    const watch = (d: number, state: Float64Array): boolean => d < H && measures.atDay(d, state, daily);
     for (const seg of segments) {
       doses?.enter(seg.fromDay, seg.doseRates);
       let from = seg.fromDay;
@@ -143,13 +176,14 @@ export function integrateOption(
         transmission.set(inForce);
         const measuresChange = (from === seg.fromDay && seg.measuresChange) || switched;
         realized.push({ fromDay: from, toDay: seg.toDay, transmission: inForce, doseRates: seg.doseRates, measuresChange });
-        step = integrate(rhs, y, from, seg.toDay, days, sink, ws, tolerances, Math.min(tolerances.maxStep, Math.max(step, 0.05)), dense, L.active);
-        switched = ws.stoppedAt !== null;
-        from = ws.stoppedAt ?? seg.toDay;
+        const stoppedAt = advance(from, seg.toDay, watch);
+        switched = stoppedAt !== null;
+        from = stoppedAt ?? seg.toDay;
         realized[realized.length - 1].toDay = from;
       }
     }
   }
+  finish();
   if (L.dosesToNonSusceptible >= 0) for (let i = 0; i < n; i++) daily.dosesToNonSusceptible[i] = Math.max(0, y[L.dosesToNonSusceptible + i] * unit[i]);
   return daily;
 }

@@ -63,6 +63,16 @@ export function integratorStepsSoFar(): number {
   return attemptedSteps;
 }
 
+/** Adds the steps attempted by the WebAssembly kernel (optionKernel.ts), which runs this integrator's steps. */
+export function countAttemptedSteps(steps: number): void {
+  attemptedSteps += steps;
+}
+
+/** The failure when the step size collapses or the step count explodes near day t. */
+export function unsolvableNear(t: number): Error {
+  return new Error(`the model could not be solved near day ${t.toFixed(2)}: its rates are too extreme`);
+}
+
 // Tsitouras 2011, Table 1 (a_i1 = c_i - sum_{j>1} a_ij, the row-sum condition of the paper).
 const C2 = 0.161, C3 = 0.327, C4 = 0.9, C5 = 0.9800255409045097;
 const A32 = 0.335480655492357;
@@ -215,7 +225,7 @@ export function integrate(
     if (!(err <= 1)) {
       ws.rejected++;
       h *= Number.isFinite(err) ? Math.max(0.2, 0.9 * Math.pow(err, -0.2)) : 0.2;
-      if (h < 1e-12) throw new Error(`the model could not be solved near day ${t.toFixed(2)}: its rates are too extreme`);
+      if (h < 1e-12) throw unsolvableNear(t);
       continue;
     }
     ws.steps++;
@@ -228,7 +238,7 @@ export function integrate(
       }
     }
     if (flushed) rhs(t + h, yNext, k7);
-    if (ws.steps > MAX_STEPS) throw new Error(`the model could not be solved near day ${t.toFixed(2)}: its rates are too extreme`);
+    if (ws.steps > MAX_STEPS) throw unsolvableNear(t);
     const tNew = last ? t1 : t + h;
     if (out < outputs && outputTimes[out] <= tNew) {
       let stopAt = Number.NaN;

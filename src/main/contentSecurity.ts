@@ -3,13 +3,15 @@
  *
  * The renderer loads only its own bundle (scripts, worker, styles); no remote content, no
  * eval, no plugins, no frames. Inline style attributes are allowed because Svelte and
- * chart.js set element styles; inline scripts are not.
+ * chart.js set element styles; inline scripts are not. 'wasm-unsafe-eval' lets the engine
+ * workers compile the option kernel (src/engine/optionKernel.ts, WebAssembly bytes from the
+ * bundle itself); it allows no JavaScript eval.
  */
 import { APP_ORIGIN } from './appProtocol.ts';
 
 export const CONTENT_SECURITY_POLICY = [
   "default-src 'none'",
-  "script-src 'self'",
+  "script-src 'self' 'wasm-unsafe-eval'",
   "worker-src 'self'",
   "style-src 'self' 'unsafe-inline'",
   "img-src 'self' data: blob:",

@@ -6,8 +6,13 @@ describe('content security policy', () => {
   it('allows only the app itself: no remote, inline or eval script', () => {
     expect(CONTENT_SECURITY_POLICY).toContain("default-src 'none'");
     expect(CONTENT_SECURITY_POLICY).toContain("script-src 'self'");
-    expect(CONTENT_SECURITY_POLICY).not.toMatch(/script-src[^;]*(unsafe-inline|unsafe-eval|https?:)/);
+    expect(CONTENT_SECURITY_POLICY).not.toMatch(/script-src[^;]*('unsafe-inline'|'unsafe-eval'|https?:)/);
     expect(CONTENT_SECURITY_POLICY).toContain("object-src 'none'");
+  });
+
+  it('lets the engine workers compile the option kernel (WebAssembly), and nothing more', () => {
+    const scripts = CONTENT_SECURITY_POLICY.split('; ').find((d) => d.startsWith('script-src '));
+    expect(scripts).toBe("script-src 'self' 'wasm-unsafe-eval'");
   });
 
   it('is the same policy the renderer page declares (web mode has no main process)', () => {

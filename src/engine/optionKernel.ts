@@ -1,0 +1,191 @@
+/**
+ * The host side of the option kernel: option runs without vaccination integrated in WebAssembly
+ * (source wasm/assembly/optionKernel.ts, binary wasm/optionKernelBinary.ts, `npm run wasm`).
+ *
+ * The kernel runs the steps of integrator.ts on the right-hand side of seir.ts without counters,
+ * with the dense output at whole days and the daily record of integrateOption.ts, in the same
+ * floating-point operations in the same order: results identical bit for bit to the TypeScript
+ * path, at about a quarter of its cost (test/engine/optionKernel.test.ts; figures in DEVELOPERS.md).
+ *
+ * One instance per realm (thread), compiled synchronously on first use: Node, and the app's
+ * engine workers (the renderer's main thread runs no option; Chromium refuses synchronous
+ * compilation of more than 4 KB there). Pages that run it need 'wasm-unsafe-eval' in their
+ * Content Security Policy (src/main/contentSecurity.ts). Where WebAssembly cannot compile it (no
+ * WebAssembly as under node --jitless, no SIMD, a policy without it), `kernelAvailable()` is
+ * false and integrateOption.ts takes the TypeScript path: the same numbers, slower.
+ */
+import { countAttemptedSteps, type Tolerances, unsolvableNear } from './integrator.ts';
+import { decodeBase64 } from './wasm/base64.ts';
+import { OPTION_KERNEL_BASE64 } from './wasm/optionKernelBinary.ts';
+
+/** The kernel's exports (wasm/assembly/optionKernel.ts); offsets in bytes. */
+interface KernelExports {
+  memory: { buffer: ArrayBuffer };
+  configure(
+    bands: number, latentStages: number, infectiousStages: number, latentRate: number, infectiousRate: number,
+    relative: number, absolute: number, largestStep: number, flush: number, horizonDays: number, base: number,
+  ): number;
+  offsetOfState(): number;
+  offsetOfDense(): number;
+  offsetOfTransmission(): number;
+  offsetOfInitialSusceptible(): number;
+  offsetOfSusceptible(): number;
+  offsetOfPrevalence(): number;
+  offsetOfCumulative(): number;
+  attempted(): number;
+  stoppedAt(): number;
+  failedAt(): number;
+  setWatchDays(on: number): void;
+  recordState(day: number): void;
+  integrate(t0: number, t1: number, initialStep: number): number;
+}
+
+/** The part of the platform's WebAssembly API used here (the engine types against ES2022 only). */
+interface WebAssemblyApi {
+  Module: new (bytes: Uint8Array) => object;
+  Instance: new (module: object, imports: object) => { exports: unknown };
+}
+
+let instance: KernelExports | null | undefined;
+/** The day callback of the run in progress (a run never starts another inside it). */
+let watching: ((day: number) => boolean) | null = null;
+
+function instantiate(): KernelExports | null {
+  const api = (globalThis as { WebAssembly?: WebAssemblyApi }).WebAssembly;
+  if (api === undefined) return null;
+  try {
+    const module = new api.Module(decodeBase64(OPTION_KERNEL_BASE64));
+    const imports = { env: { pow: Math.pow, day: (day: number) => (watching !== null && watching(day) ? 1 : 0) } };
+    return new api.Instance(module, imports).exports as KernelExports;
+  } catch {
+    // No SIMD, or a content security policy without 'wasm-unsafe-eval'.
+    return null;
+  }
+}
+
+/** The kernel, compiled on first use in this thread, or null where WebAssembly cannot compile it. */
+function kernel(): KernelExports | null {
+  if (instance === undefined) instance = instantiate();
+  return instance;
+}
+
+/** Whether the kernel runs here (compiles it on the first call). */
+export function kernelAvailable(): boolean {
+  return kernel() !== null;
+}
+
+/** Daily series the kernel records (integrateOption.ts DailyState): rows of n bands, days 0..H. */
+export interface KernelRecord {
+  susceptible: Float64Array;
+  prevalence: Float64Array;
+  cumulative: Float64Array;
+}
+
+/**
+ * One option run in the kernel. The state is S, E stages, I stages by band (seir.ts layout
+ * without counters); the kernel pads the bands to an even count, this class copies in and out.
+ */
+export class KernelRun {
+  private readonly k: KernelExports;
+  private readonly n: number;
+  private readonly np: number;
+  private readonly blocks: number;
+  private readonly horizon: number;
+  private memory: Float64Array;
+  /** The dense-output state of the day being watched, in the TypeScript layout. */
+  private readonly state: Float64Array;
+  /** Where the last `integrate` stopped at the watcher's request, or null when it reached its end. */
+  stoppedAt: number | null = null;
+
+  /**
+   * y0: the initial state (S, E.., I.. blocks of n), s0 the initial susceptibles; records day 0.
+   * maxStep in `tolerances` is the stability cap.
+   */
+  constructor(
+    bands: number, latentStages: number, infectiousStages: number, latentPeriodDays: number, infectiousPeriodDays: number,
+    horizonDays: number, y0: Float64Array, s0: Float64Array, tolerances: Tolerances,
+  ) {
+    const k = kernel();
+    if (k === null) throw new Error('the option kernel cannot run here: WebAssembly did not compile it');
+    this.k = k;
+    this.n = bands;
+    this.np = (bands + 1) & ~1;
+    this.blocks = 1 + latentStages + infectiousStages;
+    this.horizon = horizonDays;
+    this.state = new Float64Array(this.blocks * bands);
+    k.configure(
+      bands, latentStages, infectiousStages, latentStages / latentPeriodDays, infectiousStages / infectiousPeriodDays,
+      tolerances.relative, tolerances.absolute, tolerances.maxStep, tolerances.flushBelow ?? 0, horizonDays, 0,
+    );
+    this.memory = new Float64Array(k.memory.buffer);
+    const f = this.memory;
+    const at = k.offsetOfState() / 8;
+    for (let b = 0; b < this.blocks; b++) f.set(y0.subarray(b * bands, (b + 1) * bands), at + b * this.np);
+    f.set(s0.subarray(0, bands), k.offsetOfInitialSusceptible() / 8);
+    k.recordState(0);
+  }
+
+  /**
+   * Integrates from t0 to t1 with this transmission matrix (n x n, per day), starting with step
+   * `initialStep`; returns the last accepted step size. With `watch`, it is called at each whole
+   * day after its record (copied into `record`) with the state then (a scratch buffer); `true`
+   * stops the integration there (`stoppedAt`), as integrator.ts's sink does.
+   */
+  integrate(
+    t0: number, t1: number, initialStep: number, transmission: Float64Array,
+    watch: ((day: number, state: Float64Array) => boolean) | null, record: KernelRecord,
+  ): number {
+    const { k, n, np, memory: f } = this;
+    const m = k.offsetOfTransmission() / 8;
+    for (let i = 0; i < n; i++) f.set(transmission.subarray(i * n, (i + 1) * n), m + i * np);
+    k.setWatchDays(watch === null ? 0 : 1);
+    const dense = k.offsetOfDense() / 8;
+    const state = this.state;
+    watching = watch === null ? null : (day) => {
+      this.copyDay(day, record);
+      for (let b = 0; b < this.blocks; b++) for (let i = 0; i < n; i++) state[b * n + i] = f[dense + b * np + i];
+      return watch(day, state);
+    };
+    let step: number;
+    try {
+      step = k.integrate(t0, t1, initialStep);
+    } finally {
+      watching = null;
+      countAttemptedSteps(k.attempted());
+    }
+    if (!Number.isNaN(k.failedAt())) throw unsolvableNear(k.failedAt());
+    const stop = k.stoppedAt();
+    this.stoppedAt = Number.isNaN(stop) ? null : stop;
+    return step;
+  }
+
+  /** Day d's record (S, E + I, cumulative infections by band) into `record`. */
+  copyDay(d: number, record: KernelRecord): void {
+    const { k, n, np, memory: f } = this;
+    const { susceptible, prevalence, cumulative } = record;
+    const s = k.offsetOfSusceptible() / 8 + d * np;
+    const e = k.offsetOfPrevalence() / 8 + d * np;
+    const x = k.offsetOfCumulative() / 8 + d * np;
+    // Element by element: no view object per day.
+    for (let i = 0, to = d * n; i < n; i++, to++) {
+      susceptible[to] = f[s + i];
+      prevalence[to] = f[e + i];
+      cumulative[to] = f[x + i];
+    }
+  }
+
+  /** Every day's record into `record`. */
+  copyAll(record: KernelRecord): void {
+    const { k, n, np, horizon, memory: f } = this;
+    const rows = (horizon + 1) * n;
+    const pairs: [Float64Array, number][] = [
+      [record.susceptible, k.offsetOfSusceptible() / 8],
+      [record.prevalence, k.offsetOfPrevalence() / 8],
+      [record.cumulative, k.offsetOfCumulative() / 8],
+    ];
+    for (const [into, at] of pairs) {
+      if (np === n) into.set(f.subarray(at, at + rows));
+      else for (let d = 0; d <= horizon; d++) into.set(f.subarray(at + d * np, at + d * np + n), d * n);
+    }
+  }
+}
