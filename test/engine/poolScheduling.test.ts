@@ -61,6 +61,19 @@ describe('pool scheduling', () => {
     pool.close();
   });
 
+  it('gives every worker a task before any worker a second one', { timeout: 60_000 }, async () => {
+    // The app's case: a scenario's few options on one worker per core (up to 8).
+    const { pool, requests } = countingPool(8);
+    const s = many(5);
+    const results = await pool.map('optionSummaries', s, [0, 1, 2, 3, 4]);
+    expect(results).toStrictEqual(mapInline('optionSummaries', s, [0, 1, 2, 3, 4]));
+    const batches = requests.filter((r) => r.type === 'tasks');
+    expect(batches.map((b) => (b.type === 'tasks' ? b.tasks.length : 0))).toStrictEqual([1, 1, 1, 1, 1]);
+    // Each batch went to another worker: each of the five received the scenario.
+    expect(count(requests, 'context')).toBe(5);
+    pool.close();
+  });
+
   it('keeps a scenario prepared on each worker across maps with the same revision', { timeout: 60_000 }, async () => {
     const { pool, requests } = countingPool(2);
     const s = many(8);

@@ -5,9 +5,10 @@
  * (worker_threads in Node: src/cli/workerThreads.ts; Web Workers in the app:
  * src/renderer/lib/engineClient.ts).
  *
- * Scheduling: tasks wait in one queue shared by every map in progress and go to the first worker
- * with room, in batches (protocol.ts): each worker holds at most PIPELINE batches, so it never
- * waits for the next message while the pool is busy, and a batch takes a share of what is queued
+ * Scheduling: tasks wait in one queue shared by every map in progress and go to the workers with
+ * room, in batches (protocol.ts), breadth first (each idle worker one batch before any a second):
+ * each worker holds at most PIPELINE batches, so it never waits for the next message while the
+ * pool is busy, and a batch takes a share of what is queued
  * (at most MAX_BATCH tasks, down to one as the queue empties, so the workers finish together).
  * A worker receives a map's context once, before its first task of that map; a context with a
  * content key (jobs.ts `contextKey`) stays on the worker for later maps with the same key (at most
@@ -160,25 +161,36 @@ export class WorkerPool {
     return slot;
   }
 
+  /**
+   * Fills the workers breadth first: every worker gets its first batch before any gets a second,
+   * so a map of fewer tasks than workers x PIPELINE (the app's handful of options on 8 workers)
+   * runs one task per worker at once instead of queueing two on the first few.
+   */
   private dispatch(): void {
-    for (const slot of this.slots) {
-      while (slot.batches < PIPELINE) {
+    for (let depth = 1; depth <= PIPELINE; depth++) {
+      for (const slot of this.slots) {
+        if (slot.batches >= depth) continue;
         while (this.queue.length > 0 && this.queue[0].map.settled) this.queue.shift();
         if (this.queue.length === 0) return;
-        const { map } = this.queue[0];
-        const size = Math.max(1, Math.min(MAX_BATCH, Math.floor(this.queue.length / (2 * PIPELINE * this.slots.length))));
-        const tasks: { taskId: number; task: unknown }[] = [];
-        while (tasks.length < size && this.queue.length > 0 && this.queue[0].map === map) {
-          const next = this.queue.shift() as Queued;
-          const taskId = this.nextTaskId++;
-          slot.inFlight.set(taskId, next);
-          tasks.push({ taskId, task: next.task });
-        }
-        this.provide(slot, map);
-        slot.endpoint.post({ type: 'tasks', contextId: map.contextId, job: map.job, tasks });
-        slot.batches++;
+        this.sendBatch(slot);
       }
     }
+  }
+
+  /** Posts the head of the queue to `slot`: up to a share of what is queued, all of one map. */
+  private sendBatch(slot: Slot): void {
+    const { map } = this.queue[0];
+    const size = Math.max(1, Math.min(MAX_BATCH, Math.floor(this.queue.length / (2 * PIPELINE * this.slots.length))));
+    const tasks: { taskId: number; task: unknown }[] = [];
+    while (tasks.length < size && this.queue.length > 0 && this.queue[0].map === map) {
+      const next = this.queue.shift() as Queued;
+      const taskId = this.nextTaskId++;
+      slot.inFlight.set(taskId, next);
+      tasks.push({ taskId, task: next.task });
+    }
+    this.provide(slot, map);
+    slot.endpoint.post({ type: 'tasks', contextId: map.contextId, job: map.job, tasks });
+    slot.batches++;
   }
 
   /** Sends `map`'s context to the worker unless it holds it; keeps at most KEPT_CONTEXTS keyed ones there. */
