@@ -74,6 +74,25 @@ describe('pool scheduling', () => {
     pool.close();
   });
 
+  it('rejects with the first failed task in task order, as one thread, whichever worker answers first', async () => {
+    // Workers that fail every task with its own message, task 0 answered last.
+    const spawn = (): PoolEndpoint => {
+      let toPool: ((r: PoolReply) => void) | null = null;
+      return {
+        post: (message) => {
+          if (message.type !== 'tasks') return;
+          const replies = message.tasks.map(({ taskId, task }) => ({ type: 'failed' as const, taskId, message: `task ${String(task)} failed` }));
+          setTimeout(() => toPool?.({ type: 'batch', replies }), message.tasks.some((t) => t.task === 0) ? 30 : 0);
+        },
+        listen: (onReply) => (toPool = onReply),
+        terminate: () => {},
+      };
+    };
+    const pool = new WorkerPool(spawn, 2);
+    await expect(pool.map('optionSummaries', many(4), [0, 1, 2, 3])).rejects.toThrow('task 0 failed');
+    pool.close();
+  });
+
   it('keeps a scenario prepared on each worker across maps with the same revision', { timeout: 60_000 }, async () => {
     const { pool, requests } = countingPool(2);
     const s = many(8);

@@ -17,7 +17,8 @@
  * `onProgress(done, total)` follows every result. Aborting `signal` drops the map's queued tasks
  * and rejects it with `PoolCancelled`; tasks already on a worker finish there and are ignored.
  * A failed task rejects its map with the task's message (a refused run as the same RunRefused,
- * runRefusal.ts) and drops the rest of that map.
+ * runRefusal.ts): the first failed task in task order, as on one thread (`mapInline`), so the map
+ * waits for the tasks before it (whichever worker ran them) and drops the queued ones after it.
  */
 import type { ContextOf, JobName, PreparedOf, ResultOf, TaskOf } from './jobs.ts';
 import { JOBS, type Job } from './jobs.ts';
@@ -64,6 +65,12 @@ interface MapState {
   results: unknown[];
   done: number;
   total: number;
+  /** Per task, 1 once its result or failure has come back. */
+  finished: Uint8Array;
+  /** Every task before this index has come back. */
+  finishedBelow: number;
+  /** The failure of the lowest task index so far, reported once every task before it has come back. */
+  failure: { index: number; error: Error } | null;
   options: MapOptions;
   settled: boolean;
   /** The map's listener on `options.signal`, removed when it settles (one signal may serve many maps). */
@@ -126,6 +133,9 @@ export class WorkerPool {
         results: new Array<unknown>(tasks.length),
         done: 0,
         total: tasks.length,
+        finished: new Uint8Array(tasks.length),
+        finishedBelow: 0,
+        failure: null,
         options,
         settled: false,
         onAbort: null,
@@ -231,15 +241,25 @@ export class WorkerPool {
       if (entry === undefined || entry.map.settled) continue;
       const { map } = entry;
       if (task.type === 'failed') {
-        this.settle(map, task.problem === undefined ? new Error(task.message) : new RunRefused(task.problem));
+        this.failed(map, entry.index, task.problem === undefined ? new Error(task.message) : new RunRefused(task.problem));
       } else {
         map.results[entry.index] = task.result;
         map.done++;
         map.options.onProgress?.(map.done, map.total);
-        if (map.done === map.total) this.settle(map, null);
       }
+      map.finished[entry.index] = 1;
+      while (map.finishedBelow < map.total && map.finished[map.finishedBelow] === 1) map.finishedBelow++;
+      if (map.failure !== null && map.finishedBelow >= map.failure.index) this.settle(map, map.failure.error);
+      else if (map.done === map.total) this.settle(map, null);
     }
     this.dispatch();
+  }
+
+  /** Keeps the failure of the lowest task index; the queued tasks after it can no longer matter. */
+  private failed(map: MapState, index: number, error: Error): void {
+    if (map.failure !== null && map.failure.index < index) return;
+    map.failure = { index, error };
+    for (let k = this.queue.length - 1; k >= 0; k--) if (this.queue[k].map === map && this.queue[k].index > index) this.queue.splice(k, 1);
   }
 
   private crashed(slot: Slot, message: string): void {
