@@ -7,12 +7,14 @@
  * 2. The peer: the same model in scipy (bench/scipy_peer.py: solve_ivp RK45, rtol 1e-6, atol
  *    scaled to the population), on the demo's options without vaccination; the ratio per option.
  *    Skipped, with a note, where python3 with scipy is missing (Debian: apt-get install python3-scipy).
- * 3. A batch of 1000 options (the demo's options with varied multipliers): throughput on this
- *    thread, on a pool of 1 worker and on one worker per core (wall time, and CPU time over all
- *    threads and on this thread: the pool's own cost, which other processes on the machine do not
- *    change); and the peak resident memory of a
- *    separate `mixwise run` of the same 1000 options (this process keeps several batches, so its own
- *    peak would overstate it), read by bench/peakMemory.mjs in the child.
+ * 3. A batch of 1000 options (the demo's options with varied multipliers) on this thread, on a pool
+ *    of 1 worker and on one worker per core, each warmed up by one batch and timed as the median of
+ *    three (a fresh pool's first batch, start-up and JIT warm-up included, beside it): wall time,
+ *    and CPU time over all threads, split (Linux) into this thread, the workers and V8's helper
+ *    threads (compiler, GC): the pool's own cost, which other processes on the machine do not
+ *    change. Then `mixwise run` of the same 1000 options in its own process, from start, on one
+ *    thread and on one per core, with its peak resident memory (this process keeps several
+ *    batches, so its own peak would overstate it), read by bench/peakMemory.mjs in the child.
  * 4. Uncertainty draws (bench/drawsBench.ts): 1,000 draws of the demo's options on one worker per
  *    core, wall and CPU time against the goal of at most 5 s on two cores.
  * Timings on a shared machine are noisy: compare the ratios, and rerun.
@@ -21,7 +23,9 @@ import { spawnSync } from 'node:child_process';
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { availableParallelism, cpus, tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { poolWorkerScript } from '../src/cli/poolWorkerScript.ts';
 import { nodeWorkerPool } from '../src/cli/workerThreads.ts';
+import { cpuSplit, threadCpu } from './threadCpu.ts';
 import { benchDraws } from './drawsBench.ts';
 import { prepareScenario } from '../src/engine/prepare.ts';
 import { runScenarioSummary, runScenarioSummaryOnPool } from '../src/engine/run.ts';
@@ -148,52 +152,79 @@ function batchScenario(count: number): Scenario {
 }
 
 const batch = batchScenario(1000);
-console.log(`\n3. batch: ${batch.options.length} options, summary runs (as mixwise run)`);
+/** Timed batches per configuration, after one batch that warms the thread(s) up; the median is printed. */
+const ROUNDS = 3;
+console.log(`\n3. batch: ${batch.options.length} options, summary runs (as mixwise run); per configuration one batch to warm up, then the median of ${ROUNDS}`);
+console.log('   (each batch a new revision of the scenario, so the pool sends and prepares it anew as after an edit)');
 /** CPU milliseconds of the whole process, all threads. */
 function processCpuMs(): number {
   const c = process.cpuUsage();
   return (c.user + c.system) / 1000;
 }
-/** CPU milliseconds of this (the main) thread alone, from Linux's /proc (null elsewhere); 10 ms resolution. */
-function mainThreadCpuMs(): number | null {
+/** Round r's batch: the same options under another title, so another revision. */
+const roundOf = (r: number): Scenario => ({ ...batch, title: `${batch.title} (batch ${r})` });
+interface BatchTiming {
+  wall: number;
+  cpu: number;
+  /** CPU on this thread, the pool's worker threads and V8's helper threads (compiler, GC); null off Linux. */
+  split: { main: number; workers: number; helpers: number } | null;
+}
+/** Wall and CPU milliseconds per option of `run` over a warm-up batch and ROUNDS timed ones (medians). */
+async function timeBatches(run: (s: Scenario) => unknown, workers: ReadonlySet<number>): Promise<BatchTiming> {
+  await run(roundOf(0));
+  const rounds: BatchTiming[] = [];
+  for (let r = 1; r <= ROUNDS; r++) {
+    const s = roundOf(r);
+    const threads0 = threadCpu();
+    const cpu0 = processCpuMs();
+    const t0 = performance.now();
+    await run(s);
+    const wall = performance.now() - t0;
+    const cpu = processCpuMs() - cpu0;
+    const threads1 = threadCpu();
+    rounds.push({ wall, cpu, split: threads0 === null || threads1 === null ? null : cpuSplit(threads0, threads1, workers) });
+  }
+  const n = batch.options.length;
+  const mid = (f: (t: BatchTiming) => number) => median(rounds.map(f)) / n;
+  const split = rounds.every((t) => t.split !== null) ? { main: mid((t) => t.split?.main ?? 0), workers: mid((t) => t.split?.workers ?? 0), helpers: mid((t) => t.split?.helpers ?? 0) } : null;
+  return { wall: mid((t) => t.wall), cpu: mid((t) => t.cpu), split };
+}
+const ms2 = (x: number) => x.toFixed(2);
+{
+  const t0 = performance.now();
+  poolWorkerScript();
+  console.log(`   the pool threads' script, bundled once per process (src/cli/poolWorkerScript.ts): ${(performance.now() - t0).toFixed(0)} ms`);
+}
+const inline = await timeBatches((s) => runScenarioSummary(s), new Set());
+console.log(
+  `   this thread:         ${ms2(inline.wall)} ms per option; CPU ${ms2(inline.cpu)} ms per option` +
+    (inline.split === null ? '' : ` (this thread ${ms2(inline.split.main)}, V8 helper threads ${ms2(inline.split.helpers)})`),
+);
+for (const size of [1, availableParallelism()]) {
+  const before = threadCpu();
+  const t0 = performance.now();
+  const pool = nodeWorkerPool(size);
   try {
-    const fields = readFileSync(`/proc/self/task/${process.pid}/stat`, 'utf8').split(') ')[1].split(' ');
-    return (Number(fields[11]) + Number(fields[12])) * 10;
-  } catch {
-    return null;
+    // A fresh pool: threads started, the script loaded, the JIT cold; then warm batches.
+    await runScenarioSummaryOnPool(pool, roundOf(-1));
+    const fresh = performance.now() - t0;
+    const after = threadCpu();
+    const workers = new Set(before === null || after === null ? [] : [...after.keys()].filter((tid) => !before.has(tid)));
+    const warm = await timeBatches((s) => runScenarioSummaryOnPool(pool, s), workers);
+    const label = `pool of ${size} worker${size === 1 ? ': ' : 's:'}`.padEnd(21);
+    console.log(`   ${label}${ms2(warm.wall)} ms per option, ${(inline.wall / warm.wall).toFixed(2)}x this thread (a fresh pool's first batch, start-up and JIT warm-up included: ${ms2(fresh / batch.options.length)} ms per option)`);
+    // CPU time does not depend on what else the machine runs: what the pool costs beyond the runs themselves.
+    console.log(
+      `      CPU per option: ${ms2(warm.cpu)} ms all threads, ${(warm.cpu / inline.cpu).toFixed(2)}x this thread's batch alone` +
+        (warm.split === null ? '' : ` (worker threads ${ms2(warm.split.workers)}, V8 helper threads ${ms2(warm.split.helpers)}, this thread ${(warm.split.main).toFixed(3)})`),
+    );
+  } finally {
+    pool.close();
   }
 }
-runScenarioSummary(batchScenario(100)); // warmed as the pool's workers are below
-const t0 = performance.now();
-const cpu0 = processCpuMs();
-runScenarioSummary(batch);
-const inline = performance.now() - t0;
-const inlineCpu = (processCpuMs() - cpu0) / 1000;
-console.log(`   this thread:        ${inline.toFixed(0)} ms = ${(inline / 1000).toFixed(2)} ms per option (CPU ${inlineCpu.toFixed(2)} ms per option)`);
-for (const size of [1, availableParallelism()]) {
-  const pool = nodeWorkerPool(size);
-  // Start the workers and warm their JIT as this thread's is (it ran the demo many times above),
-  // on another scenario, so the timed map still sends and prepares its own.
-  await runScenarioSummaryOnPool(pool, batchScenario(size * 100));
-  const t1 = performance.now();
-  const cpu1 = processCpuMs();
-  const main1 = mainThreadCpuMs();
-  await runScenarioSummaryOnPool(pool, batch);
-  const ms = performance.now() - t1;
-  const allCpu = (processCpuMs() - cpu1) / 1000;
-  const main2 = mainThreadCpuMs();
-  const mainCpu = main1 === null || main2 === null ? null : (main2 - main1) / 1000;
-  pool.close();
-  console.log(
-    `   pool of ${String(size).padEnd(2)} worker${size === 1 ? ' ' : 's'}:  ${ms.toFixed(0)} ms = ${(ms / 1000).toFixed(2)} ms per option, ${((1000 * 1000) / ms).toFixed(0)} options/s, ${(inline / ms).toFixed(2)}x this thread`,
-  );
-  // CPU time does not depend on what else the machine runs: what the pool costs beyond the runs themselves.
-  console.log(
-    `      CPU per option: ${allCpu.toFixed(2)} ms all threads${mainCpu === null ? '' : ` (${mainCpu.toFixed(3)} ms on this thread)`}, ${(allCpu / inlineCpu).toFixed(2)}x this thread's run alone`,
-  );
-}
 
-// Memory: `mixwise run` of the 1000 options in its own process (the default threads), as an analyst runs it.
+// `mixwise run` of the 1000 options in its own process, as an analyst runs it: on one thread and
+// on one thread per core, from process start (tsx, threads, JIT warm-up and all), and its memory.
 {
   const dir = mkdtempSync(join(tmpdir(), 'mixwise-bench-'));
   try {
@@ -201,10 +232,23 @@ for (const size of [1, availableParallelism()]) {
     writeFileSync(file, JSON.stringify(batch));
     const bin = new URL('../bin/mixwise.mjs', import.meta.url).pathname;
     const peak = new URL('./peakMemory.mjs', import.meta.url).pathname;
-    const child = spawnSync(process.execPath, ['--import', peak, bin, 'run', file, '--format', 'json', '--out', join(dir, 'out.json')], { encoding: 'utf8' });
-    const kb = /peak-rss-kb (\d+)/.exec(child.stderr ?? '');
-    if (child.status !== 0 || kb === null) throw new Error(`mixwise run failed: ${child.stderr}`);
-    console.log(`   mixwise run of the ${batch.options.length} options (own process, one thread per core): peak resident memory ${(Number(kb[1]) / 1024).toFixed(0)} MB (target < 500 MB)`);
+    const runChild = (workers: number) => {
+      const t0 = performance.now();
+      const child = spawnSync(process.execPath, ['--import', peak, bin, 'run', file, '--workers', String(workers), '--format', 'json', '--out', join(dir, 'out.json')], { encoding: 'utf8' });
+      const wall = performance.now() - t0;
+      const kb = /peak-rss-kb (\d+)/.exec(child.stderr ?? '');
+      const cpu = /cpu-ms (\d+)/.exec(child.stderr ?? '');
+      if (child.status !== 0 || kb === null || cpu === null) throw new Error(`mixwise run failed: ${child.stderr}`);
+      return { wall, cpu: Number(cpu[1]), mb: Number(kb[1]) / 1024 };
+    };
+    const one = runChild(1);
+    const cores = availableParallelism();
+    const all = runChild(cores);
+    console.log(
+      `   mixwise run of the ${batch.options.length} options (own process, from start): 1 thread ${(one.wall / 1000).toFixed(2)} s (CPU ${(one.cpu / 1000).toFixed(2)} s), ` +
+        `${cores} threads ${(all.wall / 1000).toFixed(2)} s (CPU ${(all.cpu / 1000).toFixed(2)} s): ${(one.wall / all.wall).toFixed(2)}x`,
+    );
+    console.log(`      peak resident memory on ${cores} threads ${all.mb.toFixed(0)} MB (target < 500 MB)`);
   } finally {
     rmSync(dir, { recursive: true, force: true });
   }
