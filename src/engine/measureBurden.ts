@@ -10,9 +10,9 @@
  * contacts at home). Divided by c_s this is the same count in "full-closure days": 38 means the
  * setting lost as many contacts as 38 days of complete closure.
  *
- * Cost: c_s once per scenario; c_s(d) once per set of phases in force, over stretches of days with
- * the same set (not day by day); and an option without triggers (whose burden depends on the
- * scenario and the option alone) once per scenario and option. Scenarios and options are the
+ * Cost: c_s once per scenario; c_s(d) once per scenario, option and set of phases in force, over
+ * stretches of days with the same set (not day by day); and an option without triggers (whose
+ * burden depends on the scenario and the option alone) once per scenario and option. Scenarios and options are the
  * validated values, which nothing changes once validated.
  */
 import { effectiveContactsOfPhasesInto } from './contacts.ts';
@@ -88,10 +88,30 @@ interface Removed {
   removed: number[];
 }
 
+/**
+ * Contacts per person under each set of phases in force, per scenario and option, keyed by the
+ * phases' indices: a triggered option's few sets are summed once, not on every run.
+ */
+const underBySet = new WeakMap<Scenario, WeakMap<PolicyOption, Map<string, number[]>>>();
+
+function contactsUnderCache(s: Scenario, option: PolicyOption): Map<string, number[]> {
+  let byOption = underBySet.get(s);
+  if (byOption === undefined) {
+    byOption = new WeakMap();
+    underBySet.set(s, byOption);
+  }
+  let cache = byOption.get(option);
+  if (cache === undefined) {
+    cache = new Map();
+    byOption.set(option, cache);
+  }
+  return cache;
+}
+
 function removedContacts(s: Scenario, option: PolicyOption, triggers: readonly TriggerOutcome[]): Removed {
   const usual = usualContactsPerPerson(s);
   const removed = usual.map(() => 0);
-  const cache = new Map<string, number[]>();
+  const cache = contactsUnderCache(s, option);
   let daysUnderMeasures = 0;
   for (const { fromDay, toDay, phases } of phasesInForce(option, triggers, s.horizonDays)) {
     if (phases.length === 0) continue;
