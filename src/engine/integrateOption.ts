@@ -55,10 +55,9 @@ function denseComponentsOf(L: StateLayout): Int32Array {
 }
 
 /**
- * Which code integrates an option without vaccination: the WebAssembly kernel (optionKernel.ts,
- * the same steps in the same arithmetic, about 4 times faster) or the TypeScript integrator
- * (integrator.ts with seir.ts), where WebAssembly cannot compile the kernel. Options with
- * vaccination always take the TypeScript path.
+ * Which code integrates an option: the WebAssembly kernel (optionKernel.ts, the same steps in the
+ * same arithmetic, about 4 times faster) or the TypeScript integrator (integrator.ts with
+ * seir.ts), where WebAssembly cannot compile the kernel.
  */
 export type Integration = 'kernel' | 'typescript';
 
@@ -132,15 +131,17 @@ export function integrateOption(
    */
   let advance: (from: number, to: number, watch: ((day: number, state: Float64Array) => boolean) | null) => number | null;
   let finish = (): void => {};
-  if (campaign === null && integration === 'kernel') {
-    const { latentStages, infectiousStages, latentPeriodDays, infectiousPeriodDays } = p.periods;
-    const run = new KernelRun(n, latentStages, infectiousStages, latentPeriodDays, infectiousPeriodDays, H, y, s0, tolerances);
+  if (integration === 'kernel') {
+    const run = new KernelRun(L, p.periods.latentPeriodDays, p.periods.infectiousPeriodDays, H, y, s0, tolerances, campaign?.vaccine ?? null, doses);
     run.copyDay(0, daily);
     advance = (from, to, watch) => {
-      step = run.integrate(from, to, firstStep(), transmission, watch, daily);
+      step = run.integrate(from, to, firstStep(), transmission, doses, watch, daily);
       return run.stoppedAt;
     };
-    finish = () => run.copyAll(daily);
+    finish = () => {
+      run.copyAll(daily);
+      run.copyState(y);
+    };
   } else {
     record(0, y);
     const rhs = seirRightHandSide(L, p.periods.latentPeriodDays, p.periods.infectiousPeriodDays, transmission, campaign?.vaccine ?? null, doses, false);

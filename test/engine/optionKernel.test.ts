@@ -1,9 +1,9 @@
 /**
  * The WebAssembly kernel (src/engine/optionKernel.ts) against the TypeScript integrator it
- * replaces for options without vaccination: the same steps in the same arithmetic, so every
- * daily value, the step count, the switch days of triggered measures and the failure are the same
- * bit for bit. Padding (odd band counts), Erlang stages, several segments, tolerance overrides
- * and triggered stops are covered.
+ * replaces: the same steps in the same arithmetic, so every daily value, the step count, the
+ * switch days of triggered measures and the failure are the same bit for bit. Padding (odd band
+ * counts), Erlang stages, several segments, tolerance overrides, triggered stops and vaccination
+ * (leaky and all-or-nothing, with triggers too) are covered.
  */
 import { describe, expect, it } from 'vitest';
 import { type Accuracy, type DailyState, type Integration, integrateOption } from '../../src/engine/integrateOption.ts';
@@ -25,14 +25,15 @@ interface Run {
   switches: unknown;
 }
 
-/** integrateOption as simulate.ts calls it (no vaccination), on the given path. */
+/** integrateOption as simulate.ts calls it, on the given path. */
 function run(s: Scenario, option: PolicyOption, integration: Integration, accuracy: Accuracy = {}): Run {
   const p = prepareScenario(s);
+  const campaign = option.vaccinationCampaign === undefined ? null : (p.campaigns.get(option.vaccinationCampaign) ?? null);
   const triggered = hasTriggers(option)
-    ? { measures: new TriggeredMeasures(p, option, 1), fixedPhaseAt: (t: number) => phaseAt(option, t), realized: [] as Segment[] }
+    ? { measures: new TriggeredMeasures(p, option, campaign?.admissionRiskFactor ?? 1), fixedPhaseAt: (t: number) => phaseAt(option, t), realized: [] as Segment[] }
     : null;
   const before = integratorStepsSoFar();
-  const daily = integrateOption(p, segmentsOf(p, option, []), null, triggered, accuracy, integration);
+  const daily = integrateOption(p, segmentsOf(p, option, campaign?.plan ?? []), campaign, triggered, accuracy, integration);
   return {
     daily,
     steps: integratorStepsSoFar() - before,
@@ -93,11 +94,24 @@ describe('the WebAssembly kernel', () => {
     expect(kernelAvailable()).toBe(true);
   });
 
-  it('gives the TypeScript path\'s daily record bit for bit: demo options without vaccination', () => {
+  it('gives the TypeScript path\'s daily record bit for bit: every demo option', () => {
     const demo = demoScenario();
-    const options = demo.options.filter((o) => o.vaccinationCampaign === undefined);
-    expect(options.length).toBeGreaterThanOrEqual(4);
-    for (const option of options) expectSameRuns(demo, option);
+    expect(demo.options.filter((o) => o.vaccinationCampaign !== undefined).length).toBeGreaterThan(0);
+    for (const option of demo.options) expectSameRuns(demo, option);
+  });
+
+  it('the same with all-or-nothing protection (a V block), another efficacy, and a triggered phase over the campaign', () => {
+    const demo = demoScenario();
+    const allOrNothing = { ...demo, vaccinationCampaigns: demo.vaccinationCampaigns.map((c) => ({ ...c, protection: 'allOrNothing' as const })) };
+    const option = demo.options.find((o) => o.vaccinationCampaign !== undefined)!;
+    expectSameRuns(allOrNothing, option);
+    // Efficacy 0.7: a relative risk in P that is not a power of 2 (0.5 would make some orders of the products equal).
+    const leaky = { ...demo, vaccinationCampaigns: demo.vaccinationCampaigns.map((c) => ({ ...c, protection: 'leaky' as const, efficacyAgainstInfection: 0.7 })) };
+    expectSameRuns(leaky, option);
+    const trigger = { quantity: 'infectiousPer100k' as const, onAbove: 300, offBelow: 50, minimumDaysOn: 14, lagDays: 3 };
+    const phase = { ...demo.options[1].phases[0], fromDay: 0, toDay: demo.horizonDays, trigger };
+    const triggered = expectSameRuns(demo, { ...option, name: 'vaccinated, triggered', phases: [...option.phases, phase] });
+    expect(triggered.realized.length).toBeGreaterThan(2);
   });
 
   it('the same with a tolerance override (rtol 1e-9, as the accuracy checks run)', () => {

@@ -1,8 +1,9 @@
 /**
- * WebAssembly kernel of an option run without vaccination, in AssemblyScript (built by
- * `npm run wasm` into ../optionKernelBinary.ts; the host side is ../../optionKernel.ts): the
- * Tsitouras 5(4) steps of ../../integrator.ts, the right-hand side of ../../seir.ts without
- * counters (S, E stages, I stages), dense output at whole days and the daily record of
+ * WebAssembly kernel of an option run, in AssemblyScript (built by `npm run wasm` into
+ * ../optionKernelBinary.ts; the host side is ../../optionKernel.ts): the Tsitouras 5(4) steps of
+ * ../../integrator.ts, the right-hand side of ../../seir.ts without counters (S, E stages,
+ * I stages, and with vaccination W, P | Xp, Q, V, the unvaccinated in closed form as in
+ * ../../vaccination/unvaccinated.ts), dense output at whole days and the daily record of
  * ../../integrateOption.ts.
  *
  * Every floating-point operation is the one of the TypeScript path, in the same order, so the
@@ -13,8 +14,9 @@
  *
  * Memory (byte offsets set by `configure` from `base`): bands are padded to an even count np
  * (zero rows and columns of the transmission matrix, zero components: a zero stays zero and adds
- * nothing to any sum). State blocks of np: S, E stage 1..kE, I stage 1..kI. Daily records: rows
- * of np, days 0..horizon. No allocation, no runtime.
+ * nothing to any sum). State blocks of np in seir.ts's order; the first mActive components are
+ * the ones the right-hand side reads (stage values are formed for those only). Daily records:
+ * rows of np, days 0..horizon. No allocation, no runtime.
  */
 
 @external('env', 'pow')
@@ -46,7 +48,8 @@ let n: i32 = 0; // bands
 let np: i32 = 0; // bands padded to even
 let kE: i32 = 1;
 let kI: i32 = 1;
-let m: i32 = 0; // components incl. padding: (1 + kE + kI) np
+let m: i32 = 0; // components incl. padding: blocks x np
+let mActive: i32 = 0; // the components the right-hand side reads: S, E.., I.. (and W, P)
 let count: f64 = 0; // components without padding, for the RMS norm
 let aE: f64 = 0;
 let aI: f64 = 0;
@@ -56,6 +59,12 @@ let maxStep: f64 = 0;
 let flushBelow: f64 = 0;
 let horizon: i32 = 0;
 let watchDays: bool = false;
+// Vaccination (seir.ts): 0 none, 1 leaky, 2 all-or-nothing; blocks W, P | Xp, Q (, V) after I.
+let protection: i32 = 0;
+let risk: f64 = 1;
+let protect: f64 = 0;
+let efficacy: f64 = 0;
+let dosesFrom: f64 = 0; // start of the dose segment (vaccination/unvaccinated.ts)
 
 // Byte offsets (configure).
 let pY: usize = 0; // state in and out
@@ -67,9 +76,15 @@ let pDense: usize = 0; // dense-output state, read by the host's `day`
 let pM: usize = 0; // transmission, n rows of np
 let pInf: usize = 0; // np
 let pS0: usize = 0; // np, initial susceptibles
+let pAtStart: usize = 0; // np, unvaccinated at the dose segment's start
+let pRates: usize = 0; // np, doses per day in the segment
+let pPerUnit: usize = 0; // np, 1 / quadrature unit (seir.ts quadratureUnits)
+let pUnit: usize = 0; // np, quadrature unit
 let pOutS: usize = 0; // (horizon + 1) rows of np
 let pOutPrev: usize = 0;
 let pOutCum: usize = 0;
+let pOutEff: usize = 0; // S + W + s P (vaccination only)
+let pOutProt: usize = 0; // Xp in persons (vaccination only)
 
 // Results of the last `integrate`.
 let lastSteps: i32 = 0;
@@ -80,14 +95,18 @@ let lastFailedAt: f64 = NaN;
 
 export function configure(
   bands: i32, latentStages: i32, infectiousStages: i32, latentRate: f64, infectiousRate: f64,
-  relative: f64, absolute: f64, largestStep: f64, flush: f64, horizonDays: i32, base: usize,
+  relative: f64, absolute: f64, largestStep: f64, flush: f64, horizonDays: i32, vaccine: i32, base: usize,
 ): usize {
   n = bands;
   np = (bands + 1) & ~1;
   kE = latentStages;
   kI = infectiousStages;
-  m = (1 + kE + kI) * np;
-  count = <f64>((1 + kE + kI) * bands);
+  protection = vaccine;
+  const active = 1 + kE + kI + (vaccine > 0 ? 2 : 0);
+  const blocks = active + (vaccine > 0 ? 2 : 0) + (vaccine == 2 ? 1 : 0);
+  mActive = active * np;
+  m = blocks * np;
+  count = <f64>(blocks * bands);
   aE = latentRate;
   aI = infectiousRate;
   rtol = relative;
@@ -105,11 +124,17 @@ export function configure(
   pM = pDense + block;
   pInf = pM + (<usize>(n * np) << 3);
   pS0 = pInf + (<usize>np << 3);
-  pOutS = pS0 + (<usize>np << 3);
+  pAtStart = pS0 + (<usize>np << 3);
+  pRates = pAtStart + (<usize>np << 3);
+  pPerUnit = pRates + (<usize>np << 3);
+  pUnit = pPerUnit + (<usize>np << 3);
+  pOutS = pUnit + (<usize>np << 3);
   const rows = <usize>((horizonDays + 1) * np) << 3;
   pOutPrev = pOutS + rows;
   pOutCum = pOutPrev + rows;
-  const end = pOutCum + rows;
+  pOutEff = pOutCum + rows;
+  pOutProt = pOutEff + (vaccine > 0 ? rows : 0);
+  const end = pOutProt + (vaccine > 0 ? rows : 0);
   const pages = <i32>((end + 65535) >> 16) - memory.size();
   if (pages > 0 && memory.grow(pages) < 0) unreachable();
   // The padding must be zero; everything else is written before it is read.
@@ -118,7 +143,23 @@ export function configure(
   return end;
 }
 
+/** The vaccine (seir.ts): relative risk in P, 1 / delay to protection, efficacy against infection. */
+export function configureVaccine(protectedRisk: f64, protectionRate: f64, efficacyAgainstInfection: f64): void {
+  risk = protectedRisk;
+  protect = protectionRate;
+  efficacy = efficacyAgainstInfection;
+}
+
+/** The dose segment's start; the host writes U there and the rates (vaccination/unvaccinated.ts). */
+export function setDosesFrom(day: f64): void { dosesFrom = day; }
+
 export function offsetOfState(): usize { return pY; }
+export function offsetOfUnvaccinatedAtStart(): usize { return pAtStart; }
+export function offsetOfDoseRates(): usize { return pRates; }
+export function offsetOfPerUnit(): usize { return pPerUnit; }
+export function offsetOfUnit(): usize { return pUnit; }
+export function offsetOfEffectiveSusceptible(): usize { return pOutEff; }
+export function offsetOfProtectedCumulative(): usize { return pOutProt; }
 export function offsetOfDense(): usize { return pDense; }
 export function offsetOfTransmission(): usize { return pM; }
 export function offsetOfInitialSusceptible(): usize { return pS0; }
@@ -154,8 +195,8 @@ export function setWatchDays(on: bool): void { watchDays = on; }
   return a0 + f64x2.extract_lane(lo, 1) + (f64x2.extract_lane(hi, 0) + f64x2.extract_lane(hi, 1));
 }
 
-/** seir.ts's right-hand side without vaccination and counters, into dy. */
-function rhs(y: usize, dy: usize): void {
+/** seir.ts's right-hand side without counters at time t, into dy. */
+function rhs(t: f64, y: usize, dy: usize): void {
   const zero = f64x2.splat(0);
   const stride = <usize>np << 3;
   const oE = stride;
@@ -175,8 +216,38 @@ function rhs(y: usize, dy: usize): void {
     let lambda = zero;
     if (i < n) lambda = f64x2.replace_lane(lambda, 0, rowTimes(pM + ((<usize>(i * np)) << 3), pInf));
     if (i + 1 < n) lambda = f64x2.replace_lane(lambda, 1, rowTimes(pM + ((<usize>((i + 1) * np)) << 3), pInf));
-    const flow = f64x2.mul(lambda, f64x2.pmax(zero, v128.load(y + at)));
-    v128.store(dy + at, f64x2.neg(flow));
+    const susceptible = f64x2.pmax(zero, v128.load(y + at));
+    let flow = f64x2.mul(lambda, susceptible);
+    if (protection > 0) {
+      const oW = oI + stride * <usize>kI;
+      const oP = oW + stride;
+      const oXp = oP + stride;
+      const oQ = oXp + stride;
+      const w = f64x2.max(zero, v128.load(y + oW + at));
+      const p = f64x2.max(zero, v128.load(y + oP + at));
+      const rates = v128.load(pRates + at);
+      const u = f64x2.sub(v128.load(pAtStart + at), f64x2.mul(rates, f64x2.splat(t - dosesFrom)));
+      const some = f64x2.gt(u, zero);
+      const v = v128.bitselect(rates, zero, some);
+      const share = v128.bitselect(f64x2.min(f64x2.splat(1), f64x2.div(susceptible, u)), zero, some);
+      const toWaiting = f64x2.mul(v, share);
+      const protecting = f64x2.mul(f64x2.splat(protect), w);
+      const protectedFlow = f64x2.mul(f64x2.mul(f64x2.splat(risk), lambda), p);
+      const perUnit = v128.load(pPerUnit + at);
+      v128.store(dy + at, f64x2.sub(f64x2.neg(flow), toWaiting));
+      v128.store(dy + oW + at, f64x2.sub(f64x2.sub(toWaiting, f64x2.mul(lambda, w)), protecting));
+      if (protection == 1) {
+        v128.store(dy + oP + at, f64x2.sub(protecting, protectedFlow));
+      } else {
+        v128.store(dy + oP + at, f64x2.sub(f64x2.mul(f64x2.splat(1 - efficacy), protecting), protectedFlow));
+        v128.store(dy + oQ + stride + at, f64x2.mul(f64x2.splat(efficacy), protecting));
+      }
+      v128.store(dy + oXp + at, f64x2.mul(perUnit, protectedFlow));
+      v128.store(dy + oQ + at, f64x2.mul(perUnit, f64x2.sub(v, toWaiting)));
+      flow = f64x2.add(flow, f64x2.add(f64x2.mul(lambda, w), protectedFlow));
+    } else {
+      v128.store(dy + at, f64x2.neg(flow));
+    }
     v128.store(dy + oE + at, f64x2.sub(flow, f64x2.mul(vE, v128.load(y + oE + at))));
     for (let s: i32 = 1; s < kE; s++) {
       const c = oE + stride * <usize>s + at;
@@ -203,7 +274,20 @@ function record(day: i32, y: usize): void {
     for (let b: i32 = 0; b < blocks; b++) infected = f64x2.add(infected, v128.load(y + stride * <usize>(1 + b) + at));
     v128.store(pOutS + row + at, f64x2.pmax(zero, s));
     v128.store(pOutPrev + row + at, f64x2.pmax(zero, infected));
-    v128.store(pOutCum + row + at, f64x2.pmax(zero, f64x2.sub(v128.load(pS0 + at), s)));
+    let x = f64x2.sub(v128.load(pS0 + at), s);
+    if (protection > 0) {
+      // X = (S + W + P + V)(0) - (S + W + P + V): integrateOption.ts's record.
+      const oW = stride * <usize>(1 + blocks);
+      const w = v128.load(y + oW + at);
+      const pr = v128.load(y + oW + stride + at);
+      const immune = protection == 2 ? v128.load(y + oW + 4 * stride + at) : zero;
+      x = f64x2.sub(x, f64x2.add(f64x2.add(w, pr), immune));
+      const eff = f64x2.add(f64x2.add(s, w), f64x2.mul(f64x2.splat(risk), pr));
+      v128.store(pOutEff + row + at, f64x2.pmax(zero, eff));
+      const xp = f64x2.mul(v128.load(y + oW + 2 * stride + at), v128.load(pUnit + at));
+      v128.store(pOutProt + row + at, f64x2.pmax(zero, xp));
+    }
+    v128.store(pOutCum + row + at, f64x2.pmax(zero, x));
   }
 }
 
@@ -217,6 +301,7 @@ export function recordState(day: i32): void {
  */
 export function integrate(t0: f64, t1: f64, initialStep: f64): f64 {
   const size = <usize>m << 3;
+  const activeSize = <usize>mActive << 3;
   const k2 = k(1), k3 = k(2), k4 = k(3), k5 = k(4), k6 = k(5);
   let k1 = k(0);
   let k7 = k(6);
@@ -233,7 +318,7 @@ export function integrate(t0: f64, t1: f64, initialStep: f64): f64 {
   let h = Math.min(Math.min(initialStep, maxStep), t1 - t0);
   let day: i32 = 1;
   while (day <= horizon && <f64>day <= t0) day++;
-  rhs(yNow, k1);
+  rhs(t, yNow, k1);
   while (t < t1) {
     lastAttempted++;
     const last = t + 1.01 * h >= t1;
@@ -241,41 +326,41 @@ export function integrate(t0: f64, t1: f64, initialStep: f64): f64 {
     const vh = f64x2.splat(h);
     {
       const c1 = f64x2.splat(h * A21);
-      for (let i: usize = 0; i < size; i += 16) {
+      for (let i: usize = 0; i < activeSize; i += 16) {
         v128.store(pStage + i, f64x2.add(v128.load(yNow + i), f64x2.mul(c1, v128.load(k1 + i))));
       }
     }
-    rhs(pStage, k2);
+    rhs(t + C2 * h, pStage, k2);
     {
       const c1 = f64x2.splat(A31), c2 = f64x2.splat(A32);
-      for (let i: usize = 0; i < size; i += 16) {
+      for (let i: usize = 0; i < activeSize; i += 16) {
         const s = f64x2.add(f64x2.mul(c1, v128.load(k1 + i)), f64x2.mul(c2, v128.load(k2 + i)));
         v128.store(pStage + i, f64x2.add(v128.load(yNow + i), f64x2.mul(vh, s)));
       }
     }
-    rhs(pStage, k3);
+    rhs(t + C3 * h, pStage, k3);
     {
       const c1 = f64x2.splat(A41), c2 = f64x2.splat(A42), c3 = f64x2.splat(A43);
-      for (let i: usize = 0; i < size; i += 16) {
+      for (let i: usize = 0; i < activeSize; i += 16) {
         let s = f64x2.add(f64x2.mul(c1, v128.load(k1 + i)), f64x2.mul(c2, v128.load(k2 + i)));
         s = f64x2.add(s, f64x2.mul(c3, v128.load(k3 + i)));
         v128.store(pStage + i, f64x2.add(v128.load(yNow + i), f64x2.mul(vh, s)));
       }
     }
-    rhs(pStage, k4);
+    rhs(t + C4 * h, pStage, k4);
     {
       const c1 = f64x2.splat(A51), c2 = f64x2.splat(A52), c3 = f64x2.splat(A53), c4 = f64x2.splat(A54);
-      for (let i: usize = 0; i < size; i += 16) {
+      for (let i: usize = 0; i < activeSize; i += 16) {
         let s = f64x2.add(f64x2.mul(c1, v128.load(k1 + i)), f64x2.mul(c2, v128.load(k2 + i)));
         s = f64x2.add(s, f64x2.mul(c3, v128.load(k3 + i)));
         s = f64x2.add(s, f64x2.mul(c4, v128.load(k4 + i)));
         v128.store(pStage + i, f64x2.add(v128.load(yNow + i), f64x2.mul(vh, s)));
       }
     }
-    rhs(pStage, k5);
+    rhs(t + C5 * h, pStage, k5);
     {
       const c1 = f64x2.splat(A61), c2 = f64x2.splat(A62), c3 = f64x2.splat(A63), c4 = f64x2.splat(A64), c5 = f64x2.splat(A65);
-      for (let i: usize = 0; i < size; i += 16) {
+      for (let i: usize = 0; i < activeSize; i += 16) {
         let s = f64x2.add(f64x2.mul(c1, v128.load(k1 + i)), f64x2.mul(c2, v128.load(k2 + i)));
         s = f64x2.add(s, f64x2.mul(c3, v128.load(k3 + i)));
         s = f64x2.add(s, f64x2.mul(c4, v128.load(k4 + i)));
@@ -283,7 +368,7 @@ export function integrate(t0: f64, t1: f64, initialStep: f64): f64 {
         v128.store(pStage + i, f64x2.add(v128.load(yNow + i), f64x2.mul(vh, s)));
       }
     }
-    rhs(pStage, k6);
+    rhs(t + h, pStage, k6);
     {
       const c1 = f64x2.splat(B1), c2 = f64x2.splat(B2), c3 = f64x2.splat(B3), c4 = f64x2.splat(B4), c5 = f64x2.splat(B5), c6 = f64x2.splat(B6);
       for (let i: usize = 0; i < size; i += 16) {
@@ -295,7 +380,7 @@ export function integrate(t0: f64, t1: f64, initialStep: f64): f64 {
         v128.store(yNext + i, f64x2.add(v128.load(yNow + i), f64x2.mul(vh, s)));
       }
     }
-    rhs(yNext, k7);
+    rhs(t + h, yNext, k7);
     let err: f64 = 0;
     {
       const c1 = f64x2.splat(E1), c2 = f64x2.splat(E2), c3 = f64x2.splat(E3), c4 = f64x2.splat(E4), c5 = f64x2.splat(E5), c6 = f64x2.splat(E6), c7 = f64x2.splat(E7);
@@ -334,7 +419,7 @@ export function integrate(t0: f64, t1: f64, initialStep: f64): f64 {
         flushed = true;
       }
     }
-    if (flushed) rhs(yNext, k7);
+    if (flushed) rhs(t + h, yNext, k7);
     if (accepted > MAX_STEPS) {
       lastFailedAt = t;
       return h;
