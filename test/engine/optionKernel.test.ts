@@ -11,7 +11,7 @@ import { integratorStepsSoFar } from '../../src/engine/integrator.ts';
 import { kernelAvailable } from '../../src/engine/optionKernel.ts';
 import { hasTriggers, phaseAt } from '../../src/engine/phases.ts';
 import { prepareScenario } from '../../src/engine/prepare.ts';
-import type { PolicyOption, Scenario } from '../../src/engine/scenario.ts';
+import type { PolicyOption, Scenario, ScenarioInput } from '../../src/engine/scenario.ts';
 import { type Segment, segmentsOf } from '../../src/engine/segments.ts';
 import { TriggeredMeasures } from '../../src/engine/triggeredMeasures.ts';
 import { decodeBase64 } from '../../src/engine/wasm/base64.ts';
@@ -64,7 +64,32 @@ function expectSameRuns(s: Scenario, option: PolicyOption, accuracy: Accuracy = 
 
 /** Three bands (odd: the kernel pads to four), 2 latent and 3 infectious stages, phases on fixed days and a triggered one. */
 function threeBands(): Scenario {
+  return valid(threeBandsInput());
+}
+
+/** The same with a campaign for the two older bands (all-or-nothing), on an option of its own. */
+function threeBandsVaccinated(): Scenario {
+  const input = threeBandsInput();
   return valid({
+    ...input,
+    vaccinationCampaigns: [{
+      name: 'campaign',
+      schedule: [{ fromDay: 20, dosesPerDay: 3000 }, { fromDay: 60, dosesPerDay: 6000 }],
+      uptakeCeiling: [0, 0.7, 0.9],
+      delayToProtectionDays: 10,
+      efficacyAgainstInfection: 0.6,
+      efficacyAgainstDeath: 0.9,
+      efficacyAgainstAdmission: 0.85,
+      protection: 'allOrNothing',
+      priority: [[2], [1]],
+      source: 'test value',
+    }],
+    options: [...input.options, { name: 'vaccinated', phases: [], vaccinationCampaign: 'campaign' }],
+  });
+}
+
+function threeBandsInput(): ScenarioInput {
+  return {
     format: 'mixwise-scenario',
     version: 1,
     title: 'three bands',
@@ -86,7 +111,7 @@ function threeBands(): Scenario {
         phases: [{ fromDay: 0, toDay: 400, settingMultipliers: { work: 0.1 }, trigger: { quantity: 'infectiousPer100k', onAbove: 500, offBelow: 100, minimumDaysOn: 10, lagDays: 2 } }],
       },
     ],
-  });
+  };
 }
 
 describe('the WebAssembly kernel', () => {
@@ -120,10 +145,15 @@ describe('the WebAssembly kernel', () => {
     expect(r.steps).toBeGreaterThan(250);
   });
 
-  it('the same on an odd band count with Erlang stages, over several segments', () => {
+  it('the same on an odd band count with Erlang stages, over several segments, with and without vaccination', () => {
     const s = threeBands();
     expectSameRuns(s, s.options[0]);
     expectSameRuns(s, s.options[1]);
+    const vaccinated = threeBandsVaccinated();
+    const campaign = expectSameRuns(vaccinated, vaccinated.options[3]);
+    // The campaign reached people: infections among the protected, and doses to non-susceptibles.
+    expect(campaign.daily.protectedCumulative.reduce((a, b) => Math.max(a, b), 0)).toBeGreaterThan(1);
+    expect(campaign.daily.dosesToNonSusceptible.reduce((a, b) => a + b, 0)).toBeGreaterThan(1);
   });
 
   it('the same for triggered measures: the same switch days and realized segments', () => {
