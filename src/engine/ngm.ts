@@ -83,3 +83,137 @@ export function spectralRadius(
   for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) scaled[i * n + j] = rowScale[i] * flat[i * n + j];
   return perronRoot(scaled, n);
 }
+
+/** Largest |r| for which `scaledSpectralRadius` extrapolates: 1 / (1 - r) amplifies rounding at most 20-fold. */
+const MAX_EXTRAPOLATION_RATIO = 0.95;
+
+/**
+ * `spectralRadius` of K = diag(rowScale) M for R(t) day by day (reproduction.ts), where it runs
+ * hundreds of times per option, accelerated: any combination y = sum c_k x_k of the iterates has
+ * the product M y = sum c_k (M x_k) without a matrix-vector product, so its Collatz-Wielandt
+ * bracket costs O(n). From the third iterate on, when the bracket of x_k has not closed, it tries
+ * the iterate with the slowest error component removed (Aitken's delta-squared process applied to
+ * the vectors; Aitken 1926, Proc R Soc Edinburgh 46:289; Wilkinson 1965, The Algebraic Eigenvalue
+ * Problem, ch. 9, from memory): if x_k ~ v + c r^k w, then (x_k - r x_{k-1}) / (1 - r) = v, with
+ * r estimated as <x_k - x_{k-1}, x_{k-1} - x_{k-2}> / |x_{k-1} - x_{k-2}|^2. The extrapolated y
+ * is accepted only when its own bracket, from M y = (M x_k - r M x_{k-1}) / (1 - r), is narrower
+ * than `relativeTolerance`, so the result is certified as before; otherwise the iteration goes on
+ * unchanged. `work` holds 5n numbers. On return `vector` and `product` hold the certified x and
+ * M x (the latter to rounding when x was extrapolated). Same stop rule and fallback as
+ * `spectralRadius`; products use rowTimes' order of additions.
+ */
+export function scaledSpectralRadius(
+  flat: Float64Array,
+  n: number,
+  rowScale: Float64Array,
+  vector: Float64Array,
+  product: Float64Array,
+  work: Float64Array,
+  relativeTolerance: number,
+): number {
+  // work: [scratch | x_{k-1} | M x_{k-1} | x_{k-2} | M x_{k-2}], n each.
+  const x1 = n;
+  const p1 = 2 * n;
+  const x2 = 3 * n;
+  const p2 = 4 * n;
+  let sum = 0;
+  for (let i = 0; i < n; i++) sum += vector[i];
+  if (!(sum > 0)) {
+    vector.fill(1 / n);
+    sum = 1;
+  }
+  for (let i = 0; i < n; i++) vector[i] /= sum;
+  for (let iter = 0; iter < 300; iter++) {
+    let total = 0;
+    let low = Infinity;
+    let high = 0;
+    for (let i = 0; i < n; i++) {
+      const row = i * n;
+      let a0 = 0;
+      let a1 = 0;
+      let a2 = 0;
+      let a3 = 0;
+      let j = 0;
+      for (; j + 3 < n; j += 4) {
+        a0 += flat[row + j] * vector[j];
+        a1 += flat[row + j + 1] * vector[j + 1];
+        a2 += flat[row + j + 2] * vector[j + 2];
+        a3 += flat[row + j + 3] * vector[j + 3];
+      }
+      for (; j < n; j++) a0 += flat[row + j] * vector[j];
+      const acc = a0 + a1 + (a2 + a3);
+      product[i] = acc;
+      const image = acc * rowScale[i];
+      work[i] = image;
+      total += image;
+      const x = vector[i];
+      if (x > 0) {
+        const ratio = image / x;
+        low = Math.min(low, ratio);
+        high = Math.max(high, ratio);
+      } else if (image > 0) {
+        high = Infinity;
+      }
+    }
+    if (total === 0) return 0;
+    if (high < Infinity && high - low <= relativeTolerance * high) return 0.5 * (low + high);
+    if (iter >= 2) {
+      const r = extrapolated(vector, product, work, n, rowScale, relativeTolerance);
+      if (!Number.isNaN(r)) return r;
+    }
+    const inverse = 1 / total;
+    for (let i = 0; i < n; i++) {
+      work[x2 + i] = work[x1 + i];
+      work[p2 + i] = work[p1 + i];
+      work[x1 + i] = vector[i];
+      work[p1 + i] = product[i];
+      vector[i] = work[i] * inverse;
+    }
+  }
+  vector.fill(1 / n);
+  product.fill(0);
+  const scaled = new Float64Array(n * n);
+  for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) scaled[i * n + j] = rowScale[i] * flat[i * n + j];
+  return perronRoot(scaled, n);
+}
+
+/**
+ * The Aitken step of `scaledSpectralRadius` from x_k (`vector`, `product`) and the two iterates
+ * before it in `work`: the midpoint of the extrapolated vector's bracket when it is narrower than
+ * `relativeTolerance` (then `vector` and `product` receive y and M y); NaN otherwise, nothing
+ * changed. Uses work[0..n) as scratch only after reading nothing from it.
+ */
+function extrapolated(vector: Float64Array, product: Float64Array, work: Float64Array, n: number, rowScale: Float64Array, relativeTolerance: number): number {
+  const x1 = n;
+  const p1 = 2 * n;
+  const x2 = 3 * n;
+  let cross = 0;
+  let square = 0;
+  for (let i = 0; i < n; i++) {
+    const before = work[x1 + i] - work[x2 + i];
+    cross += (vector[i] - work[x1 + i]) * before;
+    square += before * before;
+  }
+  const r = cross / square;
+  if (!(Math.abs(r) <= MAX_EXTRAPOLATION_RATIO) || r === 0) return NaN;
+  const gain = 1 / (1 - r);
+  let low = Infinity;
+  let high = 0;
+  for (let i = 0; i < n; i++) {
+    const y = (vector[i] - r * work[x1 + i]) * gain;
+    const image = rowScale[i] * ((product[i] - r * work[p1 + i]) * gain);
+    if (!(y > 0)) {
+      if (image > 0 || y < 0) return NaN;
+      continue;
+    }
+    const ratio = image / y;
+    low = Math.min(low, ratio);
+    high = Math.max(high, ratio);
+  }
+  if (!(high > 0 && high - low <= relativeTolerance * high)) return NaN;
+  for (let i = 0; i < n; i++) {
+    vector[i] = (vector[i] - r * work[x1 + i]) * gain;
+    product[i] = (product[i] - r * work[p1 + i]) * gain;
+  }
+  return 0.5 * (low + high);
+}
