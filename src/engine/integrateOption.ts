@@ -54,6 +54,22 @@ function denseComponentsOf(L: StateLayout): Int32Array {
   return Int32Array.from(blocks.flatMap((b) => Array.from({ length: L.bands }, (_, i) => b + i)));
 }
 
+/** Zeroed daily arrays for a run of `p` with `campaign`. */
+export function newDailyState(p: PreparedScenario, campaign: PreparedCampaign | null): DailyState {
+  const n = p.bands.bands;
+  const rows = (p.scenario.horizonDays + 1) * n;
+  const susceptibleRows = new Float64Array(rows);
+  return {
+    susceptible: susceptibleRows,
+    // Without vaccination S_eff = S: the same array.
+    effectiveSusceptible: campaign === null ? susceptibleRows : new Float64Array(rows),
+    prevalence: new Float64Array(rows),
+    cumulative: new Float64Array(rows),
+    protectedCumulative: new Float64Array(rows),
+    dosesToNonSusceptible: new Float64Array(n),
+  };
+}
+
 /**
  * Which code integrates an option: the WebAssembly kernel (optionKernel.ts, the same steps in the
  * same arithmetic, about 4 times faster) or the TypeScript integrator (integrator.ts with
@@ -65,7 +81,9 @@ export type Integration = 'kernel' | 'typescript';
  * Integrates an option over its segments. With `triggered`, the measures also change on the days
  * its triggers decide (checked at every whole day): the integration stops there, the transmission
  * matrix is rebuilt for the measures then in force, and it restarts. `realized` receives the
- * segments as they were actually run (cut at every switch), for R(t).
+ * segments as they were actually run (cut at every switch), for R(t). `into`: arrays from
+ * `newDailyState(p, campaign)` to write into instead of new ones, for a caller that keeps them
+ * between runs (a run with the same p and campaign writes the same entries, every day 0..H).
  */
 export function integrateOption(
   p: PreparedScenario,
@@ -74,6 +92,7 @@ export function integrateOption(
   triggered: { measures: TriggeredMeasures; fixedPhaseAt: (t: number) => Phase | null; realized: Segment[] } | null = null,
   accuracy: Accuracy = {},
   integration: Integration = kernelAvailable() ? 'kernel' : 'typescript',
+  into: DailyState | null = null,
 ): DailyState {
   const n = p.bands.bands;
   const H = p.scenario.horizonDays;
@@ -83,17 +102,7 @@ export function integrateOption(
   const risk = campaign === null ? 1 : protectedRisk(campaign.vaccine);
   // Xp and Q are held in units of 1% of the band (seir.ts).
   const unit = quadratureUnits(p.scenario.populationPersons);
-  const rows = (H + 1) * n;
-  const susceptibleRows = new Float64Array(rows);
-  const daily: DailyState = {
-    susceptible: susceptibleRows,
-    // Without vaccination S_eff = S: the same array.
-    effectiveSusceptible: campaign === null ? susceptibleRows : new Float64Array(rows),
-    prevalence: new Float64Array(rows),
-    cumulative: new Float64Array(rows),
-    protectedCumulative: new Float64Array(rows),
-    dosesToNonSusceptible: new Float64Array(n),
-  };
+  const daily = into ?? newDailyState(p, campaign);
   const { susceptible, effectiveSusceptible, prevalence, cumulative, protectedCumulative } = daily;
   const { susceptible: oS, latent: oE, waiting: oW, protectedSusceptible: oP, vaccineImmune: oV, protectedInfections: oXp } = L;
   const infectedBlocks = L.latentStages + L.infectiousStages;

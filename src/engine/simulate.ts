@@ -13,7 +13,7 @@ import { weightedBandSum } from './bandTotals.ts';
 import { convolve } from './distributions.ts';
 import { doublingTimeDays, growthRateFromR, halvingTimeDays } from './growth.ts';
 import { healthcareDemandOfRun } from './healthcare/demand.ts';
-import { type Accuracy, integrateOption } from './integrateOption.ts';
+import { type Accuracy, type DailyState, integrateOption, newDailyState } from './integrateOption.ts';
 import { yearsOfLifeLostByBand } from './lifeExpectancy.ts';
 import { hasTriggers, measuresConstant, phaseAt } from './phases.ts';
 import type { PreparedScenario } from './prepare.ts';
@@ -142,6 +142,29 @@ function vaccinationOutcomes(campaign: PreparedCampaign, plan: readonly DosePiec
 }
 
 /**
+ * Daily arrays kept per prepared scenario and campaign for summary runs, which hand none of them
+ * out: a summary run writes into the last one's arrays instead of allocating five arrays of
+ * (H + 1) x n doubles (about 0.2 MB on the demo) and leaving them to the garbage collector. A run
+ * with the same scenario and campaign writes the same entries (integrateOption.ts), so the kept
+ * arrays hold nothing of an earlier run that a run reads. One run at a time on a thread.
+ */
+const keptDaily = new WeakMap<PreparedScenario, Map<PreparedCampaign | null, DailyState>>();
+
+function keptDailyState(p: PreparedScenario, campaign: PreparedCampaign | null): DailyState {
+  let byCampaign = keptDaily.get(p);
+  if (byCampaign === undefined) {
+    byCampaign = new Map();
+    keptDaily.set(p, byCampaign);
+  }
+  let daily = byCampaign.get(campaign);
+  if (daily === undefined) {
+    daily = newDailyState(p, campaign);
+    byCampaign.set(campaign, daily);
+  }
+  return daily;
+}
+
+/**
  * How much of an option run to keep: `full`, every outcome and the daily series (the views'
  * curves, the daily CSV); `summary`, every outcome without the daily series, for the many-run
  * loops that read only outcomes (uncertainty draws, order searches, the options table); `noRt`,
@@ -182,7 +205,7 @@ export function simulateOption(p: PreparedScenario, option: PolicyOption, settin
   const triggered = hasTriggers(option)
     ? { measures: new TriggeredMeasures(p, option, campaign?.admissionRiskFactor ?? 1), fixedPhaseAt: (t: number) => phaseAt(option, t), realized: [] as Segment[] }
     : null;
-  const daily = integrateOption(p, fixedSegments, campaign, triggered, settings.accuracy);
+  const daily = integrateOption(p, fixedSegments, campaign, triggered, settings.accuracy, undefined, detail === 'summary' ? keptDailyState(p, campaign) : null);
   const segments = triggered === null ? fixedSegments : triggered.realized;
   const triggers = triggered === null ? [] : triggered.measures.controller.outcomes(H);
   const burden = measureBurden(s, option, triggers);
