@@ -49,7 +49,10 @@ function dailyIncidence(p: PreparedScenario, cumulative: Float64Array): Float64A
 /** incidence - (1 - factor) x protected incidence: infections weighted by their relative risk of an outcome. */
 function weightedIncidence(incidence: Float64Array, protectedIncidence: Float64Array | null, factor: number): Float64Array {
   if (protectedIncidence === null) return incidence;
-  return incidence.map((x, k) => Math.max(0, x - (1 - factor) * protectedIncidence[k]));
+  const out = new Float64Array(incidence.length);
+  const avoided = 1 - factor;
+  for (let k = 0; k < incidence.length; k++) out[k] = Math.max(0, incidence[k] - avoided * protectedIncidence[k]);
+  return out;
 }
 
 /** Doses given during each day d (d = 0..H-1) by band, from the plan. */
