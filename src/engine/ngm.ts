@@ -46,13 +46,7 @@ export function spectralRadius(
   rowScale: Float64Array | null = null,
   product: Float64Array | null = null,
 ): number {
-  let sum = 0;
-  for (let i = 0; i < n; i++) sum += vector[i];
-  if (!(sum > 0)) {
-    vector.fill(1 / n);
-    sum = 1;
-  }
-  for (let i = 0; i < n; i++) vector[i] /= sum;
+  normalizeStart(vector, n);
   for (let iter = 0; iter < 300; iter++) {
     let total = 0;
     let low = Infinity;
@@ -78,10 +72,7 @@ export function spectralRadius(
   }
   vector.fill(1 / n);
   if (product !== null) product.fill(0);
-  if (rowScale === null) return perronRoot(flat, n);
-  const scaled = new Float64Array(n * n);
-  for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) scaled[i * n + j] = rowScale[i] * flat[i * n + j];
-  return perronRoot(scaled, n);
+  return rowScale === null ? perronRoot(flat, n) : scaledPerronRoot(flat, n, rowScale);
 }
 
 /** Largest |r| for which `scaledSpectralRadius` extrapolates: 1 / (1 - r) amplifies rounding at most 20-fold. */
@@ -116,32 +107,13 @@ export function scaledSpectralRadius(
   const p1 = 2 * n;
   const x2 = 3 * n;
   const p2 = 4 * n;
-  let sum = 0;
-  for (let i = 0; i < n; i++) sum += vector[i];
-  if (!(sum > 0)) {
-    vector.fill(1 / n);
-    sum = 1;
-  }
-  for (let i = 0; i < n; i++) vector[i] /= sum;
+  normalizeStart(vector, n);
   for (let iter = 0; iter < 300; iter++) {
     let total = 0;
     let low = Infinity;
     let high = 0;
     for (let i = 0; i < n; i++) {
-      const row = i * n;
-      let a0 = 0;
-      let a1 = 0;
-      let a2 = 0;
-      let a3 = 0;
-      let j = 0;
-      for (; j + 3 < n; j += 4) {
-        a0 += flat[row + j] * vector[j];
-        a1 += flat[row + j + 1] * vector[j + 1];
-        a2 += flat[row + j + 2] * vector[j + 2];
-        a3 += flat[row + j + 3] * vector[j + 3];
-      }
-      for (; j < n; j++) a0 += flat[row + j] * vector[j];
-      const acc = a0 + a1 + (a2 + a3);
+      const acc = rowTimes(flat, i * n, vector, n);
       product[i] = acc;
       const image = acc * rowScale[i];
       work[i] = image;
@@ -172,6 +144,22 @@ export function scaledSpectralRadius(
   }
   vector.fill(1 / n);
   product.fill(0);
+  return scaledPerronRoot(flat, n, rowScale);
+}
+
+/** Scales `vector` to sum 1, or sets it uniform when it has no positive sum: the start of a power iteration. */
+function normalizeStart(vector: Float64Array, n: number): void {
+  let sum = 0;
+  for (let i = 0; i < n; i++) sum += vector[i];
+  if (!(sum > 0)) {
+    vector.fill(1 / n);
+    sum = 1;
+  }
+  for (let i = 0; i < n; i++) vector[i] /= sum;
+}
+
+/** The bounded Perron root (perronRoot.ts) of diag(rowScale) M: where power iteration does not settle. */
+function scaledPerronRoot(flat: Float64Array, n: number, rowScale: Float64Array): number {
   const scaled = new Float64Array(n * n);
   for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) scaled[i * n + j] = rowScale[i] * flat[i * n + j];
   return perronRoot(scaled, n);
