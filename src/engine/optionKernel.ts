@@ -19,6 +19,7 @@ import { countAttemptedSteps, type Tolerances, unsolvableNear } from './integrat
 import { protectedRisk, quadratureUnits, type StateLayout, type VaccineEffect } from './seir.ts';
 import type { Unvaccinated } from './vaccination/unvaccinated.ts';
 import { decodeBase64 } from './wasm/base64.ts';
+import { instantiateWasm } from './wasm/instantiate.ts';
 import { OPTION_KERNEL_BASE64 } from './wasm/optionKernelBinary.ts';
 
 /** The kernel's exports (wasm/assembly/optionKernel.ts); offsets in bytes. */
@@ -51,27 +52,13 @@ interface KernelExports {
   integrate(t0: number, t1: number, initialStep: number): number;
 }
 
-/** The part of the platform's WebAssembly API used here (the engine types against ES2022 only). */
-interface WebAssemblyApi {
-  Module: new (bytes: Uint8Array) => object;
-  Instance: new (module: object, imports: object) => { exports: unknown };
-}
-
 let instance: KernelExports | null | undefined;
 /** The day callback of the run in progress (a run never starts another inside it). */
 let watching: ((day: number) => boolean) | null = null;
 
 function instantiate(): KernelExports | null {
-  const api = (globalThis as { WebAssembly?: WebAssemblyApi }).WebAssembly;
-  if (api === undefined) return null;
-  try {
-    const module = new api.Module(decodeBase64(OPTION_KERNEL_BASE64));
-    const imports = { env: { pow: Math.pow, day: (day: number) => (watching !== null && watching(day) ? 1 : 0) } };
-    return new api.Instance(module, imports).exports as KernelExports;
-  } catch {
-    // No SIMD, or a content security policy without 'wasm-unsafe-eval'.
-    return null;
-  }
+  const imports = { env: { pow: Math.pow, day: (day: number) => (watching !== null && watching(day) ? 1 : 0) } };
+  return instantiateWasm(decodeBase64(OPTION_KERNEL_BASE64), imports) as KernelExports | null;
 }
 
 /** The kernel, compiled on first use in this thread, or null where WebAssembly cannot compile it. */

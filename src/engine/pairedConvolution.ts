@@ -19,6 +19,7 @@
  * security policy without 'wasm-unsafe-eval', an engine without SIMD) `pairedConvolution` returns
  * null and the caller keeps its scalar loop.
  */
+import { instantiateWasm } from './wasm/instantiate.ts';
 
 /** Unsigned LEB128, the binary format's integer encoding. */
 function uleb(n: number): number[] {
@@ -130,28 +131,14 @@ const PAD = 8;
  */
 export type PairedConvolution = (out: Float64Array, series: Float64Array, weights: Float64Array, used: number) => boolean;
 
-/**
- * The part of the WebAssembly JavaScript interface used here, declared here: the engine's
- * TypeScript settings carry no host (browser or Node) declarations.
- */
-interface WebAssemblyApi {
-  Module: new (bytes: Uint8Array) => object;
-  Instance: new (module: object) => { exports: Record<string, unknown> };
-}
 interface LinearMemory {
   readonly buffer: ArrayBuffer;
   grow(pages: number): number;
 }
 
 function instantiate(): PairedConvolution | null {
-  const api = (globalThis as { WebAssembly?: WebAssemblyApi }).WebAssembly;
-  if (api === undefined) return null;
-  let exports: Record<string, unknown>;
-  try {
-    exports = new api.Instance(new api.Module(MODULE)).exports;
-  } catch {
-    return null;
-  }
+  const exports = instantiateWasm(MODULE);
+  if (exports === null) return null;
   const memory = exports.memory as LinearMemory;
   const convolve = exports.convolve as (out: number, x: number, w: number, days: number, used: number) => void;
   let heap = new Float64Array(memory.buffer);
